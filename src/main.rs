@@ -1,0 +1,9 @@
+//! The `ebullio` command: argument parsing and glue only.
+
+mod cli;
+
+use std::process::ExitCode;
+
+fn main() -> ExitCode {
+    cli::main()
+}

@@ -1,0 +1,127 @@
+//! Typed temperatures and pressures, their units, and quantity parsing.
+//!
+//! Everything inside ebullio is SI: temperature in kelvin, pressure in pascal.
+//! Units appear only at the edges (file headings, command-line quantities,
+//! reported constants). This module is the one place that knows the factors.
+//!
+//! ```
+//! use ebullio::units::{parse_pressure, parse_temperature};
+//! let p = parse_pressure("20 mbar").unwrap();
+//! assert!((p.pa() - 2000.0).abs() < 1e-9);
+//! let t = parse_temperature("85 degC").unwrap();
+//! assert!((t.kelvin() - 358.15).abs() < 1e-9);
+//! ```
+//!
+//! Reference: NIST Special Publication 811 (2008), *Guide for the Use of the
+//! International System of Units*, Appendix B (conversion factors).
+
+mod pressure;
+mod quantity;
+mod temperature;
+
+pub use pressure::{Pressure, PressureUnit};
+pub use quantity::{parse_pressure, parse_quantity, parse_temperature, Quantity};
+pub use temperature::{Temperature, TemperatureUnit};
+
+/// Standard atmosphere in pascal (exact, NIST SP 811 App. B).
+pub const ATM_PA: f64 = 101_325.0;
+
+/// Offset between the Celsius and Kelvin scales (exact).
+pub const CELSIUS_OFFSET: f64 = 273.15;
+
+/// Error from reading a unit or a quantity.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum UnitError {
+    /// A unit symbol that is not one of ours.
+    #[error("unknown {kind} unit '{unit}'; accepted: {accepted}")]
+    UnknownUnit {
+        /// "temperature" or "pressure".
+        kind: &'static str,
+        /// The text that was given.
+        unit: String,
+        /// The accepted symbols, comma-separated.
+        accepted: String,
+    },
+    /// A number with no unit after it.
+    #[error("'{text}' has no unit; write it with one, e.g. {example}")]
+    MissingUnit {
+        /// The text that was given.
+        text: String,
+        /// An example of the expected form.
+        example: &'static str,
+    },
+    /// Text that does not start with a number.
+    #[error("'{text}' is not a number followed by a unit (e.g. {example})")]
+    NotANumber {
+        /// The text that was given.
+        text: String,
+        /// An example of the expected form.
+        example: &'static str,
+    },
+    /// A value that is not finite.
+    #[error("'{text}' is not a finite number")]
+    NotFinite {
+        /// The text that was given.
+        text: String,
+    },
+    /// A temperature below absolute zero.
+    #[error("{value} {unit} is below absolute zero")]
+    BelowAbsoluteZero {
+        /// The value as given.
+        value: f64,
+        /// The unit symbol as given.
+        unit: String,
+    },
+    /// A zero or negative absolute pressure.
+    #[error("{value} {unit} is not a positive absolute pressure (gauge pressures are not accepted)")]
+    NonPositivePressure {
+        /// The value as given.
+        value: f64,
+        /// The unit symbol as given.
+        unit: String,
+    },
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    // Conversion factors from NIST Special Publication 811 (2008), Appendix B.
+    #[test]
+    fn nist_sp811_pressure_factors() {
+        let cases = [
+            (PressureUnit::Atm, 101_325.0),                // exact
+            (PressureUnit::Torr, 101_325.0 / 760.0),       // exact
+            (PressureUnit::MmHg, 133.322_387_415),         // conventional
+            (PressureUnit::Bar, 100_000.0),                // exact
+            (PressureUnit::Psi, 6_894.757_293),            // NIST SP 811 value
+            (PressureUnit::InHg, 3_386.389),               // conventional, 0 degC
+            (PressureUnit::KPa, 1000.0),
+            (PressureUnit::HPa, 100.0),
+            (PressureUnit::MBar, 100.0),
+            (PressureUnit::MPa, 1.0e6),
+            (PressureUnit::Pa, 1.0),
+        ];
+        for (u, pa) in cases {
+            let got = u.to_pa(1.0);
+            assert!(
+                ((got - pa) / pa).abs() < 1e-9,
+                "NIST SP 811: 1 {} = {pa} Pa, got {got}",
+                u.symbol()
+            );
+            assert!((u.from_pa(pa) - 1.0).abs() < 1e-12);
+        }
+    }
+
+    // NIST SP 811 App. B: T/K = t/degC + 273.15 and T/K = (t/degF + 459.67) * 5/9 (exact).
+    #[test]
+    fn nist_sp811_temperature_relations() {
+        assert_eq!(TemperatureUnit::Celsius.to_kelvin(0.0), 273.15);
+        assert!((TemperatureUnit::Celsius.to_kelvin(100.0) - 373.15).abs() < 1e-12);
+        assert!((TemperatureUnit::Fahrenheit.to_kelvin(32.0) - 273.15).abs() < 1e-12);
+        assert!((TemperatureUnit::Fahrenheit.to_kelvin(-459.67)).abs() < 1e-12);
+        assert!((TemperatureUnit::Fahrenheit.to_kelvin(212.0) - 373.15).abs() < 1e-12);
+        assert!((TemperatureUnit::Rankine.to_kelvin(491.67) - 273.15).abs() < 1e-12);
+        assert_eq!(TemperatureUnit::Kelvin.to_kelvin(300.0), 300.0);
+    }
+}
