@@ -7,6 +7,7 @@ use std::process::ExitCode;
 
 /// What a command achieved, mapped to an exit code by [`exit_code`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[allow(dead_code)] // Findings is used by `check`
 pub enum Outcome {
     /// Exit 0.
     Success,
@@ -101,8 +102,7 @@ pub fn exit_code(r: anyhow::Result<Outcome>) -> ExitCode {
         Ok(Outcome::Findings) => ExitCode::from(1),
         Err(e) => {
             if e.downcast_ref::<BrokenPipe>().is_some()
-                || e
-                    .downcast_ref::<std::io::Error>()
+                || e.downcast_ref::<std::io::Error>()
                     .is_some_and(|io| io.kind() == std::io::ErrorKind::BrokenPipe)
             {
                 return ExitCode::SUCCESS;

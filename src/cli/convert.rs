@@ -62,8 +62,14 @@ pub fn parse_abc(s: &str) -> Result<[f64; 3], InputError> {
 
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let [a, b, c] = parse_abc(&args.antoine)?;
-    let from: AntoineConvention = args.constants.parse().map_err(|e| InputError(format!("--constants: {e}")))?;
-    let to: AntoineConvention = args.to.parse().map_err(|e| InputError(format!("--to: {e}")))?;
+    let from: AntoineConvention = args
+        .constants
+        .parse()
+        .map_err(|e| InputError(format!("--constants: {e}")))?;
+    let to: AntoineConvention = args
+        .to
+        .parse()
+        .map_err(|e| InputError(format!("--to: {e}")))?;
     let k = convert::exact(&AntoineConstants::new(a, b, c, from), to);
     let r = Converted {
         a: k.a,
@@ -74,7 +80,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     let text = match args.out.format() {
         Format::Json => serde_json::to_string_pretty(&r)? + "\n",
-        Format::Csv => format!("A,B,C,convention,exact\n{},{},{},\"{}\",true\n", r.a, r.b, r.c, r.convention),
+        Format::Csv => format!(
+            "A,B,C,convention,exact\n{},{},{},\"{}\",true\n",
+            r.a, r.b, r.c, r.convention
+        ),
         Format::Table => format!(
             "Antoine constants in {} (exact conversion)\n  A = {:.6}\n  B = {:.4}\n  C = {:.4}\n",
             r.convention, r.a, r.b, r.c

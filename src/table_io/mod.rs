@@ -9,4 +9,6 @@ pub mod atomic;
 pub mod measured;
 
 pub use atomic::{write_atomic, OutputError};
-pub use measured::{read_measured, MeasuredData, MeasuredPoint, MeasuredSet, ReadError, ReadOptions, ReadWarning};
+pub use measured::{
+    read_measured, MeasuredData, MeasuredPoint, MeasuredSet, ReadError, ReadOptions, ReadWarning,
+};

@@ -73,7 +73,9 @@ pub enum UnitError {
         unit: String,
     },
     /// A zero or negative absolute pressure.
-    #[error("{value} {unit} is not a positive absolute pressure (gauge pressures are not accepted)")]
+    #[error(
+        "{value} {unit} is not a positive absolute pressure (gauge pressures are not accepted)"
+    )]
     NonPositivePressure {
         /// The value as given.
         value: f64,
@@ -90,12 +92,12 @@ mod tests {
     #[test]
     fn nist_sp811_pressure_factors() {
         let cases = [
-            (PressureUnit::Atm, 101_325.0),                // exact
-            (PressureUnit::Torr, 101_325.0 / 760.0),       // exact
-            (PressureUnit::MmHg, 133.322_387_415),         // conventional
-            (PressureUnit::Bar, 100_000.0),                // exact
-            (PressureUnit::Psi, 6_894.757_293),            // NIST SP 811 value
-            (PressureUnit::InHg, 3_386.389),               // conventional, 0 degC
+            (PressureUnit::Atm, 101_325.0),          // exact
+            (PressureUnit::Torr, 101_325.0 / 760.0), // exact
+            (PressureUnit::MmHg, 133.322_387_415),   // conventional
+            (PressureUnit::Bar, 100_000.0),          // exact
+            (PressureUnit::Psi, 6_894.757_293),      // NIST SP 811 value
+            (PressureUnit::InHg, 3_386.389),         // conventional, 0 degC
             (PressureUnit::KPa, 1000.0),
             (PressureUnit::HPa, 100.0),
             (PressureUnit::MBar, 100.0),

@@ -81,12 +81,7 @@ mod tests {
     // Round trips between every pair of conventions are exact to 1e-12 at 50 temperatures.
     #[test]
     fn round_trips_are_exact_for_every_pair() {
-        let base = AntoineConstants::new(
-            13.7819,
-            2726.81,
-            217.572,
-            "ln,kPa,degC".parse().unwrap(),
-        );
+        let base = AntoineConstants::new(13.7819, 2726.81, 217.572, "ln,kPa,degC".parse().unwrap());
         let convs = all_conventions();
         for &from in &convs {
             let k1 = exact(&base, from);

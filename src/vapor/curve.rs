@@ -18,6 +18,13 @@ pub trait Curve: Send + Sync {
     /// Temperature range (K) over which the source claims validity, if known.
     fn valid_range_k(&self) -> Option<(f64, f64)>;
 
+    /// Standard uncertainty (1 sigma, K) of the temperature at which the curve
+    /// reaches `p_pa`, when the source carries one (a fit's covariance, an
+    /// estimate's calibrated error, a reference's stated uncertainty).
+    fn t_uncertainty_k(&self, _p_pa: f64) -> Option<f64> {
+        None
+    }
+
     /// Vapor pressure in pascal.
     fn p_pa(&self, t_k: f64) -> f64 {
         self.ln_p(t_k).exp()

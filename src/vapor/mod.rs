@@ -6,9 +6,10 @@
 //! `fit` drives. [`AntoineConstants`] carries published constants with their
 //! convention; [`convert`] changes conventions exactly.
 
-pub mod convert;
 mod convention;
+pub mod convert;
 mod curve;
+pub mod slope;
 
 pub use convention::{AntoineConstants, AntoineConvention, ConventionError, LogBase};
 pub use curve::{invert_monotone, Curve};
