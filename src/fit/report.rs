@@ -11,18 +11,36 @@ use super::stats::RunsTest;
 use crate::vapor::Equation;
 use serde::{Deserialize, Serialize};
 
+/// JSON has no NaN: serde_json writes a NaN as `null`; these read `null` back as NaN.
+mod nan_null {
+    use serde::{Deserialize, Deserializer};
+    pub fn f64<'de, D: Deserializer<'de>>(d: D) -> Result<f64, D::Error> {
+        Ok(Option::<f64>::deserialize(d)?.unwrap_or(f64::NAN))
+    }
+    pub fn matrix<'de, D: Deserializer<'de>>(d: D) -> Result<Vec<Vec<f64>>, D::Error> {
+        let m = Vec::<Vec<Option<f64>>>::deserialize(d)?;
+        Ok(m.into_iter()
+            .map(|r| r.into_iter().map(|v| v.unwrap_or(f64::NAN)).collect())
+            .collect())
+    }
+}
+
 /// One reported constant with its uncertainty (in the reported convention).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct ParameterEstimate {
     /// Name (`A`, `B`, `C`, ...).
     pub name: String,
     /// Value.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub value: f64,
     /// Standard error.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub std_error: f64,
     /// Lower end of the 95 % confidence interval (Student t).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_low: f64,
     /// Upper end of the 95 % confidence interval.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_high: f64,
 }
 
@@ -30,16 +48,21 @@ pub struct ParameterEstimate {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct Interval {
     /// Value.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub value: f64,
     /// Lower end of the 95 % confidence interval.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_low: f64,
     /// Upper end.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_high: f64,
     /// Standard uncertainty (1 sigma).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub std_error: f64,
     /// True when outside the measured temperature range.
     pub extrapolated: bool,
     /// Kelvin outside the measured range (0 inside).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub extrapolation_k: f64,
 }
 
@@ -49,16 +72,21 @@ pub struct Prediction {
     /// `t_at_p` (boiling temperature at a pressure) or `p_at_t`.
     pub kind: String,
     /// Pressure, Pa (given or predicted).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub p_pa: f64,
     /// Temperature, K (given or predicted).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub t_k: f64,
     /// 95 % interval of the predicted quantity (K for `t_at_p`, Pa for `p_at_t`).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_low: f64,
     /// Upper end.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_high: f64,
     /// True when outside the measured temperature range.
     pub extrapolated: bool,
     /// Kelvin outside the measured range (0 inside).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub extrapolation_k: f64,
 }
 
@@ -66,12 +94,16 @@ pub struct Prediction {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct HvapEstimate {
     /// Temperature, K (mean of the data).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub t_k: f64,
     /// ΔHvap, kJ/mol.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub value_kj_mol: f64,
     /// 95 % interval, kJ/mol.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_low: f64,
     /// Upper end.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ci95_high: f64,
     /// The assumption behind it.
     pub note: String,
@@ -81,20 +113,28 @@ pub struct HvapEstimate {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct PointReport {
     /// Temperature, K.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub t_k: f64,
     /// Pressure, Pa.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub p_pa: f64,
     /// 100·(p_measured − p_fit)/p_fit.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub rel_dev_pct: f64,
     /// T_measured − T_fit(p_measured), K.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub t_dev_k: f64,
     /// Internally studentized residual.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub studentized: f64,
     /// Externally studentized residual (used by the outlier rule).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub ext_studentized: f64,
     /// Leverage h_ii.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub leverage: f64,
     /// Cook's distance.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub cooks_distance: f64,
     /// Flagged by the outlier rule.
     pub outlier: bool,
@@ -136,6 +176,7 @@ pub struct WithoutFlagged {
     /// Normal boiling point without them.
     pub normal_boiling_point_k: Option<Interval>,
     /// RMS relative deviation in p without them, %.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub rms_rel_dev_pct: f64,
 }
 
@@ -153,12 +194,16 @@ pub struct FitReport {
     /// Number of points fitted.
     pub n_points: usize,
     /// RMS relative deviation in p, %.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub rms_rel_dev_pct: f64,
     /// Maximum absolute relative deviation in p, %.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub max_rel_dev_pct: f64,
     /// RMS deviation in T, K.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub rms_dev_t_k: f64,
     /// Maximum absolute deviation in T, K.
+    #[serde(deserialize_with = "nan_null::f64")]
     pub max_dev_t_k: f64,
     /// Normal boiling point (101.325 kPa) with its 95 % interval.
     pub normal_boiling_point_k: Option<Interval>,
@@ -173,8 +218,10 @@ pub struct FitReport {
     /// SI parameters (ln(p/Pa), T in K), in the equation's order.
     pub si_parameters: Vec<f64>,
     /// Covariance of the SI parameters.
+    #[serde(deserialize_with = "nan_null::matrix")]
     pub covariance_si: Vec<Vec<f64>>,
     /// Correlation matrix of the parameters.
+    #[serde(deserialize_with = "nan_null::matrix")]
     pub correlation: Vec<Vec<f64>>,
     /// Residual degrees of freedom.
     pub dof: usize,
@@ -183,6 +230,7 @@ pub struct FitReport {
     /// Reduced chi-square (weighted fits).
     pub reduced_chi_square: Option<f64>,
     /// Residual standard deviation of ln p (unweighted fits).
+    #[serde(deserialize_with = "nan_null::f64")]
     pub residual_sd_ln_p: f64,
     /// Runs test on residual signs ordered by T.
     pub runs_test: RunsTest,

@@ -813,6 +813,9 @@ mod tests {
         }
         let r = fit_points(None, &p, &FitOptions::default()).unwrap();
         assert_eq!(r.weighting, "effective-variance");
+        // NaN fields (residual SD of an unweighted fit) survive JSON as null
+        let back: FitReport = serde_json::from_str(&serde_json::to_string(&r).unwrap()).unwrap();
+        assert!(back.residual_sd_ln_p.is_nan());
         let chi = r.reduced_chi_square.unwrap();
         assert!(chi > 0.0 && chi < 10.0, "{chi}");
     }
