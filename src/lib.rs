@@ -21,6 +21,7 @@
 //! ```
 #![warn(missing_docs)]
 
+pub mod estimate;
 pub mod molecule;
 pub mod reference;
 pub mod table_io;
