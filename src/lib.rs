@@ -22,6 +22,8 @@
 #![warn(missing_docs)]
 
 pub mod fit;
+pub mod estimate;
+pub mod molecule;
 pub mod reference;
 pub mod table_io;
 pub mod units;
