@@ -21,6 +21,7 @@
 //! ```
 #![warn(missing_docs)]
 
+pub mod plan;
 pub mod reference;
 pub mod table_io;
 pub mod units;
