@@ -24,6 +24,7 @@
 pub mod fit;
 pub mod estimate;
 pub mod molecule;
+pub mod plan;
 pub mod reference;
 pub mod table_io;
 pub mod units;
