@@ -10,9 +10,22 @@ fn main() {
 
 /// A mix of dev-set-like structures (solvents, aromatics, acids, esters, nitriles).
 const MIX: &[&str] = &[
-    "CC(C)=O", "CCO", "Cc1ccccc1", "CCOC(C)=O", "CCCCCCCC", "ClC(Cl)Cl", "OCCOCCO",
-    "CC(=O)O", "CC#N", "C[N+](=O)[O-]", "c1ccsc1", "CN(C)C=O", "Oc1ccccc1", "CC(C)c1ccccc1",
-    "C1CCCCC1", "CCCCOC(C)=O",
+    "CC(C)=O",
+    "CCO",
+    "Cc1ccccc1",
+    "CCOC(C)=O",
+    "CCCCCCCC",
+    "ClC(Cl)Cl",
+    "OCCOCCO",
+    "CC(=O)O",
+    "CC#N",
+    "C[N+](=O)[O-]",
+    "c1ccsc1",
+    "CN(C)C=O",
+    "Oc1ccccc1",
+    "CC(C)c1ccccc1",
+    "C1CCCCC1",
+    "CCCCOC(C)=O",
 ];
 
 #[divan::bench(sample_count = 50, sample_size = 200)]
