@@ -26,6 +26,7 @@ pub mod fit;
 pub mod molecule;
 pub mod plan;
 pub mod reference;
+pub mod report;
 pub mod table_io;
 pub mod units;
 pub mod vapor;

@@ -1,0 +1,3 @@
+//! Output documents: SVG plots (and, later, HTML reports).
+
+pub mod fit_plot;
