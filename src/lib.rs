@@ -23,6 +23,7 @@
 
 pub mod plan;
 pub mod reference;
+pub mod report;
 pub mod table_io;
 pub mod units;
 pub mod vapor;
