@@ -22,16 +22,24 @@ pub struct Args {
     /// convention of --constants, or with its own: "NAME:A,B,C@log10,mmHg,degC".
     #[arg(long, value_name = "NAME:A,B,C", allow_hyphen_values = true)]
     pub antoine: Vec<String>,
+    /// A component estimated from structure (Joback boiling point, Lee–Kesler
+    /// curve), repeatable; a name may follow after a space: "CC(=O)C acetone".
+    #[arg(long, value_name = "SMILES")]
+    pub smiles: Vec<String>,
+    /// A component from a fit result file written by `ebullio fit --format json`
+    /// (repeatable; every compound in a batch file becomes a component).
+    #[arg(long, value_name = "FIT.json")]
+    pub from: Vec<PathBuf>,
     /// Convention of the --antoine constants, e.g. "log10,mmHg,degC".
     #[arg(long)]
     pub constants: Option<String>,
     /// Operating pressure with its unit, e.g. "50 mbar" [default: 1 atm].
-    #[arg(long, conflicts_with = "max_pot")]
+    #[arg(long, conflicts_with = "max_pot", allow_hyphen_values = true)]
     pub pressure: Option<String>,
     /// Maximum pot temperature, e.g. "120 degC": the plan uses the highest
     /// pressure at which the heaviest component boils at or below it, rounded
     /// down to 2 significant figures in mbar.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub max_pot: Option<String>,
     /// Target purity (mole fraction) of both distillate and bottoms.
     #[arg(long, default_value_t = 0.99)]
@@ -109,6 +117,82 @@ fn antoine_component(
     ))
 }
 
+/// One `--smiles` value into a component.
+fn smiles_component(text: &str) -> Result<Component, InputError> {
+    let mut parts = text.split_whitespace();
+    let smiles = parts.next().ok_or_else(|| {
+        InputError("--smiles: empty value; give a SMILES such as \"CC(=O)C\"".into())
+    })?;
+    let rest: Vec<&str> = parts.collect();
+    let name = if rest.is_empty() {
+        smiles.to_string()
+    } else {
+        rest.join(" ")
+    };
+    let e = ebullio::estimate::estimate_smiles(smiles)
+        .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
+    let curve = e.curve().ok_or_else(|| {
+        InputError(format!(
+            "--smiles '{smiles}': no critical constants could be estimated, so there is no vapor-pressure curve"
+        ))
+    })?;
+    Ok(Component::new(
+        name,
+        Box::new(curve),
+        format!(
+            "structure estimate from SMILES {smiles} (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+            e.tb_k, e.tb_typical_error_k
+        ),
+    ))
+}
+
+/// The components in one fit result file.
+fn fit_components(path: &std::path::Path) -> Result<Vec<Component>, InputError> {
+    use ebullio::fit::{FitReport, FittedCurve};
+    let text = std::fs::read_to_string(path)
+        .map_err(|e| InputError(format!("--from {}: cannot read: {e}", path.display())))?;
+    let bad = |e: serde_json::Error| {
+        InputError(format!(
+            "--from {}: line {}, column {}: not a fit result (expected the JSON of `ebullio fit`): {e}",
+            path.display(),
+            e.line(),
+            e.column()
+        ))
+    };
+    let value: serde_json::Value = serde_json::from_str(&text).map_err(bad)?;
+    let reports: Vec<FitReport> = if value.is_array() {
+        serde_json::from_value(value).map_err(bad)?
+    } else {
+        vec![serde_json::from_value(value).map_err(bad)?]
+    };
+    let stem = path
+        .file_stem()
+        .and_then(|s| s.to_str())
+        .unwrap_or("fit")
+        .to_string();
+    let many = reports.len() > 1;
+    Ok(reports
+        .iter()
+        .enumerate()
+        .map(|(i, r)| {
+            let name = r.compound.clone().unwrap_or_else(|| {
+                if many {
+                    format!("{stem}#{}", i + 1)
+                } else {
+                    stem.clone()
+                }
+            });
+            let source = format!(
+                "{} fit of {} measured points from {} (uncertainty from the fit covariance)",
+                r.model,
+                r.n_points,
+                path.display()
+            );
+            Component::new(name, Box::new(FittedCurve::from_report(r)), source)
+        })
+        .collect())
+}
+
 /// Stage two of argument handling: build the components and options.
 fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
     let default = args
@@ -119,14 +203,20 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
                 .map_err(|e| InputError(format!("--constants: {e}")))
         })
         .transpose()?;
-    let comps = args
+    let mut comps = args
         .antoine
         .iter()
         .map(|t| antoine_component(t, default))
         .collect::<Result<Vec<_>, _>>()?;
+    for s in &args.smiles {
+        comps.push(smiles_component(s)?);
+    }
+    for f in &args.from {
+        comps.extend(fit_components(f)?);
+    }
     if comps.len() < 2 {
         return Err(InputError(format!(
-            "a plan needs at least two components (give --antoine twice or more); {} given",
+            "a plan needs at least two components (any mix of --antoine, --smiles, --from); {} given",
             comps.len()
         )));
     }
@@ -161,7 +251,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let p = plan::plan(&comps, &opts).map_err(|e| InputError(e.to_string()))?;
     if let Some(path) = &args.plot {
         let svg = ebullio::report::plan_plot::plan_svg(&p, &comps)?;
-        ebullio::table_io::write_atomic(path, svg.as_bytes(), &[])
+        let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();
+        ebullio::table_io::write_atomic(path, svg.as_bytes(), &inputs)
             .with_context(|| format!("writing {}", path.display()))?;
     }
     let text = match args.out.format() {
@@ -169,7 +260,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         Format::Csv => csv_table(&p)?,
         Format::Table => table(&p),
     };
-    args.out.emit(&text, &[])?;
+    let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();
+    args.out.emit(&text, &inputs)?;
     Ok(Outcome::Success)
 }
 
