@@ -292,3 +292,52 @@ fn a_non_fit_json_file_is_refused_with_line_and_column() {
     let err = String::from_utf8_lossy(&out.stderr);
     assert!(err.contains("line") && err.contains("column"), "{err}");
 }
+
+/// `--from`: a fit result JSON (FitReport, as `ebullio fit --format json`
+/// writes it) becomes a component whose uncertainty comes from the fit.
+/// The points are generated from the SVNA App. B benzene constants with a
+/// deterministic ±0.2 % wiggle (invented data, not measurements).
+#[test]
+fn fit_result_file_is_a_component_with_fit_uncertainty() {
+    use ebullio::fit::{fit_points, FitOptions, Point};
+    use ebullio::vapor::{AntoineConstants, Curve};
+    let conv = "ln,kPa,degC".parse().unwrap();
+    let bz = AntoineConstants::new(13.7819, 2726.81, 217.572, conv);
+    let pts: Vec<Point> = (0..12)
+        .map(|i| {
+            let t = 300.0 + 5.0 * i as f64;
+            let wiggle = 1.0 + 0.002 * if i % 2 == 0 { 1.0 } else { -1.0 };
+            Point {
+                t_k: t,
+                p_pa: bz.p_pa(t) * wiggle,
+                u_t_k: None,
+                u_p_pa: None,
+            }
+        })
+        .collect();
+    let report = fit_points(Some("benzene".into()), &pts, &FitOptions::default()).unwrap();
+    let dir = tempfile::tempdir().unwrap();
+    let f = dir.path().join("fit.json");
+    std::fs::write(&f, serde_json::to_string(&report).unwrap()).unwrap();
+    let v = json(&[
+        "plan",
+        "--from",
+        f.to_str().unwrap(),
+        "--antoine",
+        TOL,
+        "--constants",
+        "ln,kPa,degC",
+        "--pressure",
+        "500 mbar",
+    ]);
+    let c = &v["components"][0];
+    assert_eq!(c["name"], "benzene");
+    assert!(c["u_tb_k"].as_f64().unwrap() > 0.0);
+    assert!(c["source"].as_str().unwrap().contains("fit"));
+    assert!(
+        v["relative_volatility_detail"]["u_ln_alpha"]
+            .as_f64()
+            .unwrap()
+            > 0.0
+    );
+}

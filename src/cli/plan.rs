@@ -309,8 +309,8 @@ fn table(p: &Plan) -> String {
     let _ = writeln!(s, "Separation plan (ideal solution)");
     let _ = write!(
         s,
-        "Operating pressure: {:.4} mbar ({:.1} Pa)",
-        p.pressure_pa / 100.0,
+        "Operating pressure: {} mbar ({:.1} Pa)",
+        mbar(p.pressure_pa),
         p.pressure_pa
     );
     if let Some(m) = &p.pressure_choice.max_pot {
@@ -352,20 +352,37 @@ fn table(p: &Plan) -> String {
     );
     let _ = writeln!(
         s,
-        "Relative volatility (Raoult): {:.4} at t_b({}), {:.4} at t_b({}), geometric mean {:.4} (95 % {:.4}–{:.4})",
-        d.pair.at_light_tb, d.pair.light, d.pair.at_heavy_tb, d.pair.heavy, p.relative_volatility, d.ci95_low, d.ci95_high
+        "Relative volatility (Raoult): {:.4} at t_b({}), {:.4} at t_b({}), geometric mean {:.4} ({})",
+        d.pair.at_light_tb,
+        d.pair.light,
+        d.pair.at_heavy_tb,
+        d.pair.heavy,
+        p.relative_volatility,
+        if d.u_ln_alpha > 0.0 {
+            format!("95 % {:.4}–{:.4}", d.ci95_low, d.ci95_high)
+        } else {
+            "no uncertainty stated by the sources".to_string()
+        }
     );
+    let no_u = d.u_ln_alpha <= 0.0;
     let f = &p.fenske_detail;
     let _ = writeln!(
         s,
-        "Fenske minimum theoretical stages (x_D = {}, x_B = {}): {} (95 % {}–{})",
+        "Fenske minimum theoretical stages (x_D = {}, x_B = {}): {}{}",
         f.distillate_purity,
         f.bottoms_purity,
         opt(p.fenske_min_stages, 2),
-        opt(f.ci95_low, 2),
-        f.ci95_high
-            .map(|v| format!("{v:.2}"))
-            .unwrap_or_else(|| "unbounded".into())
+        if no_u {
+            String::new()
+        } else {
+            format!(
+                " (95 % {}–{})",
+                opt(f.ci95_low, 2),
+                f.ci95_high
+                    .map(|v| format!("{v:.2}"))
+                    .unwrap_or_else(|| "unbounded".into())
+            )
+        }
     );
     if p.pairs.len() > 1 {
         let _ = writeln!(s, "\nAdjacent pairs:");
