@@ -1,3 +1,4 @@
-//! Output documents: SVG plots (and, later, HTML reports).
+//! Output documents: SVG plots and HTML reports drawn from results; no numerics.
 
 pub mod fit_plot;
+pub mod plan_plot;
