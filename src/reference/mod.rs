@@ -21,6 +21,7 @@
 pub mod cas;
 pub mod compare;
 mod curve;
+pub mod fit_check;
 pub mod table;
 pub mod water;
 
