@@ -21,6 +21,7 @@
 //! ```
 #![warn(missing_docs)]
 
+pub mod boiling;
 pub mod estimate;
 pub mod fit;
 pub mod molecule;
