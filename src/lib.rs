@@ -21,8 +21,8 @@
 //! ```
 #![warn(missing_docs)]
 
-pub mod fit;
 pub mod estimate;
+pub mod fit;
 pub mod molecule;
 pub mod plan;
 pub mod reference;

@@ -47,8 +47,8 @@ pub use finding::{Code, Finding, Severity};
 pub use report::{ScreenReport, Summary, WorstRow};
 pub use row::{row_label, AntoineCell, RowInput};
 pub use sources::{
-    Identity, NoReference, NoStructure, ReferenceEntry, ReferenceLookup, StructureEstimator,
-    StructureOutcome, TableReference,
+    Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
+    StructureEstimator, StructureOutcome, TableReference,
 };
 
 use crate::units::ATM_PA;

@@ -61,6 +61,36 @@ impl StructureEstimator for NoStructure {
     }
 }
 
+/// Structure estimates by the Joback method with the Stein & Brown
+/// correction (`crate::estimate`), structure keys from `crate::molecule`.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct JobackEstimator;
+
+impl StructureEstimator for JobackEstimator {
+    fn estimate(&self, smiles: &str) -> Option<StructureOutcome> {
+        let m = match crate::molecule::parse_smiles(smiles) {
+            Ok(m) => m,
+            Err(e) => {
+                return Some(StructureOutcome::Unreadable {
+                    reason: e.to_string(),
+                })
+            }
+        };
+        let key = Some(m.structure_key());
+        Some(match crate::estimate::estimate_molecule(&m) {
+            Ok(e) => StructureOutcome::Estimate {
+                tb_k: e.tb_k,
+                typical_error_k: e.tb_typical_error_k,
+                structure_key: key,
+            },
+            Err(e) => StructureOutcome::NoEstimate {
+                structure_key: key,
+                reason: e.to_string(),
+            },
+        })
+    }
+}
+
 /// A reference boiling point for a compound.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ReferenceEntry {

@@ -7,6 +7,8 @@
 
 pub mod atomic;
 pub mod measured;
+#[cfg(feature = "tables")]
+pub mod property_table;
 
 pub use atomic::{write_atomic, OutputError};
 pub use measured::{
