@@ -21,6 +21,10 @@
 //! ```
 #![warn(missing_docs)]
 
+pub mod fit;
+pub mod estimate;
+pub mod molecule;
+pub mod plan;
 pub mod reference;
 pub mod table_io;
 pub mod units;
