@@ -22,6 +22,7 @@
 #![warn(missing_docs)]
 
 pub mod reference;
+pub mod report;
 pub mod table_io;
 pub mod units;
 pub mod vapor;
