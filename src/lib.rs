@@ -21,6 +21,11 @@
 //! ```
 #![warn(missing_docs)]
 
+pub mod boiling;
+pub mod estimate;
+pub mod fit;
+pub mod molecule;
+pub mod plan;
 pub mod reference;
 pub mod report;
 pub mod table_io;

@@ -1,4 +1,4 @@
-//! Reports: SVG plots and one self-contained HTML file per run.
+//! Output documents: SVG plots and one self-contained HTML report per run; no numerics.
 //!
 //! Output only: this module formats results the domain modules computed. Plots
 //! are drawn with plotters' SVG backend and inlined into the HTML by
@@ -6,4 +6,6 @@
 //! anywhere else.
 
 pub mod curve_plot;
+pub mod fit_plot;
 pub mod html;
+pub mod plan_plot;

@@ -1,0 +1,43 @@
+//! Findings about a fit: stable kebab-case codes, severity, one plain sentence.
+//!
+//! Codes are ebullio's own and stable (scripts match on them):
+//! `too-few-points`, `narrow-range`, `extrapolated-prediction`, `outlier-point`,
+//! `systematic-residuals`, `parameters-highly-correlated`, `poor-fit`,
+//! `antoine-pole-near-range`, `trouton-implausible`, `not-converged`,
+//! `hvap-near-critical`, `model-choice`.
+
+use serde::{Deserialize, Serialize};
+
+/// How serious a finding is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Severity {
+    /// Worth knowing.
+    Info,
+    /// Check before relying on the result.
+    Warning,
+    /// The result should not be used as it stands.
+    Error,
+}
+
+/// One finding.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Finding {
+    /// Stable kebab-case code.
+    pub code: String,
+    /// Severity.
+    pub severity: Severity,
+    /// One sentence a chemist understands.
+    pub message: String,
+}
+
+impl Finding {
+    /// A finding.
+    pub fn new(code: &str, severity: Severity, message: impl Into<String>) -> Self {
+        Finding {
+            code: code.to_string(),
+            severity,
+            message: message.into(),
+        }
+    }
+}

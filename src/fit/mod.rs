@@ -1,0 +1,41 @@
+//! Fitting vapor-pressure equations to measured data, with honest uncertainties.
+//!
+//! Layers, one concern per file: [`lsq`] (generic weighted Levenberg–Marquardt
+//! and covariance), [`linear`] (exact linear least squares), [`equation_fit`]
+//! (one equation to points: starts, effective-variance weights, robust loss),
+//! [`vapor_fit`] (statistics, diagnostics, predictions, findings, model
+//! choice), [`report`] (the serialisable result) and [`curve`] (a fitted curve
+//! rebuilt from a report, usable as a [`crate::vapor::Curve`]).
+//!
+//! ```
+//! use ebullio::fit::{fit_points, FitOptions, Point};
+//! use ebullio::vapor::{Antoine, VaporEquation};
+//! let pts: Vec<Point> = (0..8).map(|i| {
+//!     let t = 300.0 + 10.0 * i as f64;
+//!     Point { t_k: t, p_pa: Antoine.ln_p(&[21.5, 3100.0, -52.0], t).exp(), u_t_k: None, u_p_pa: None }
+//! }).collect();
+//! let r = fit_points(None, &pts, &FitOptions::default()).unwrap();
+//! assert!(r.termination.converged);
+//! let tb = r.normal_boiling_point_k.unwrap().value;
+//! assert!((tb - (3100.0 / (21.5 - 101_325f64.ln()) + 52.0)).abs() < 1e-6);
+//! ```
+
+// Index loops mirror the formulas (matrix subscripts); iterator chains would hide them.
+#![allow(clippy::needless_range_loop)]
+
+pub mod curve;
+pub mod equation_fit;
+pub mod findings;
+pub mod linear;
+pub mod lsq;
+pub mod options;
+pub mod report;
+pub mod stats;
+pub mod vapor_fit;
+
+pub use curve::FittedCurve;
+pub use equation_fit::{Point, RobustLoss};
+pub use findings::{Finding, Severity};
+pub use options::{At, FitOptions, ModelSelection};
+pub use report::FitReport;
+pub use vapor_fit::{fit_points, fit_set, FitError, P_ATM_PA};

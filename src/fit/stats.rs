@@ -1,0 +1,121 @@
+//! Statistics for fit diagnostics: t quantiles, runs test, residual measures.
+//!
+//! Reference: runs test — A. Wald & J. Wolfowitz, *Ann. Math. Statist.* 11,
+//! 147–162 (1940), normal approximation; externally studentized residuals,
+//! leverage and Cook's distance — D. A. Belsley, E. Kuh & R. E. Welsch,
+//! *Regression Diagnostics* (1980), ch. 2; R. D. Cook, *Technometrics* 19,
+//! 15–18 (1977).
+
+use serde::{Deserialize, Serialize};
+use statrs::distribution::{ContinuousCDF, StudentsT};
+use std::cell::RefCell;
+use std::collections::HashMap;
+
+thread_local! {
+    static T_CACHE: RefCell<HashMap<(u64, usize), f64>> = RefCell::new(HashMap::new());
+}
+
+/// Upper quantile t_{q, dof} of Student's t (q in (0,1)); cached per thread.
+/// NaN for dof = 0.
+pub fn t_quantile(q: f64, dof: usize) -> f64 {
+    if dof == 0 || !(q > 0.0 && q < 1.0) {
+        return f64::NAN;
+    }
+    let key = (q.to_bits(), dof);
+    if let Some(v) = T_CACHE.with(|c| c.borrow().get(&key).copied()) {
+        return v;
+    }
+    let v = StudentsT::new(0.0, 1.0, dof as f64)
+        .map(|d| d.inverse_cdf(q))
+        .unwrap_or(f64::NAN);
+    T_CACHE.with(|c| c.borrow_mut().insert(key, v));
+    v
+}
+
+/// Runs test on the signs of residuals ordered by temperature.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct RunsTest {
+    /// Number of runs of equal sign.
+    pub runs: usize,
+    /// Expected number under randomness.
+    pub expected: f64,
+    /// Normal-approximation z score (negative: too few runs, systematic misfit).
+    pub z: f64,
+    /// True when z < −1.645 (one-sided 5 %): residuals look systematic.
+    pub systematic: bool,
+}
+
+/// Runs test on residuals already ordered by temperature (zeros skipped).
+pub fn runs_test(ordered_residuals: &[f64]) -> RunsTest {
+    let signs: Vec<bool> = ordered_residuals
+        .iter()
+        .filter(|r| **r != 0.0)
+        .map(|r| *r > 0.0)
+        .collect();
+    let n1 = signs.iter().filter(|s| **s).count() as f64;
+    let n2 = signs.len() as f64 - n1;
+    let runs = if signs.is_empty() {
+        0
+    } else {
+        1 + signs.windows(2).filter(|w| w[0] != w[1]).count()
+    };
+    let n = n1 + n2;
+    let expected = if n > 0.0 {
+        2.0 * n1 * n2 / n + 1.0
+    } else {
+        0.0
+    };
+    let var = if n > 1.0 {
+        2.0 * n1 * n2 * (2.0 * n1 * n2 - n) / (n * n * (n - 1.0))
+    } else {
+        0.0
+    };
+    let z = if var > 0.0 {
+        (runs as f64 - expected) / var.sqrt()
+    } else {
+        0.0
+    };
+    RunsTest {
+        runs,
+        expected,
+        z,
+        systematic: z < -1.645,
+    }
+}
+
+/// Externally studentized residual of point i: r_i / (s_(i) √(1 − h_i)),
+/// s_(i)² = (RSS − r_i²/(1 − h_i))/(m − n − 1). NaN when undefined.
+pub fn external_studentized(r: f64, h: f64, rss: f64, dof: usize) -> f64 {
+    if dof < 2 || h >= 1.0 {
+        return f64::NAN;
+    }
+    let s2 = (rss - r * r / (1.0 - h)) / (dof as f64 - 1.0);
+    if s2 <= 0.0 {
+        return f64::NAN;
+    }
+    r / (s2 * (1.0 - h)).sqrt()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn t_quantile_matches_table() {
+        // Student t table (any statistics text): t_{0.975, 10} = 2.228.
+        assert!((t_quantile(0.975, 10) - 2.228).abs() < 1e-3);
+        assert!(t_quantile(0.975, 0).is_nan());
+    }
+
+    #[test]
+    fn runs_test_sees_a_bow() {
+        let bow = [
+            1.0, 1.0, 1.0, -1.0, -1.0, -1.0, -1.0, 1.0, 1.0, 1.0, 1.0, 1.0,
+        ];
+        assert!(runs_test(&bow).systematic);
+        let alt: Vec<f64> = (0..12)
+            .map(|i| if i % 2 == 0 { 1.0 } else { -1.0 })
+            .collect();
+        assert!(!runs_test(&alt).systematic);
+    }
+}
