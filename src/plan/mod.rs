@@ -1,6 +1,6 @@
 //! Separation planning: from vapor-pressure curves to a batch-distillation plan.
 //!
-//! Given two or more [`Component`]s (each a name, a vapor-pressure [`Curve`]
+//! Given two or more [`Component`]s (each a name, a vapor-pressure [`Curve`](crate::vapor::Curve)
 //! and a description of where the curve came from), the plan answers the first
 //! questions before a batch distillation:
 //!
