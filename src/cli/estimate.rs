@@ -1,11 +1,503 @@
-//! `ebullio estimate`: placeholder until its issue lands (returns a usage error).
+//! `ebullio estimate`: boiling points, critical constants and a vapor-pressure curve from structure.
 
-use super::Outcome;
+use super::common::{Format, OutputArgs};
+use super::{InputError, Outcome};
+use anyhow::Context;
+use ebullio::estimate::anchor::{anchor, Anchored, MeasuredPoint};
+use ebullio::estimate::{
+    calibration, estimate_groups, estimate_smiles, group, parse_groups, Estimate, EstimateError,
+};
+use ebullio::units::{parse_pressure, parse_temperature, PressureUnit};
+use ebullio::vapor::Curve;
+use rayon::prelude::*;
+use std::io::IsTerminal;
+use std::path::PathBuf;
 
-/// (not built yet)
+/// Estimate normal boiling points (Joback, Stein–Brown), critical constants,
+/// ΔHvap and a Lee–Kesler vapor-pressure curve from structure (SMILES).
+///
+/// Estimates are not measurements. Each boiling point carries a 90 %
+/// prediction interval calibrated on the bundled dev set.
+///
+/// Example: ebullio estimate --smiles "CCOC(C)=O" --at "20 mbar"
 #[derive(Debug, clap::Args)]
-pub struct Args {}
+pub struct Args {
+    /// A structure as SMILES (repeatable).
+    #[arg(long, value_name = "SMILES")]
+    pub smiles: Vec<String>,
+    /// A CSV table of structures (one estimate per row; a `compound` or `name` column is carried through).
+    #[arg(long, value_name = "FILE")]
+    pub input: Option<PathBuf>,
+    /// Column of --input that holds the SMILES.
+    #[arg(long, value_name = "NAME", default_value = "smiles")]
+    pub smiles_column: String,
+    /// Joback groups given by hand, "ch3=2,ch2_chain=3" (ids as in the group table).
+    #[arg(long, value_name = "ID=N,...")]
+    pub groups: Option<String>,
+    /// Also give the boiling point at this pressure, e.g. "20 mbar" (repeatable).
+    #[arg(long, value_name = "PRESSURE")]
+    pub at: Vec<String>,
+    /// A measured boiling point, "95 degC at 0.5 mmHg", to anchor the curve (once or twice).
+    #[arg(long, value_name = "T at P")]
+    pub measured: Vec<String>,
+    #[command(flatten)]
+    pub out: OutputArgs,
+}
 
-pub fn run(_args: Args) -> anyhow::Result<Outcome> {
-    anyhow::bail!("'estimate' is not built yet")
+struct Job {
+    compound: Option<String>,
+    smiles: Option<String>,
+    /// The row could not be read (file, line, reason).
+    read_error: Option<String>,
+}
+
+#[derive(serde::Serialize)]
+struct AtPressure {
+    p_pa: f64,
+    t_k: Option<f64>,
+    pi90_low_k: Option<f64>,
+    pi90_high_k: Option<f64>,
+    extrapolated: bool,
+}
+
+#[derive(serde::Serialize)]
+struct Row {
+    compound: Option<String>,
+    #[serde(flatten)]
+    estimate: Option<Estimate>,
+    smiles_given: Option<String>,
+    at: Vec<AtPressure>,
+    anchored: Option<Anchored>,
+    cautions: Vec<&'static str>,
+    error: String,
+}
+
+fn parse_measured(s: &str) -> Result<MeasuredPoint, InputError> {
+    let (t, p) = s.split_once(" at ").ok_or_else(|| {
+        InputError(format!(
+            "--measured '{s}': expected \"TEMPERATURE at PRESSURE\", e.g. \"95 degC at 0.5 mmHg\""
+        ))
+    })?;
+    let t = parse_temperature(t).map_err(|e| InputError(format!("--measured '{s}': {e}")))?;
+    let p = parse_pressure(p).map_err(|e| InputError(format!("--measured '{s}': {e}")))?;
+    Ok(MeasuredPoint {
+        t_k: t.kelvin(),
+        p_pa: p.pa(),
+    })
+}
+
+fn read_jobs(args: &Args) -> anyhow::Result<Vec<Job>> {
+    let mut jobs: Vec<Job> = args
+        .smiles
+        .iter()
+        .map(|s| Job {
+            compound: None,
+            smiles: Some(s.clone()),
+            read_error: None,
+        })
+        .collect();
+    if let Some(path) = &args.input {
+        let mut rdr = csv::ReaderBuilder::new()
+            .flexible(true)
+            .from_path(path)
+            .with_context(|| format!("reading {}", path.display()))?;
+        let headers = rdr
+            .headers()
+            .with_context(|| format!("reading the header line of {}", path.display()))?
+            .clone();
+        let find = |name: &str| {
+            headers
+                .iter()
+                .position(|h| h.trim().eq_ignore_ascii_case(name))
+        };
+        let col = find(&args.smiles_column).ok_or_else(|| {
+            InputError(format!(
+                "{}: line 1: no column '{}' (columns: {}); choose one with --smiles-column",
+                path.display(),
+                args.smiles_column,
+                headers.iter().collect::<Vec<_>>().join(", ")
+            ))
+        })?;
+        let name_col = find("compound").or_else(|| find("name"));
+        for (n, rec) in rdr.records().enumerate() {
+            match rec {
+                Ok(r) => jobs.push(Job {
+                    compound: name_col.and_then(|c| r.get(c)).map(str::to_string),
+                    smiles: Some(r.get(col).unwrap_or("").to_string()),
+                    read_error: None,
+                }),
+                Err(e) => jobs.push(Job {
+                    compound: None,
+                    smiles: None,
+                    read_error: Some(format!("{}: line {}: {e}", path.display(), n + 2)),
+                }),
+            }
+        }
+    }
+    Ok(jobs)
+}
+
+fn at_pressures(curve: Option<&dyn Curve>, ps: &[f64]) -> Vec<AtPressure> {
+    ps.iter()
+        .map(|&p| {
+            let t = curve.and_then(|c| c.t_at(p));
+            let u = curve.and_then(|c| c.t_uncertainty_k(p));
+            let extrapolated = match (curve.and_then(|c| c.valid_range_k()), t) {
+                (Some((lo, hi)), Some(t)) => t < lo || t > hi,
+                _ => true,
+            };
+            AtPressure {
+                p_pa: p,
+                t_k: t,
+                pi90_low_k: t.zip(u).map(|(t, u)| t - 1.645 * u),
+                pi90_high_k: t.zip(u).map(|(t, u)| t + 1.645 * u),
+                extrapolated,
+            }
+        })
+        .collect()
+}
+
+fn run_one(
+    est: Result<Estimate, EstimateError>,
+    compound: Option<String>,
+    given: Option<String>,
+    ps: &[f64],
+    measured: &[MeasuredPoint],
+) -> Row {
+    let mut row = Row {
+        compound,
+        estimate: None,
+        smiles_given: given,
+        at: Vec::new(),
+        anchored: None,
+        cautions: Estimate::cautions().to_vec(),
+        error: String::new(),
+    };
+    match est {
+        Err(e) => row.error = e.to_string(),
+        Ok(e) => {
+            let pure = e.curve();
+            if !measured.is_empty() {
+                match pure.as_ref() {
+                    None => {
+                        row.error =
+                            "no critical constants for this structure, so no curve to anchor".into()
+                    }
+                    Some(c) => match anchor(c, measured) {
+                        Ok(a) => row.anchored = Some(a),
+                        Err(err) => row.error = err.to_string(),
+                    },
+                }
+            }
+            let curve: Option<&dyn Curve> = match (&row.anchored, &pure) {
+                (Some(a), _) => Some(&a.curve),
+                (None, Some(c)) => Some(c),
+                _ => None,
+            };
+            row.at = at_pressures(curve, ps);
+            row.estimate = Some(e);
+        }
+    }
+    row
+}
+
+fn mbar(p_pa: f64) -> String {
+    let v = PressureUnit::MBar.from_pa(p_pa);
+    let t = format!("{v:.4}");
+    let t = t.trim_end_matches('0').trim_end_matches('.');
+    format!("{t} mbar")
+}
+
+fn opt(v: Option<f64>, digits: usize) -> String {
+    v.map_or(String::new(), |x| format!("{x:.digits$}"))
+}
+
+fn groups_text(e: &Estimate) -> String {
+    e.groups
+        .iter()
+        .map(|(k, v)| format!("{k}={v}"))
+        .collect::<Vec<_>>()
+        .join(";")
+}
+
+fn csv_text(rows: &[Row], ps: &[f64]) -> anyhow::Result<String> {
+    let mut w = csv::Writer::from_writer(Vec::new());
+    let mut head: Vec<String> = [
+        "compound",
+        "smiles",
+        "formula",
+        "tb_k",
+        "tb_pi90_low_k",
+        "tb_pi90_high_k",
+        "tb_typical_error_k",
+        "tb_joback_k",
+        "tb_stein_brown_k",
+        "tb_variant",
+        "tm_k",
+        "tc_k",
+        "pc_bar",
+        "vc_cm3_mol",
+        "hf_kj_mol",
+        "gf_kj_mol",
+        "hvap_tb_kj_mol",
+        "hfus_kj_mol",
+        "omega",
+        "groups",
+    ]
+    .iter()
+    .map(|s| s.to_string())
+    .collect();
+    for p in ps {
+        head.push(format!("t_k_at_{}_pa", p));
+    }
+    head.push("anchored_tb_k".into());
+    head.push("error".into());
+    w.write_record(&head)?;
+    for r in rows {
+        let mut rec: Vec<String> = vec![r.compound.clone().unwrap_or_default()];
+        match &r.estimate {
+            Some(e) => {
+                rec.push(e.smiles.clone().unwrap_or_default());
+                rec.push(e.formula.clone().unwrap_or_default());
+                for v in [
+                    Some(e.tb_k),
+                    Some(e.tb_pi90_low_k),
+                    Some(e.tb_pi90_high_k),
+                    Some(e.tb_typical_error_k),
+                    Some(e.tb_joback_k),
+                    Some(e.tb_stein_brown_k),
+                ] {
+                    rec.push(opt(v, 2));
+                }
+                rec.push(e.tb_variant.name().into());
+                rec.push(opt(e.tm_k, 2));
+                rec.push(opt(e.tc_k, 2));
+                rec.push(opt(e.pc_bar, 3));
+                rec.push(opt(e.vc_cm3_mol, 1));
+                rec.push(opt(e.hf_kj_mol, 2));
+                rec.push(opt(e.gf_kj_mol, 2));
+                rec.push(opt(e.hvap_tb_kj_mol, 3));
+                rec.push(opt(e.hfus_kj_mol, 3));
+                rec.push(opt(e.omega, 4));
+                rec.push(groups_text(e));
+            }
+            None => {
+                rec.push(r.smiles_given.clone().unwrap_or_default());
+                rec.extend(std::iter::repeat_n(String::new(), 18));
+            }
+        }
+        for k in 0..ps.len() {
+            rec.push(opt(r.at.get(k).and_then(|a| a.t_k), 2));
+        }
+        rec.push(opt(r.anchored.as_ref().map(|a| a.tb_k), 2));
+        rec.push(r.error.clone());
+        w.write_record(&rec)?;
+    }
+    Ok(String::from_utf8(w.into_inner()?)?)
+}
+
+fn table_text(rows: &[Row]) -> String {
+    let cal = calibration();
+    let mut s = String::new();
+    for r in rows {
+        let label = r.compound.clone().unwrap_or_default();
+        let Some(e) = &r.estimate else {
+            s.push_str(&format!(
+                "{label} {}\n  error: {}\n\n",
+                r.smiles_given.clone().unwrap_or_default(),
+                r.error
+            ));
+            continue;
+        };
+        s.push_str(&format!(
+            "{label}{}{}  {}\n",
+            if label.is_empty() { "" } else { "  " },
+            e.smiles
+                .clone()
+                .unwrap_or_else(|| "(groups given by hand)".into()),
+            e.formula.clone().unwrap_or_default()
+        ));
+        s.push_str(&format!(
+            "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}; Joback {:.1} K]\n",
+            e.tb_k,
+            e.tb_k - 273.15,
+            e.tb_pi90_low_k,
+            e.tb_pi90_high_k,
+            e.tb_variant.name(),
+            e.tb_joback_k
+        ));
+        if !e.comfort.reasons.is_empty() {
+            s.push_str(&format!(
+                "         interval widened: {}\n",
+                e.comfort.reasons.join(", ")
+            ));
+        }
+        s.push_str(&format!(
+            "  Tc {} K   pc {} bar   Vc {} cm³/mol   ω {}   Tm {} K\n",
+            opt(e.tc_k, 1),
+            opt(e.pc_bar, 2),
+            opt(e.vc_cm3_mol, 1),
+            opt(e.omega, 3),
+            opt(e.tm_k, 1)
+        ));
+        s.push_str(&format!(
+            "  ΔHvap(Tb) {} kJ/mol   ΔHfus {} kJ/mol   ΔHf° {} kJ/mol   ΔGf° {} kJ/mol   Cp(298 K) {} J/(mol·K)\n",
+            opt(e.hvap_tb_kj_mol, 2),
+            opt(e.hfus_kj_mol, 2),
+            opt(e.hf_kj_mol, 2),
+            opt(e.gf_kj_mol, 2),
+            opt(e.cp.map(|c| c.at(298.15)), 1)
+        ));
+        if let Some(a) = &r.anchored {
+            for d in &a.deviations {
+                s.push_str(&format!(
+                    "  measured {:.2} K at {}: pure estimate gives {} K ({} K off)\n",
+                    d.measured.t_k,
+                    mbar(d.measured.p_pa),
+                    opt(d.estimate_t_k, 2),
+                    opt(d.deviation_k, 2)
+                ));
+            }
+            s.push_str(&format!(
+                "  anchored curve: Tb {:.1} K ({:+.1} K), Tc {:.1} K, ω {:.3}\n",
+                a.tb_k, a.tb_shift_k, a.curve.tc_k, a.curve.omega
+            ));
+        }
+        for a in &r.at {
+            s.push_str(&format!(
+                "  at {}: {} K{}{}\n",
+                mbar(a.p_pa),
+                opt(a.t_k, 1),
+                match (a.pi90_low_k, a.pi90_high_k) {
+                    (Some(l), Some(h)) if r.anchored.is_none() =>
+                        format!(", 90 % interval {l:.1}–{h:.1} K"),
+                    _ => String::new(),
+                },
+                if a.extrapolated {
+                    " (outside the curve's range)"
+                } else {
+                    ""
+                }
+            ));
+        }
+        s.push_str("  groups:");
+        for (id, n) in &e.groups {
+            let name = group(id).map_or("", |g| g.name.as_str());
+            s.push_str(&format!("  {id} ×{n} ({name})"));
+        }
+        s.push('\n');
+        if !r.error.is_empty() {
+            s.push_str(&format!("  error: {}\n", r.error));
+        }
+        s.push('\n');
+    }
+    s.push_str(&format!(
+        "Dev-set calibration: {} of {} compounds, MAE {:.1} K ({}), Joback {:.1} K; {:.0} % inside their 90 % interval ({:.0} % leave-one-out).\n",
+        cal.n_estimated,
+        cal.n_total,
+        cal.mae_recommended_k,
+        cal.variant.name(),
+        cal.mae_joback_k,
+        100.0 * cal.coverage_in_sample,
+        100.0 * cal.coverage_leave_one_out
+    ));
+    for c in Estimate::cautions() {
+        s.push_str(c);
+        s.push('\n');
+    }
+    s
+}
+
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    let ps: Vec<f64> = args
+        .at
+        .iter()
+        .map(|s| {
+            parse_pressure(s)
+                .map(|p| p.pa())
+                .map_err(|e| InputError(format!("--at '{s}': {e}")))
+        })
+        .collect::<Result<_, _>>()?;
+    let measured: Vec<MeasuredPoint> = args
+        .measured
+        .iter()
+        .map(|s| parse_measured(s))
+        .collect::<Result<_, _>>()?;
+    if measured.len() > 2 {
+        return Err(InputError("--measured takes one or two points".into()).into());
+    }
+    let mut rows: Vec<Row> = Vec::new();
+    if let Some(g) = &args.groups {
+        let g = parse_groups(g).map_err(|e| InputError(format!("--groups: {e}")))?;
+        rows.push(run_one(estimate_groups(&g), None, None, &ps, &measured));
+    }
+    let jobs = read_jobs(&args)?;
+    if jobs.is_empty() && rows.is_empty() {
+        return Err(InputError("give --smiles, --input FILE or --groups".into()).into());
+    }
+    let bar = (jobs.len() > 1 && std::io::stderr().is_terminal()).then(|| {
+        let b = indicatif::ProgressBar::new(jobs.len() as u64);
+        b.set_style(
+            indicatif::ProgressStyle::with_template("{bar:40} {pos}/{len} structures {eta}")
+                .unwrap_or_else(|_| indicatif::ProgressStyle::default_bar()),
+        );
+        b
+    });
+    super::common::batch_started(jobs.len());
+    let done: Vec<Row> = jobs
+        .into_par_iter()
+        .map(|j| {
+            let mut r = match &j.smiles {
+                Some(s) => run_one(
+                    estimate_smiles(s),
+                    j.compound,
+                    j.smiles.clone(),
+                    &ps,
+                    &measured,
+                ),
+                None => run_one(
+                    Err(EstimateError::NoGroups),
+                    j.compound,
+                    None,
+                    &ps,
+                    &measured,
+                ),
+            };
+            if let Some(e) = j.read_error {
+                r.error = e;
+            }
+            if let Some(b) = &bar {
+                b.inc(1);
+            }
+            super::common::batch_step();
+            r
+        })
+        .collect();
+    if let Some(b) = bar {
+        b.finish_and_clear();
+    }
+    rows.extend(done);
+    // A single --smiles that cannot be read is a usage error with a caret line.
+    if rows.len() == 1 && rows[0].estimate.is_none() && args.input.is_none() {
+        if let Some(s) = &rows[0].smiles_given {
+            if let Err(EstimateError::Smiles(e)) = estimate_smiles(s) {
+                return Err(InputError(format!("{e}\n{}", e.caret())).into());
+            }
+        }
+        return Err(InputError(rows[0].error.clone()).into());
+    }
+    let inputs: Vec<&std::path::Path> = args.input.iter().map(|p| p.as_path()).collect();
+    let text = match args.out.format() {
+        Format::Json => {
+            if rows.len() == 1 {
+                serde_json::to_string_pretty(&rows[0])? + "\n"
+            } else {
+                serde_json::to_string_pretty(&rows)? + "\n"
+            }
+        }
+        Format::Csv => csv_text(&rows, &ps)?,
+        Format::Table => table_text(&rows),
+    };
+    args.out.emit(&text, &inputs)?;
+    Ok(Outcome::Success)
 }

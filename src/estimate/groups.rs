@@ -1,0 +1,385 @@
+//! The 41 Joback groups: the embedded table and the assignment of atoms to groups.
+//!
+//! Every heavy atom goes to exactly one group. Multi-atom groups are taken
+//! first (nitro, nitrile, carboxylic acid, ester, aldehyde, ketone), then
+//! single atoms by element, hydrogens, bond types and ring membership.
+//! Aromatic atoms count as double-bonded ring atoms (Joback does not separate
+//! aromatic from other rings); an OH on an aromatic carbon is a phenol OH.
+//!
+//! Reference: K. G. Joback, R. C. Reid, Chem. Eng. Commun. 57 (1987) 233–243,
+//! group table as compiled in `reference-data/joback-groups.csv` (see
+//! `reference-data/JOBACK.md` for what is confirmed and what is from memory).
+
+use super::EstimateError;
+use crate::molecule::{BondOrder, Element, Molecule};
+use std::collections::BTreeMap;
+use std::sync::OnceLock;
+
+/// Group id (from the table) → number of occurrences.
+pub type GroupCounts = BTreeMap<String, u32>;
+
+/// One row of the Joback table: contributions, `None` where none is published.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Group {
+    /// Short id used in `--groups` and output (`ch3`, `ch2_ring`, …).
+    pub id: String,
+    /// Written formula as published (`-CH3`, `>C=O (ring)`).
+    pub name: String,
+    /// Counted only for ring atoms.
+    pub ring: bool,
+    /// ΔTc (dimensionless).
+    pub tc: Option<f64>,
+    /// ΔPc (bar^-1/2).
+    pub pc: Option<f64>,
+    /// ΔVc (cm³/mol).
+    pub vc: Option<f64>,
+    /// ΔTb (K).
+    pub tb: Option<f64>,
+    /// ΔTm (K).
+    pub tm: Option<f64>,
+    /// ΔHf° (kJ/mol).
+    pub hform: Option<f64>,
+    /// ΔGf° (kJ/mol).
+    pub gform: Option<f64>,
+    /// Cp terms a, b, c, d.
+    pub cp: [Option<f64>; 4],
+    /// ΔHfus (kJ/mol).
+    pub hfus: Option<f64>,
+    /// ΔHvap (kJ/mol).
+    pub hvap: Option<f64>,
+    /// Atoms in the group: (heavy atoms, hydrogens).
+    pub atoms: (u32, u32),
+}
+
+const TABLE_CSV: &str = include_str!("../../reference-data/joback-groups.csv");
+
+/// Heavy atoms and hydrogens of each group, from its written formula.
+fn group_atoms(id: &str) -> (u32, u32) {
+    match id {
+        "ch3" => (1, 3),
+        "ch2_chain" | "eq_ch2" | "ch2_ring" | "nh2" => (1, 2),
+        "ch_chain" | "eq_ch_chain" | "tr_ch" | "ch_ring" | "eq_ch_ring" | "oh_alcohol"
+        | "oh_phenol" | "nh_chain" | "nh_ring" | "eq_nh" | "sh" => (1, 1),
+        "co_chain" | "co_ring" | "cn" => (2, 0),
+        "cho" => (2, 1),
+        "cooh" => (3, 1),
+        "coo" | "no2" => (3, 0),
+        _ => (1, 0),
+    }
+}
+
+/// The embedded Joback table, parsed once.
+pub fn table() -> &'static [Group] {
+    static T: OnceLock<Vec<Group>> = OnceLock::new();
+    T.get_or_init(|| {
+        let mut rows = Vec::new();
+        for line in TABLE_CSV.lines().skip(1) {
+            let f: Vec<&str> = line.split(',').collect();
+            if f.len() < 16 {
+                continue;
+            }
+            let num = |i: usize| f.get(i).and_then(|s| s.trim().parse::<f64>().ok());
+            rows.push(Group {
+                id: f[0].to_string(),
+                name: f[1].to_string(),
+                ring: f[2] == "true",
+                tc: num(3),
+                pc: num(4),
+                vc: num(5),
+                tb: num(6),
+                tm: num(7),
+                hform: num(8),
+                gform: num(9),
+                cp: [num(10), num(11), num(12), num(13)],
+                hfus: num(14),
+                hvap: num(15),
+                atoms: group_atoms(f[0]),
+            });
+        }
+        rows
+    })
+}
+
+/// The table row with this id.
+pub fn group(id: &str) -> Option<&'static Group> {
+    table().iter().find(|g| g.id == id)
+}
+
+/// Parse `"ch3=2,ch2_chain=3"` into group counts (ids checked against the table).
+///
+/// ```
+/// let g = ebullio::estimate::parse_groups("ch3=2, co_chain=1").unwrap();
+/// assert_eq!(g["ch3"], 2);
+/// assert!(ebullio::estimate::parse_groups("ch9=1").is_err());
+/// ```
+pub fn parse_groups(s: &str) -> Result<GroupCounts, EstimateError> {
+    let mut out = GroupCounts::new();
+    for part in s.split(',').map(str::trim).filter(|p| !p.is_empty()) {
+        let (id, n) = part.split_once('=').unwrap_or((part, "1"));
+        let id = id.trim().to_ascii_lowercase();
+        if group(&id).is_none() {
+            return Err(EstimateError::UnknownGroup { id });
+        }
+        let n: u32 = n.trim().parse().map_err(|_| EstimateError::BadGroupCount {
+            text: part.to_string(),
+        })?;
+        if n > 0 {
+            *out.entry(id).or_insert(0) += n;
+        }
+    }
+    if out.is_empty() {
+        return Err(EstimateError::NoGroups);
+    }
+    Ok(out)
+}
+
+fn no_group(m: &Molecule, i: usize, reason: impl Into<String>) -> EstimateError {
+    let a = &m.atoms()[i];
+    EstimateError::NoGroup {
+        atom: a.element.symbol().to_string(),
+        position: a.position,
+        reason: reason.into(),
+    }
+}
+
+/// Assign every heavy atom of `m` to one Joback group.
+///
+/// ```
+/// use ebullio::molecule::parse_smiles;
+/// let g = ebullio::estimate::assign_groups(&parse_smiles("CC(C)=O").unwrap()).unwrap();
+/// assert_eq!(g["ch3"], 2);
+/// assert_eq!(g["co_chain"], 1);
+/// ```
+pub fn assign_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
+    let atoms = m.atoms();
+    let n = atoms.len();
+    let mut used = vec![false; n];
+    let mut out = GroupCounts::new();
+    let mut add = |id: &str| *out.entry(id.to_string()).or_insert(0) += 1;
+    let el = |i: usize| atoms[i].element;
+    // Terminal oxygen double-bonded (or nitro O-) to atom i.
+    let terminal_o = |i: usize, order: BondOrder| -> Vec<usize> {
+        m.neighbours(i)
+            .iter()
+            .filter(|&&(j, k)| {
+                el(j) == Element::O
+                    && m.bonds()[k].order == order
+                    && m.heavy_degree(j) == 1
+                    && m.total_hydrogens(j) == 0
+            })
+            .map(|&(j, _)| j)
+            .collect()
+    };
+    // Charged atoms other than the nitro pattern are refused below.
+    // 1. Nitro: N with two terminal O (N+ with =O and O-, or N(=O)=O).
+    for i in 0..n {
+        if el(i) != Element::N || used[i] {
+            continue;
+        }
+        let dbl = terminal_o(i, BondOrder::Double);
+        let sgl: Vec<usize> = terminal_o(i, BondOrder::Single)
+            .into_iter()
+            .filter(|&j| atoms[j].charge == -1)
+            .collect();
+        let pair = if atoms[i].charge == 1 && dbl.len() == 1 && sgl.len() == 1 {
+            Some((dbl[0], sgl[0]))
+        } else if atoms[i].charge == 0 && dbl.len() == 2 {
+            Some((dbl[0], dbl[1]))
+        } else {
+            None
+        };
+        if let Some((o1, o2)) = pair {
+            if m.heavy_degree(i) != 3 {
+                continue;
+            }
+            used[i] = true;
+            used[o1] = true;
+            used[o2] = true;
+            add("no2");
+        }
+    }
+    // 2. Nitrile: C#N with a terminal N.
+    for i in 0..n {
+        if el(i) != Element::C || used[i] {
+            continue;
+        }
+        for &(j, k) in m.neighbours(i) {
+            if el(j) == Element::N
+                && !used[j]
+                && m.bonds()[k].order == BondOrder::Triple
+                && m.heavy_degree(j) == 1
+                && atoms[j].charge == 0
+                && m.heavy_degree(i) == 2
+            {
+                used[i] = true;
+                used[j] = true;
+                add("cn");
+                break;
+            }
+        }
+    }
+    // 3. Carbonyl groups: acid, ester, aldehyde, ketone.
+    for i in 0..n {
+        if el(i) != Element::C || used[i] || atoms[i].charge != 0 {
+            continue;
+        }
+        let Some(&o) = terminal_o(i, BondOrder::Double).iter().find(|&&o| !used[o]) else {
+            continue;
+        };
+        if atoms[o].charge != 0 {
+            continue;
+        }
+        let h = m.total_hydrogens(i);
+        // Single-bonded oxygens on the carbonyl carbon.
+        let singles: Vec<usize> = m
+            .neighbours(i)
+            .iter()
+            .filter(|&&(j, k)| {
+                el(j) == Element::O
+                    && !used[j]
+                    && m.bonds()[k].order == BondOrder::Single
+                    && atoms[j].charge == 0
+            })
+            .map(|&(j, _)| j)
+            .collect();
+        if let Some(&oh) = singles
+            .iter()
+            .find(|&&j| m.total_hydrogens(j) == 1 && m.heavy_degree(j) == 1)
+        {
+            used[i] = true;
+            used[o] = true;
+            used[oh] = true;
+            add("cooh");
+            continue;
+        }
+        if let Some(&oe) = singles.iter().find(|&&j| m.heavy_degree(j) == 2) {
+            used[i] = true;
+            used[o] = true;
+            used[oe] = true;
+            add("coo");
+            continue;
+        }
+        if h == 1 {
+            used[i] = true;
+            used[o] = true;
+            add("cho");
+            continue;
+        }
+        if h == 0 && m.heavy_degree(i) == 3 {
+            used[i] = true;
+            used[o] = true;
+            add(if atoms[i].in_ring {
+                "co_ring"
+            } else {
+                "co_chain"
+            });
+            continue;
+        }
+    }
+    // 4. Single atoms.
+    for i in 0..n {
+        if used[i] || el(i) == Element::H {
+            continue;
+        }
+        let a = &atoms[i];
+        if a.charge != 0 {
+            return Err(no_group(
+                m,
+                i,
+                format!(
+                    "charged {} (charge {:+}); Joback covers charges only in nitro groups",
+                    a.element.name(),
+                    a.charge
+                ),
+            ));
+        }
+        let h = m.total_hydrogens(i);
+        let deg = m.heavy_degree(i);
+        let ring = a.in_ring;
+        let (mut double, mut triple) = (0, 0);
+        let mut aromatic_bonds = 0;
+        for &(j, k) in m.neighbours(i) {
+            if el(j) == Element::H {
+                continue;
+            }
+            match m.bonds()[k].order {
+                BondOrder::Single => {}
+                BondOrder::Double => double += 1,
+                BondOrder::Triple => triple += 1,
+                BondOrder::Quadruple => triple += 2,
+                BondOrder::Aromatic => aromatic_bonds += 1,
+            }
+        }
+        // An aromatic atom counts as carrying one ring double bond.
+        if a.aromatic && aromatic_bonds > 0 && double == 0 && el(i) == Element::C {
+            double = 1;
+        }
+        let id: &str = match a.element {
+            e if e == Element::C => match (double, triple, h) {
+                (0, 0, 4) => return Err(no_group(m, i, "methane (CH4) has no Joback group")),
+                (0, 0, 3) => "ch3",
+                (0, 0, 2) => if ring { "ch2_ring" } else { "ch2_chain" },
+                (0, 0, 1) => if ring { "ch_ring" } else { "ch_chain" },
+                (0, 0, 0) => if ring { "c_ring" } else { "c_chain" },
+                (1, 0, 2) => "eq_ch2",
+                (1, 0, 1) => if ring { "eq_ch_ring" } else { "eq_ch_chain" },
+                (1, 0, 0) => if ring { "eq_c_ring" } else { "eq_c_chain" },
+                (2, 0, 0) => "eq_c_eq",
+                (0, 1, 1) => "tr_ch",
+                (0, 1, 0) => "tr_c",
+                _ => return Err(no_group(m, i, format!("carbon with {double} double, {triple} triple bonds and {h} H fits no group"))),
+            },
+            e if e == Element::O => {
+                let arom_nb = m.neighbours(i).iter().any(|&(j, _)| atoms[j].aromatic);
+                match (double, h, deg) {
+                    (0, 1, 1) => if arom_nb { "oh_phenol" } else { "oh_alcohol" },
+                    (0, 0, 2) => if ring { "o_ring" } else { "o_chain" },
+                    (1, 0, 1) => "eq_o",
+                    (0, 2, 0) => return Err(no_group(m, i, "water has no Joback group")),
+                    _ => return Err(no_group(m, i, "oxygen bonded in a way the table does not cover")),
+                }
+            }
+            e if e == Element::N => {
+                let arom = a.aromatic;
+                match (double, h, deg, arom) {
+                    (0, 2, 1, false) => "nh2",
+                    (0, 1, 2, false) => if ring { "nh_ring" } else { "nh_chain" },
+                    (_, 1, 2, true) => "nh_ring",
+                    (0, 0, 3, false) if !ring => "n_chain",
+                    (0, 0, 3, _) => return Err(no_group(m, i, "ring tertiary nitrogen >N-: the table has >N- only outside rings")),
+                    (1, 0, 2, false) => if ring { "eq_n_ring" } else { "eq_n_chain" },
+                    (0, 0, 2, true) => "eq_n_ring",
+                    (1, 1, 1, false) => "eq_nh",
+                    _ => return Err(no_group(m, i, "nitrogen bonded in a way the table does not cover")),
+                }
+            }
+            e if e == Element::S => match (double, h, deg) {
+                (0, 1, 1) => "sh",
+                (0, 0, 2) => if ring { "s_ring" } else { "s_chain" },
+                _ => return Err(no_group(m, i, "sulfur other than -SH or -S- (e.g. sulfoxide, sulfone) has no Joback group")),
+            },
+            e if e == Element::F || e == Element::CL || e == Element::BR || e == Element::I => {
+                if deg == 1 && double == 0 && triple == 0 {
+                    match a.element.number() {
+                        9 => "f",
+                        17 => "cl",
+                        35 => "br",
+                        _ => "i",
+                    }
+                } else {
+                    return Err(no_group(m, i, "halogen must have exactly one single bond"));
+                }
+            }
+            e => {
+                return Err(no_group(
+                    m,
+                    i,
+                    format!("{} has no Joback group (the table covers C, H, O, N, S and halogens)", e.name()),
+                ))
+            }
+        };
+        used[i] = true;
+        add(id);
+    }
+    Ok(out)
+}

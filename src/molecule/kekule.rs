@@ -1,0 +1,169 @@
+//! Kekulé form of aromatic systems, then implicit hydrogens by normal valence.
+//!
+//! Each aromatic atom that needs a π bond (an aromatic carbon, a pyridine-type
+//! nitrogen, a cationic heteroatom) must get exactly one double bond to
+//! another such atom: a perfect matching, found by forced moves and bounded
+//! backtracking. Implicit hydrogens then follow OpenSMILES §3.1.1: the
+//! smallest normal valence not below the sum of (Kekulé) bond orders.
+//!
+//! Reference: OpenSMILES specification, version 1.0, §3.1.1 (implicit
+//! hydrogens) and §3.5 (aromaticity).
+
+use super::error::SmilesErrorKind as K;
+use super::{BondOrder, Molecule};
+
+/// Largest number of branch points tried before giving up on a Kekulé form.
+const BRANCH_BUDGET: usize = 20_000;
+
+/// Whether aromatic atom `i` needs one double bond inside its aromatic system.
+fn needs_pi(m: &Molecule, i: usize) -> bool {
+    let a = &m.atoms[i];
+    let mut sum = 0u32;
+    for &(_, k) in &m.adj[i] {
+        let b = &m.bonds[k];
+        match b.order {
+            BondOrder::Aromatic => sum += 1,
+            o => {
+                if o != BondOrder::Single {
+                    // An exocyclic double bond (pyridone C=O) already gives the π bond.
+                    return false;
+                }
+                sum += 1
+            }
+        }
+    }
+    if !a.bracket {
+        let lowest = a.element.organic_valences().first().copied().unwrap_or(0) as u32;
+        return sum < lowest;
+    }
+    let target: i32 = match (a.element.number(), a.charge) {
+        (6, 0) => 4,
+        (6, _) => 3,
+        (7 | 15 | 33, 0) => 3,
+        (7 | 15 | 33, 1) => 4,
+        (7 | 15 | 33, -1) => 2,
+        (8 | 16 | 34 | 52, 0) => 2,
+        (8 | 16 | 34 | 52, 1) => 3,
+        (5, 0) => 3,
+        (5, -1) => 4,
+        _ => return false,
+    };
+    (sum as i32 + a.hydrogens as i32) < target
+}
+
+/// Give aromatic bonds Kekulé orders. Errors carry the 1-based position of an
+/// atom that could not get its double bond.
+pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
+    let n = m.atoms.len();
+    if !m.atoms.iter().any(|a| a.aromatic) {
+        return Ok(());
+    }
+    let need: Vec<bool> = (0..n)
+        .map(|i| m.atoms[i].aromatic && needs_pi(m, i))
+        .collect();
+    // Candidate edges: aromatic bonds between two atoms that both need a π bond.
+    let cand = |m: &Molecule, k: usize| {
+        let b = &m.bonds[k];
+        b.order == BondOrder::Aromatic && need[b.a] && need[b.b]
+    };
+    let mut partner: Vec<usize> = vec![usize::MAX; n];
+    // Stack of saved states for backtracking: (partner snapshot, atom, next option).
+    let mut stack: Vec<(Vec<usize>, usize, usize)> = Vec::new();
+    let mut branches = 0usize;
+    loop {
+        // Forced moves until none remain; detect dead ends.
+        let mut dead: Option<usize> = None;
+        let mut changed = true;
+        while changed && dead.is_none() {
+            changed = false;
+            for i in 0..n {
+                if !need[i] || partner[i] != usize::MAX {
+                    continue;
+                }
+                let mut options = m.adj[i]
+                    .iter()
+                    .filter(|&&(j, k)| cand(m, k) && partner[j] == usize::MAX);
+                match (options.next(), options.next()) {
+                    (None, _) => {
+                        dead = Some(i);
+                        break;
+                    }
+                    (Some(&(j, _)), None) => {
+                        partner[i] = j;
+                        partner[j] = i;
+                        changed = true;
+                    }
+                    _ => {}
+                }
+            }
+        }
+        if dead.is_none() {
+            match (0..n).find(|&i| need[i] && partner[i] == usize::MAX) {
+                None => break,
+                Some(i) => {
+                    branches += 1;
+                    if branches > BRANCH_BUDGET {
+                        return Err((K::Kekulize, m.atoms[i].position));
+                    }
+                    stack.push((partner.clone(), i, 0));
+                }
+            }
+        }
+        // Take the next option of the innermost branch point (backtracking on dead ends).
+        loop {
+            let Some((snap, i, next)) = stack.last_mut() else {
+                let at = dead.map_or(0, |d| m.atoms[d].position);
+                return Err((K::Kekulize, at));
+            };
+            let opts: Vec<usize> = m.adj[*i]
+                .iter()
+                .filter(|&&(j, k)| cand(m, k) && snap[j] == usize::MAX)
+                .map(|&(j, _)| j)
+                .collect();
+            if let Some(&j) = opts.get(*next) {
+                *next += 1;
+                partner.clone_from(snap);
+                partner[*i] = j;
+                partner[j] = *i;
+                break;
+            }
+            stack.pop();
+        }
+    }
+    for b in &mut m.bonds {
+        if b.order == BondOrder::Aromatic {
+            b.kekule_order = if partner[b.a] == b.b { 2 } else { 1 };
+        }
+    }
+    Ok(())
+}
+
+/// Fill in implicit hydrogens of organic-subset atoms from their Kekulé bond orders.
+pub(super) fn implicit_hydrogens(m: &mut Molecule) -> Result<(), (K, usize)> {
+    for i in 0..m.atoms.len() {
+        if m.atoms[i].bracket {
+            continue;
+        }
+        let valences = m.atoms[i].element.organic_valences();
+        if valences.is_empty() {
+            continue; // the wildcard atom
+        }
+        let sum: u32 = m.adj[i]
+            .iter()
+            .map(|&(_, k)| m.bonds[k].kekule_order as u32)
+            .sum();
+        match valences.iter().find(|&&v| v as u32 >= sum) {
+            Some(&v) => m.atoms[i].hydrogens = (v as u32 - sum) as u8,
+            None => {
+                return Err((
+                    K::Valence {
+                        element: m.atoms[i].element.name(),
+                        bonds: sum,
+                    },
+                    m.atoms[i].position,
+                ))
+            }
+        }
+    }
+    Ok(())
+}

@@ -1,0 +1,333 @@
+//! Molecular structure from SMILES: atoms, bonds, hydrogens, rings, aromaticity.
+//!
+//! [`parse_smiles`] reads a SMILES string following the OpenSMILES
+//! specification: the organic subset (B C N O P S F Cl Br I), bracket atoms
+//! with isotope, hydrogen count, charge and atom class, lower-case aromatic
+//! atoms, ring closures (`1`–`9`, `%nn`), branches, bond symbols `- = # $ :`,
+//! direction marks `/ \` and chirality (read and ignored here) and
+//! dot-separated components. Implicit hydrogens follow the specification's
+//! normal valences; aromatic atoms get theirs after the ring system is given
+//! alternating double bonds (Kekulé form). Ring bonds are found by cycle
+//! detection; a Kekulé ring that satisfies the Hückel rule (4n+2 π electrons)
+//! is marked aromatic, so `C1=CC=CC=C1` and `c1ccccc1` are the same molecule.
+//!
+//! Reference: OpenSMILES specification, version 1.0 (opensmiles.org, 2016).
+//!
+//! ```
+//! use ebullio::molecule::parse_smiles;
+//! let a = parse_smiles("C1=CC=CC=C1O").unwrap();
+//! let b = parse_smiles("Oc1ccccc1").unwrap();
+//! assert_eq!(a.formula(), "C6H6O");
+//! assert_eq!(a.structure_key(), b.structure_key());
+//! assert!(a.atoms().iter().filter(|x| x.aromatic).count() == 6);
+//! ```
+
+mod aromatic;
+mod canon;
+mod element;
+mod error;
+mod kekule;
+mod parse;
+mod rings;
+
+pub use element::Element;
+pub use error::{SmilesError, SmilesErrorKind};
+
+/// Bond order as written (or perceived, for aromatic bonds).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub enum BondOrder {
+    /// Single bond (`-`, or no symbol).
+    Single,
+    /// Double bond (`=`).
+    Double,
+    /// Triple bond (`#`).
+    Triple,
+    /// Quadruple bond (`$`).
+    Quadruple,
+    /// Aromatic bond (`:`, or no symbol between two aromatic atoms in a ring).
+    Aromatic,
+}
+
+impl BondOrder {
+    /// Integer order; aromatic bonds count 1 here (their Kekulé order is on the bond).
+    pub fn integer(self) -> u8 {
+        match self {
+            BondOrder::Single | BondOrder::Aromatic => 1,
+            BondOrder::Double => 2,
+            BondOrder::Triple => 3,
+            BondOrder::Quadruple => 4,
+        }
+    }
+}
+
+/// One atom of a [`Molecule`].
+#[derive(Debug, Clone, PartialEq)]
+pub struct Atom {
+    /// The element.
+    pub element: Element,
+    /// Aromatic (lower-case in the input, or perceived by the Hückel rule).
+    pub aromatic: bool,
+    /// Formal charge.
+    pub charge: i8,
+    /// Isotope mass number, if written.
+    pub isotope: Option<u16>,
+    /// Hydrogens carried by this atom (implicit, or the bracket `H` count);
+    /// hydrogens written as separate `[H]` atoms are not included here.
+    pub hydrogens: u8,
+    /// Written in brackets.
+    pub bracket: bool,
+    /// In at least one ring.
+    pub in_ring: bool,
+    /// 1-based character position of the atom in the input SMILES.
+    pub position: usize,
+}
+
+/// One bond of a [`Molecule`].
+#[derive(Debug, Clone, PartialEq)]
+pub struct Bond {
+    /// First atom index.
+    pub a: usize,
+    /// Second atom index.
+    pub b: usize,
+    /// Order as written or perceived.
+    pub order: BondOrder,
+    /// Order in the Kekulé form (1, 2, 3, 4); equals `order` for non-aromatic bonds.
+    pub kekule_order: u8,
+    /// In at least one ring.
+    pub in_ring: bool,
+}
+
+impl Bond {
+    /// The atom at the other end from `i`.
+    pub fn other(&self, i: usize) -> usize {
+        if self.a == i {
+            self.b
+        } else {
+            self.a
+        }
+    }
+}
+
+/// A molecule (or several dot-separated components) read from SMILES.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Molecule {
+    atoms: Vec<Atom>,
+    bonds: Vec<Bond>,
+    /// For each atom, (neighbour, bond index).
+    adj: Vec<Vec<(usize, usize)>>,
+    components: usize,
+    smiles: String,
+}
+
+/// Largest molecule read (atoms), to keep time and memory bounded on any input.
+pub const MAX_ATOMS: usize = 100_000;
+
+/// Read a SMILES string into a [`Molecule`].
+///
+/// Errors name the problem and the 1-based character position:
+///
+/// ```
+/// use ebullio::molecule::parse_smiles;
+/// assert_eq!(parse_smiles("C1CCCCC").unwrap_err().to_string(), "unclosed ring 1 at position 2");
+/// assert!(parse_smiles("CCO.Cl").unwrap().components() == 2);
+/// ```
+pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
+    let raw = parse::read(s)?;
+    let mut m = Molecule {
+        adj: adjacency(raw.atoms.len(), &raw.bonds),
+        atoms: raw.atoms,
+        bonds: raw.bonds,
+        components: raw.components,
+        smiles: s.trim().to_string(),
+    };
+    rings::mark_ring_bonds(&mut m);
+    // Bonds left aromatic by default between two aromatic atoms but outside any
+    // ring (biphenyl written c1ccccc1c1ccccc1) are single bonds.
+    for b in &mut m.bonds {
+        if b.order == BondOrder::Aromatic && !b.in_ring {
+            b.order = BondOrder::Single;
+            b.kekule_order = 1;
+        }
+    }
+    for (i, a) in m.atoms.iter().enumerate() {
+        if a.aromatic && !a.in_ring {
+            return Err(SmilesError {
+                kind: SmilesErrorKind::AromaticOutsideRing(a.element.symbol().to_lowercase()),
+                position: a.position,
+                input: s.to_string(),
+            });
+        }
+        let _ = i;
+    }
+    kekule::kekulize(&mut m).map_err(|(kind, pos)| SmilesError {
+        kind,
+        position: pos,
+        input: s.to_string(),
+    })?;
+    kekule::implicit_hydrogens(&mut m).map_err(|(kind, pos)| SmilesError {
+        kind,
+        position: pos,
+        input: s.to_string(),
+    })?;
+    aromatic::perceive(&mut m);
+    Ok(m)
+}
+
+fn adjacency(n: usize, bonds: &[Bond]) -> Vec<Vec<(usize, usize)>> {
+    let mut adj = vec![Vec::new(); n];
+    for (k, b) in bonds.iter().enumerate() {
+        adj[b.a].push((b.b, k));
+        adj[b.b].push((b.a, k));
+    }
+    adj
+}
+
+impl Molecule {
+    /// All atoms, hydrogens written as `[H]` atoms included, in input order.
+    pub fn atoms(&self) -> &[Atom] {
+        &self.atoms
+    }
+
+    /// All bonds.
+    pub fn bonds(&self) -> &[Bond] {
+        &self.bonds
+    }
+
+    /// Neighbours of atom `i` as (atom index, bond index).
+    pub fn neighbours(&self, i: usize) -> &[(usize, usize)] {
+        self.adj.get(i).map(Vec::as_slice).unwrap_or(&[])
+    }
+
+    /// Number of dot-separated components (connected pieces).
+    pub fn components(&self) -> usize {
+        self.components
+    }
+
+    /// The SMILES as given (trimmed).
+    pub fn smiles(&self) -> &str {
+        &self.smiles
+    }
+
+    /// Whether atom `i` is a heavy atom (anything but hydrogen).
+    pub fn is_heavy(&self, i: usize) -> bool {
+        self.atoms.get(i).is_some_and(|a| a.element != Element::H)
+    }
+
+    /// Total hydrogens on atom `i`: its own count plus bonded `[H]` atoms.
+    pub fn total_hydrogens(&self, i: usize) -> u32 {
+        let own = self.atoms.get(i).map_or(0, |a| a.hydrogens as u32);
+        own + self
+            .neighbours(i)
+            .iter()
+            .filter(|&&(j, _)| self.atoms[j].element == Element::H)
+            .count() as u32
+    }
+
+    /// Heavy-atom neighbours of atom `i` (its heavy degree).
+    pub fn heavy_degree(&self, i: usize) -> usize {
+        self.neighbours(i)
+            .iter()
+            .filter(|&&(j, _)| self.is_heavy(j))
+            .count()
+    }
+
+    /// Indices of heavy atoms with their total hydrogen counts, in input order.
+    pub fn heavy_atom_hydrogens(&self) -> Vec<(usize, u32)> {
+        (0..self.atoms.len())
+            .filter(|&i| self.is_heavy(i))
+            .map(|i| (i, self.total_hydrogens(i)))
+            .collect()
+    }
+
+    /// Number of atoms of each element, hydrogens included (all forms).
+    pub fn element_counts(&self) -> std::collections::BTreeMap<Element, u32> {
+        let mut m = std::collections::BTreeMap::new();
+        for a in &self.atoms {
+            *m.entry(a.element).or_insert(0) += 1;
+            if a.hydrogens > 0 {
+                *m.entry(Element::H).or_insert(0) += a.hydrogens as u32;
+            }
+        }
+        m
+    }
+
+    /// Total number of atoms, hydrogens included.
+    pub fn atom_count_with_hydrogens(&self) -> u32 {
+        self.element_counts().values().sum()
+    }
+
+    /// Net formal charge.
+    pub fn net_charge(&self) -> i32 {
+        self.atoms.iter().map(|a| a.charge as i32).sum()
+    }
+
+    /// Molar mass in g/mol, if every element has a weight here.
+    pub fn molar_mass(&self) -> Option<f64> {
+        let mut m = 0.0;
+        for (e, n) in self.element_counts() {
+            m += e.atomic_weight()? * n as f64;
+        }
+        Some(m)
+    }
+
+    /// Molecular formula in Hill order (C, H, then alphabetical; alphabetical
+    /// throughout when there is no carbon), with a net charge suffix such as
+    /// `+`, `-2`.
+    ///
+    /// ```
+    /// assert_eq!(ebullio::molecule::parse_smiles("CC(=O)[O-]").unwrap().formula(), "C2H3O2-");
+    /// assert_eq!(ebullio::molecule::parse_smiles("ClCCl").unwrap().formula(), "CH2Cl2");
+    /// ```
+    pub fn formula(&self) -> String {
+        let counts = self.element_counts();
+        let mut parts: Vec<(&str, u32)> = Vec::new();
+        let has_c = counts.contains_key(&Element::C);
+        if has_c {
+            parts.push(("C", counts[&Element::C]));
+            if let Some(&h) = counts.get(&Element::H) {
+                parts.push(("H", h));
+            }
+        }
+        let mut rest: Vec<(&str, u32)> = counts
+            .iter()
+            .filter(|(e, _)| !has_c || (**e != Element::C && **e != Element::H))
+            .map(|(e, n)| (e.symbol(), *n))
+            .collect();
+        rest.sort();
+        parts.extend(rest);
+        let mut s = String::new();
+        for (sym, n) in parts {
+            s.push_str(sym);
+            if n > 1 {
+                s.push_str(&n.to_string());
+            }
+        }
+        let q = self.net_charge();
+        if q != 0 {
+            s.push(if q > 0 { '+' } else { '-' });
+            if q.abs() > 1 {
+                s.push_str(&q.abs().to_string());
+            }
+        }
+        s
+    }
+
+    /// A string identical for every valid spelling of the same structure
+    /// (atom order, ring numbering, Kekulé or aromatic form): a canonical
+    /// SMILES from a Morgan-style refined ranking of the atoms.
+    ///
+    /// ```
+    /// use ebullio::molecule::parse_smiles;
+    /// let k = |s| parse_smiles(s).unwrap().structure_key();
+    /// assert_eq!(k("OCC"), k("CCO"));
+    /// assert_ne!(k("CCO"), k("COC"));
+    /// ```
+    pub fn structure_key(&self) -> String {
+        canon::canonical_smiles(self)
+    }
+
+    /// A valid SMILES for this molecule (the canonical one).
+    pub fn write_smiles(&self) -> String {
+        canon::canonical_smiles(self)
+    }
+}

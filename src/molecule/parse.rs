@@ -1,0 +1,433 @@
+//! The SMILES grammar: atoms, bonds, branches, ring closures, components.
+//!
+//! Reference: OpenSMILES specification, version 1.0, §3 (grammar).
+
+use super::error::{SmilesError, SmilesErrorKind as K};
+use super::{Atom, Bond, BondOrder, Element, MAX_ATOMS};
+
+/// The graph as written, before rings, Kekulé form and implicit hydrogens.
+pub(super) struct Raw {
+    pub atoms: Vec<Atom>,
+    pub bonds: Vec<Bond>,
+    pub components: usize,
+}
+
+/// Bond symbol read before an atom or ring digit.
+#[derive(Clone, Copy, PartialEq, Eq, Debug)]
+enum Sym {
+    Single,
+    Double,
+    Triple,
+    Quadruple,
+    Aromatic,
+    /// `/` or `\`: a single bond with a direction (ignored here).
+    Directional,
+}
+
+impl Sym {
+    fn order(self) -> BondOrder {
+        match self {
+            Sym::Single | Sym::Directional => BondOrder::Single,
+            Sym::Double => BondOrder::Double,
+            Sym::Triple => BondOrder::Triple,
+            Sym::Quadruple => BondOrder::Quadruple,
+            Sym::Aromatic => BondOrder::Aromatic,
+        }
+    }
+}
+
+struct OpenRing {
+    atom: usize,
+    sym: Option<Sym>,
+    byte: usize,
+}
+
+struct Reader<'a> {
+    s: &'a str,
+    b: &'a [u8],
+    i: usize,
+    atoms: Vec<Atom>,
+    bonds: Vec<Bond>,
+    rings: Vec<Option<OpenRing>>,
+}
+
+pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
+    let s = input.trim();
+    let offset = input.len() - input.trim_start().len();
+    let err = |k: K, byte: usize| SmilesError::at(k, input, byte + offset);
+    if s.is_empty() {
+        return Err(err(K::Empty, 0));
+    }
+    let mut r = Reader {
+        s,
+        b: s.as_bytes(),
+        i: 0,
+        atoms: Vec::new(),
+        bonds: Vec::new(),
+        rings: (0..100).map(|_| None).collect(),
+    };
+    let mut components = 0usize;
+    let mut prev: Option<usize> = None;
+    let mut stack: Vec<(Option<usize>, usize)> = Vec::new();
+    let mut pending: Option<(Sym, usize)> = None;
+    // Whether the last thing read can be followed by a bond / ring digit.
+    while r.i < r.b.len() {
+        let c = r.b[r.i];
+        let start = r.i;
+        match c {
+            b'(' => {
+                if prev.is_none() || pending.is_some() {
+                    return Err(err(K::Dangling("branch"), start));
+                }
+                stack.push((prev, start));
+                r.i += 1;
+            }
+            b')' => {
+                if pending.is_some() {
+                    return Err(err(
+                        K::Dangling("bond symbol"),
+                        pending.map_or(start, |p| p.1),
+                    ));
+                }
+                let Some((p, open)) = stack.pop() else {
+                    return Err(err(K::UnbalancedParen, start));
+                };
+                if r.i > 0 && r.b[r.i - 1] == b'(' {
+                    return Err(err(K::Dangling("empty branch"), open));
+                }
+                prev = p;
+                r.i += 1;
+            }
+            b'.' => {
+                if pending.is_some() || prev.is_none() {
+                    return Err(err(K::Dangling("'.'"), start));
+                }
+                if !stack.is_empty() {
+                    return Err(err(K::UnbalancedParen, stack.last().map_or(start, |x| x.1)));
+                }
+                prev = None;
+                r.i += 1;
+            }
+            b'-' | b'=' | b'#' | b'$' | b':' | b'/' | b'\\' => {
+                if pending.is_some() || prev.is_none() {
+                    return Err(err(K::Dangling("bond symbol"), start));
+                }
+                let sym = match c {
+                    b'-' => Sym::Single,
+                    b'=' => Sym::Double,
+                    b'#' => Sym::Triple,
+                    b'$' => Sym::Quadruple,
+                    b':' => Sym::Aromatic,
+                    _ => Sym::Directional,
+                };
+                pending = Some((sym, start));
+                r.i += 1;
+            }
+            b'0'..=b'9' | b'%' => {
+                let Some(p) = prev else {
+                    return Err(err(K::Dangling("ring number"), start));
+                };
+                let n = if c == b'%' {
+                    let d = r.b.get(r.i + 1..r.i + 3);
+                    match d {
+                        Some([x, y]) if x.is_ascii_digit() && y.is_ascii_digit() => {
+                            r.i += 3;
+                            ((x - b'0') * 10 + (y - b'0')) as usize
+                        }
+                        _ => return Err(err(K::UnexpectedChar('%'), start)),
+                    }
+                } else {
+                    r.i += 1;
+                    (c - b'0') as usize
+                };
+                let sym = pending.take().map(|x| x.0);
+                match r.rings[n].take() {
+                    None => {
+                        r.rings[n] = Some(OpenRing {
+                            atom: p,
+                            sym,
+                            byte: start,
+                        })
+                    }
+                    Some(open) => {
+                        let order = match (open.sym, sym) {
+                            (Some(a), Some(b)) if a.order() != b.order() => {
+                                return Err(err(K::RingBondConflict(n as u32), start))
+                            }
+                            (Some(a), _) | (None, Some(a)) => Some(a.order()),
+                            (None, None) => None,
+                        };
+                        if open.atom == p
+                            || r.bonds.iter().any(|b| {
+                                (b.a == p && b.b == open.atom) || (b.b == p && b.a == open.atom)
+                            })
+                        {
+                            return Err(err(K::BadRingClosure(n as u32), start));
+                        }
+                        r.bond(open.atom, p, order);
+                    }
+                }
+            }
+            _ => {
+                let atom = if c == b'[' {
+                    r.bracket().map_err(|(k, at)| err(k, at))?
+                } else {
+                    r.organic().map_err(|(k, at)| err(k, at))?
+                };
+                if r.atoms.len() >= MAX_ATOMS {
+                    return Err(err(K::TooLarge(MAX_ATOMS), start));
+                }
+                let idx = r.atoms.len();
+                r.atoms.push(Atom {
+                    position: 0,
+                    ..atom
+                });
+                r.atoms[idx].position = input[..start + offset].chars().count() + 1;
+                match prev {
+                    Some(p) => {
+                        let order = pending.take().map(|x| x.0.order());
+                        r.bond(p, idx, order);
+                    }
+                    None => components += 1,
+                }
+                prev = Some(idx);
+            }
+        }
+    }
+    if let Some((_, at)) = pending {
+        return Err(err(K::Dangling("bond symbol"), at));
+    }
+    if let Some((_, open)) = stack.last() {
+        return Err(err(K::UnbalancedParen, *open));
+    }
+    if let Some((n, ring)) = r
+        .rings
+        .iter()
+        .enumerate()
+        .filter_map(|(n, x)| x.as_ref().map(|x| (n, x)))
+        .min_by_key(|(_, x)| x.byte)
+    {
+        return Err(err(K::UnclosedRing(n as u32), ring.byte));
+    }
+    Ok(Raw {
+        atoms: r.atoms,
+        bonds: r.bonds,
+        components,
+    })
+}
+
+impl Reader<'_> {
+    /// Add a bond; with no symbol it is aromatic between two aromatic atoms, else single.
+    fn bond(&mut self, a: usize, b: usize, order: Option<BondOrder>) {
+        let order = order.unwrap_or(if self.atoms[a].aromatic && self.atoms[b].aromatic {
+            BondOrder::Aromatic
+        } else {
+            BondOrder::Single
+        });
+        self.bonds.push(Bond {
+            a,
+            b,
+            order,
+            kekule_order: order.integer(),
+            in_ring: false,
+        });
+    }
+
+    fn new_atom(element: Element, aromatic: bool) -> Atom {
+        Atom {
+            element,
+            aromatic,
+            charge: 0,
+            isotope: None,
+            hydrogens: 0,
+            bracket: false,
+            in_ring: false,
+            position: 0,
+        }
+    }
+
+    /// An organic-subset atom (or `*`).
+    fn organic(&mut self) -> Result<Atom, (K, usize)> {
+        let start = self.i;
+        let c = self.b[self.i];
+        let two = self.b.get(self.i..self.i + 2);
+        let (el, arom, len) = match (c, two) {
+            (b'C', Some(b"Cl")) => (Element::CL, false, 2),
+            (b'B', Some(b"Br")) => (Element::BR, false, 2),
+            (b'B', _) => (Element::B, false, 1),
+            (b'C', _) => (Element::C, false, 1),
+            (b'N', _) => (Element::N, false, 1),
+            (b'O', _) => (Element::O, false, 1),
+            (b'P', _) => (Element::P, false, 1),
+            (b'S', _) => (Element::S, false, 1),
+            (b'F', _) => (Element::F, false, 1),
+            (b'I', _) => (Element::I, false, 1),
+            (b'b', _) => (Element::B, true, 1),
+            (b'c', _) => (Element::C, true, 1),
+            (b'n', _) => (Element::N, true, 1),
+            (b'o', _) => (Element::O, true, 1),
+            (b'p', _) => (Element::P, true, 1),
+            (b's', _) => (Element::S, true, 1),
+            (b'*', _) => (Element::from_number(0).unwrap_or(Element::H), false, 1),
+            _ if c.is_ascii_alphabetic() => {
+                let mut end = self.i + 1;
+                if self.b.get(end).is_some_and(|x| x.is_ascii_lowercase()) {
+                    end += 1;
+                }
+                let sym = self.s.get(self.i..end).unwrap_or("?").to_string();
+                return Err((K::UnknownElement(sym), start));
+            }
+            _ => {
+                let ch = self.s[self.i..].chars().next().unwrap_or('?');
+                return Err((K::UnexpectedChar(ch), start));
+            }
+        };
+        self.i += len;
+        Ok(Self::new_atom(el, arom))
+    }
+
+    fn peek(&self) -> Option<u8> {
+        self.b.get(self.i).copied()
+    }
+
+    fn digits(&mut self, max: usize) -> Option<u32> {
+        let start = self.i;
+        let mut v: u32 = 0;
+        while self.i < self.b.len() && self.b[self.i].is_ascii_digit() && self.i - start < max {
+            v = v * 10 + (self.b[self.i] - b'0') as u32;
+            self.i += 1;
+        }
+        (self.i > start).then_some(v)
+    }
+
+    /// A bracket atom: `[` isotope? symbol chiral? hcount? charge? class? `]`.
+    fn bracket(&mut self) -> Result<Atom, (K, usize)> {
+        let open = self.i;
+        let Some(close) = self.b[open..].iter().position(|&x| x == b']') else {
+            return Err((K::UnclosedBracket, open));
+        };
+        let close = open + close;
+        self.i += 1;
+        let isotope = self.digits(4).map(|v| v as u16);
+        let sym_start = self.i;
+        let c = self.peek().ok_or((K::UnclosedBracket, open))?;
+        let (element, aromatic) = if c == b'*' {
+            self.i += 1;
+            (Element::from_number(0).unwrap_or(Element::H), false)
+        } else if c.is_ascii_lowercase() {
+            // Aromatic symbols: b c n o p s se as (OpenSMILES), te accepted too.
+            let two = self.s.get(self.i..self.i + 2).unwrap_or("");
+            let (sym, len) = match two {
+                "se" => ("Se", 2),
+                "as" => ("As", 2),
+                "te" => ("Te", 2),
+                _ => match c {
+                    b'b' => ("B", 1),
+                    b'c' => ("C", 1),
+                    b'n' => ("N", 1),
+                    b'o' => ("O", 1),
+                    b'p' => ("P", 1),
+                    b's' => ("S", 1),
+                    _ => {
+                        let t = self.s.get(self.i..self.i + 1).unwrap_or("?");
+                        return Err((K::UnknownElement(t.to_string()), sym_start));
+                    }
+                },
+            };
+            self.i += len;
+            (Element::from_symbol(sym).unwrap_or(Element::C), true)
+        } else if c.is_ascii_uppercase() {
+            let two = self.s.get(self.i..self.i + 2);
+            let one = self.s.get(self.i..self.i + 1).unwrap_or("");
+            match two.and_then(|t| {
+                (t.as_bytes()[1].is_ascii_lowercase())
+                    .then(|| Element::from_symbol(t))
+                    .flatten()
+            }) {
+                Some(e) => {
+                    self.i += 2;
+                    (e, false)
+                }
+                None => match Element::from_symbol(one) {
+                    Some(e) => {
+                        self.i += 1;
+                        (e, false)
+                    }
+                    None => {
+                        let t = match two {
+                            Some(t) if t.as_bytes()[1].is_ascii_lowercase() => t,
+                            _ => one,
+                        };
+                        return Err((K::UnknownElement(t.to_string()), sym_start));
+                    }
+                },
+            }
+        } else {
+            let ch = self.s[self.i..].chars().next().unwrap_or('?');
+            return Err((K::UnexpectedChar(ch), self.i));
+        };
+        // Chirality: @, @@, @TH1, @AL2, @SP3, @TB12, @OH30 (read and ignored).
+        if self.peek() == Some(b'@') {
+            self.i += 1;
+            if self.peek() == Some(b'@') {
+                self.i += 1;
+            } else if let Some(t) = self.s.get(self.i..self.i + 2) {
+                if matches!(t, "TH" | "AL" | "SP" | "TB" | "OH") {
+                    self.i += 2;
+                    if self.digits(2).is_none() {
+                        return Err((K::BadBracket("chirality class needs a number"), self.i));
+                    }
+                }
+            }
+        }
+        let mut hydrogens = 0u8;
+        if self.peek() == Some(b'H') {
+            self.i += 1;
+            hydrogens = self.digits(1).unwrap_or(1) as u8;
+        }
+        let mut charge: i32 = 0;
+        if let Some(sign @ (b'+' | b'-')) = self.peek() {
+            let unit = if sign == b'+' { 1 } else { -1 };
+            self.i += 1;
+            if self.peek() == Some(sign) {
+                self.i += 1;
+                charge = 2 * unit;
+                if self.peek() == Some(sign) {
+                    self.i += 1;
+                    charge = 3 * unit;
+                }
+            } else {
+                charge = unit * self.digits(2).unwrap_or(1) as i32;
+            }
+            if !(-15..=15).contains(&charge) {
+                return Err((K::BadBracket("charge outside -15..+15"), self.i));
+            }
+        }
+        if self.peek() == Some(b':') {
+            self.i += 1;
+            if self.digits(9).is_none() {
+                return Err((K::BadBracket("atom class needs a number after ':'"), self.i));
+            }
+        }
+        if self.i != close {
+            return Err((
+                K::BadBracket("expected isotope, element, chirality, H count, charge, class"),
+                self.i,
+            ));
+        }
+        self.i = close + 1;
+        if element == Element::H && hydrogens > 0 {
+            // [H2] and similar: molecular hydrogen written as one bracket atom.
+        }
+        Ok(Atom {
+            element,
+            aromatic,
+            charge: charge as i8,
+            isotope,
+            hydrogens,
+            bracket: true,
+            in_ring: false,
+            position: 0,
+        })
+    }
+}

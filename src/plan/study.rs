@@ -1,0 +1,599 @@
+//! Assembling a plan: operating pressure, boiling points, volatility, stages, Rayleigh curve, verdict.
+
+use super::pressure::{self, MaxPotPressure};
+use super::rayleigh::{self, ConstantAlpha, Equilibrium, IdealBinary, RayleighPoint};
+use super::uncertainty::{self, K95};
+use super::verdict::{self, Verdict, VerdictInputs};
+use super::volatility::{self, PairVolatility};
+use super::{fenske, limits, Component, PlanError};
+use serde::Serialize;
+
+/// How the operating pressure is chosen.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum PressureRequest {
+    /// A given pressure, Pa.
+    Given(f64),
+    /// The highest pressure at which every component boils at or below this pot temperature, K.
+    MaxPot(f64),
+}
+
+/// Which equilibrium the Rayleigh curve uses.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum RayleighModel {
+    /// Raoult's law with α following the pot temperature.
+    Varying,
+    /// Constant α (the key pair's geometric mean).
+    Constant,
+}
+
+/// What the plan is asked for.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PlanOptions {
+    /// Operating pressure.
+    pub pressure: PressureRequest,
+    /// Light-component mole fraction wanted in the distillate.
+    pub distillate_purity: f64,
+    /// Heavy-component mole fraction wanted in the bottoms.
+    pub bottoms_purity: f64,
+    /// Light-component mole fraction in the charge (of the key pair).
+    pub feed_x_light: f64,
+    /// Equilibrium used for the Rayleigh curve.
+    pub rayleigh_model: RayleighModel,
+}
+
+impl Default for PlanOptions {
+    fn default() -> Self {
+        Self {
+            pressure: PressureRequest::Given(pressure::ATMOSPHERE_PA),
+            distillate_purity: 0.99,
+            bottoms_purity: 0.99,
+            feed_x_light: 0.5,
+            rayleigh_model: RayleighModel::Varying,
+        }
+    }
+}
+
+/// How the pressure was chosen, for the output.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct PressureChoice {
+    /// `given` or `max-pot`.
+    pub mode: &'static str,
+    /// The max-pot search, when used.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub max_pot: Option<MaxPotPressure>,
+    /// The rounding rule, when used.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub rounding_rule: Option<&'static str>,
+}
+
+/// One component at the operating pressure.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ComponentAtPressure {
+    /// Name.
+    pub name: String,
+    /// Boiling point at the operating pressure, K.
+    pub tb_k: f64,
+    /// Its standard uncertainty, K, when the source states one.
+    pub u_tb_k: Option<f64>,
+    /// 95 % interval low end, K (±1.96 u), when the uncertainty is known.
+    pub tb_ci95_low_k: Option<f64>,
+    /// 95 % interval high end, K.
+    pub tb_ci95_high_k: Option<f64>,
+    /// Where the curve came from.
+    pub source: String,
+    /// Whether the boiling point lies outside the source's stated validity range.
+    pub extrapolated: bool,
+}
+
+/// Relative volatility of the key pair in detail.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct VolatilityDetail {
+    /// Boiling points and α at both ends.
+    #[serde(flatten)]
+    pub pair: PairVolatility,
+    /// Standard uncertainty of ln α (geometric mean).
+    pub u_ln_alpha: f64,
+    /// 95 % interval of α, low end.
+    pub ci95_low: f64,
+    /// 95 % interval of α, high end.
+    pub ci95_high: f64,
+    /// Components whose source states no uncertainty (counted as exact).
+    pub uncertainty_not_stated: Vec<String>,
+}
+
+/// Fenske stages of the key pair in detail.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct FenskeDetail {
+    /// Light-component purity of the distillate.
+    pub distillate_purity: f64,
+    /// Heavy-component purity of the bottoms.
+    pub bottoms_purity: f64,
+    /// `(x_D/(1−x_D))·(x_B/(1−x_B))`.
+    pub separation_factor: f64,
+    /// Standard uncertainty of N_min (delta method).
+    pub u: Option<f64>,
+    /// 95 % interval, low end.
+    pub ci95_low: Option<f64>,
+    /// 95 % interval, high end (null: unbounded, α may be 1).
+    pub ci95_high: Option<f64>,
+}
+
+/// One adjacent pair (by boiling point) of a multi-component mixture.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct PairSummary {
+    /// Light member.
+    pub light: String,
+    /// Heavy member.
+    pub heavy: String,
+    /// Boiling-point difference, K.
+    pub delta_tb_k: f64,
+    /// Geometric-mean α.
+    pub relative_volatility: f64,
+    /// Fenske minimum stages for the purity targets.
+    pub fenske_min_stages: Option<f64>,
+}
+
+/// A row of the pressure table.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct PressureRow {
+    /// Pressure, Pa.
+    pub p_pa: f64,
+    /// Boiling point of each component (in the order of `components`), K.
+    pub tb_k: Vec<f64>,
+    /// Key-pair boiling-point difference, K.
+    pub delta_tb_k: f64,
+    /// Key-pair geometric-mean α.
+    pub relative_volatility: f64,
+    /// Key-pair Fenske minimum stages.
+    pub fenske_min_stages: Option<f64>,
+    /// Whether any boiling point is outside its source's validity range.
+    pub extrapolated: bool,
+    /// Whether this is the operating pressure.
+    pub operating: bool,
+}
+
+/// The Rayleigh batch curve of the key pair.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct RayleighSummary {
+    /// Equilibrium model used.
+    pub model: &'static str,
+    /// Light-component mole fraction in the charge.
+    pub feed_x_light: f64,
+    /// The curve, every 5 % of the charge distilled up to 90 % (never to dryness).
+    pub points: Vec<RayleighPoint>,
+    /// The single cut that strips the pot to the bottoms target.
+    pub cut_to_bottoms_target: Option<RayleighPoint>,
+}
+
+/// Severity of a finding.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Severity {
+    /// For information.
+    Info,
+    /// Look at this before relying on the plan.
+    Warning,
+    /// The plan is not usable as it stands.
+    Error,
+}
+
+/// A finding about the plan.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Finding {
+    /// Stable kebab-case code.
+    pub code: &'static str,
+    /// Severity.
+    pub severity: Severity,
+    /// One sentence.
+    pub message: String,
+}
+
+/// The complete plan.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Plan {
+    /// Operating pressure, Pa.
+    pub pressure_pa: f64,
+    /// How it was chosen.
+    pub pressure_choice: PressureChoice,
+    /// Components at that pressure, lightest first.
+    pub components: Vec<ComponentAtPressure>,
+    /// The key pair: the adjacent pair hardest to separate.
+    pub key_pair: [String; 2],
+    /// Key-pair geometric-mean relative volatility at the operating pressure.
+    pub relative_volatility: f64,
+    /// Its detail.
+    pub relative_volatility_detail: VolatilityDetail,
+    /// Fenske minimum theoretical stages for the key pair (null when α ≤ 1).
+    pub fenske_min_stages: Option<f64>,
+    /// Its detail.
+    pub fenske_detail: FenskeDetail,
+    /// Every adjacent pair (one for a binary).
+    pub pairs: Vec<PairSummary>,
+    /// Key-pair figures across pressures.
+    pub pressure_table: Vec<PressureRow>,
+    /// The Rayleigh batch curve.
+    pub rayleigh: Option<RayleighSummary>,
+    /// The verdict.
+    pub verdict: Verdict,
+    /// Findings.
+    pub findings: Vec<Finding>,
+    /// The ideal-solution limits.
+    pub limits: &'static str,
+    /// The usual cautions.
+    pub cautions: &'static [&'static str],
+}
+
+/// Make a plan for `components` under `opts`.
+pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanError> {
+    if components.len() < 2 {
+        return Err(PlanError::TooFewComponents {
+            found: components.len(),
+        });
+    }
+    for (i, c) in components.iter().enumerate() {
+        if components[..i].iter().any(|d| d.name == c.name) {
+            return Err(PlanError::DuplicateName {
+                name: c.name.clone(),
+            });
+        }
+    }
+    fenske::separation_factor(opts.distillate_purity, opts.bottoms_purity)?;
+    if !(opts.feed_x_light > 0.0 && opts.feed_x_light < 1.0) {
+        return Err(PlanError::BadFeed {
+            value: opts.feed_x_light,
+        });
+    }
+    let mut findings = Vec::new();
+
+    // 1. Operating pressure.
+    let (p, pressure_choice) = match opts.pressure {
+        PressureRequest::Given(p) => {
+            if !(p.is_finite() && p > 0.0) {
+                return Err(PlanError::BadPressure { p_pa: p });
+            }
+            let choice = PressureChoice {
+                mode: "given",
+                max_pot: None,
+                rounding_rule: None,
+            };
+            (p, choice)
+        }
+        PressureRequest::MaxPot(t) => {
+            let m = pressure::pressure_for_max_pot(components, t)?;
+            if m.capped_at_atmosphere {
+                findings.push(Finding {
+                    code: "max-pot-above-normal-boiling",
+                    severity: Severity::Info,
+                    message: format!(
+                        "Every component boils below the pot limit even at atmospheric pressure, so the plan uses 1 atm (no vacuum needed; a pressurised still is never proposed); {} boils at {:.1} °C there.",
+                        m.heaviest,
+                        components.iter().find(|c| c.name == m.heaviest).and_then(|c| c.tb_k(m.setpoint_pa).ok()).unwrap_or(f64::NAN) - 273.15
+                    ),
+                });
+            }
+            let p = m.setpoint_pa;
+            let choice = PressureChoice {
+                mode: "max-pot",
+                max_pot: Some(m),
+                rounding_rule: Some(pressure::ROUNDING_RULE),
+            };
+            (p, choice)
+        }
+    };
+
+    // 2. Boiling points, lightest first.
+    let mut order: Vec<(usize, f64)> = components
+        .iter()
+        .enumerate()
+        .map(|(i, c)| c.tb_k(p).map(|t| (i, t)))
+        .collect::<Result<_, _>>()?;
+    order.sort_by(|a, b| a.1.total_cmp(&b.1));
+    let sorted: Vec<&Component> = order.iter().map(|&(i, _)| &components[i]).collect();
+    let mut at_p = Vec::new();
+    for (&(_, t), c) in order.iter().zip(&sorted) {
+        let u = c
+            .curve
+            .t_uncertainty_k(p)
+            .filter(|u| u.is_finite() && *u >= 0.0);
+        let extrapolated = c.extrapolated(t);
+        if extrapolated {
+            findings.push(Finding {
+                code: "outside-valid-range",
+                severity: Severity::Warning,
+                message: format!(
+                    "The boiling point of {} at this pressure ({:.1} °C) lies outside the temperature range its source claims for its curve, so it is an extrapolation.",
+                    c.name,
+                    t - 273.15
+                ),
+            });
+        }
+        if u.is_none() {
+            findings.push(Finding {
+                code: "uncertainty-not-stated",
+                severity: Severity::Info,
+                message: format!(
+                    "The source of {} states no uncertainty, so the uncertainty of α and of the stage count leaves it out.",
+                    c.name
+                ),
+            });
+        }
+        at_p.push(ComponentAtPressure {
+            name: c.name.clone(),
+            tb_k: t,
+            u_tb_k: u,
+            tb_ci95_low_k: u.map(|u| t - K95 * u),
+            tb_ci95_high_k: u.map(|u| t + K95 * u),
+            source: c.source.clone(),
+            extrapolated,
+        });
+    }
+    if let Some(first) = at_p.first() {
+        if first.tb_k < 283.15 {
+            findings.push(Finding {
+                code: "condensate-needs-cold-trap",
+                severity: Severity::Warning,
+                message: format!(
+                    "{} boils at {:.1} °C at this pressure, below what a tap-water condenser can condense: plan a chilled condenser or cold trap, or use a higher pressure.",
+                    first.name,
+                    first.tb_k - 273.15
+                ),
+            });
+        }
+    }
+
+    // 3. Adjacent pairs; the key pair is the one with the smallest α.
+    let (xd, xb) = (opts.distillate_purity, opts.bottoms_purity);
+    let mut pairs = Vec::new();
+    let mut key: Option<(usize, PairVolatility)> = None;
+    for i in 0..sorted.len() - 1 {
+        let v = volatility::pair_volatility(sorted[i], sorted[i + 1], p)?;
+        pairs.push(PairSummary {
+            light: v.light.clone(),
+            heavy: v.heavy.clone(),
+            delta_tb_k: v.delta_tb_k,
+            relative_volatility: v.geometric_mean,
+            fenske_min_stages: fenske::min_stages(v.geometric_mean, xd, xb)?,
+        });
+        if key
+            .as_ref()
+            .is_none_or(|(_, k)| v.geometric_mean < k.geometric_mean)
+        {
+            key = Some((i, v));
+        }
+    }
+    let Some((ki, kv)) = key else {
+        return Err(PlanError::TooFewComponents {
+            found: sorted.len(),
+        });
+    };
+    let (light, heavy) = (sorted[ki], sorted[ki + 1]);
+    if sorted.len() > 2 {
+        findings.push(Finding {
+            code: "key-pair-only",
+            severity: Severity::Info,
+            message: format!(
+                "With {} components the stage count, Rayleigh curve and verdict are for the hardest adjacent pair, {} / {}, treated as a binary; the others are listed under pairs.",
+                sorted.len(),
+                light.name,
+                heavy.name
+            ),
+        });
+    }
+
+    // 4. Uncertainty and Fenske.
+    let au = uncertainty::alpha_uncertainty(light, heavy, p, kv.light_tb_k, kv.heavy_tb_k)?;
+    let alpha = kv.geometric_mean;
+    let n_min = fenske::min_stages(alpha, xd, xb)?;
+    let nu = uncertainty::stages_uncertainty(alpha, au.u_ln_alpha, xd, xb)?;
+    let fenske_detail = FenskeDetail {
+        distillate_purity: xd,
+        bottoms_purity: xb,
+        separation_factor: fenske::separation_factor(xd, xb)?,
+        u: nu.map(|n| n.u),
+        ci95_low: nu.map(|n| n.ci95_low),
+        ci95_high: nu.and_then(|n| n.ci95_high),
+    };
+    let detail = VolatilityDetail {
+        ci95_low: (alpha.ln() - K95 * au.u_ln_alpha).exp(),
+        ci95_high: (alpha.ln() + K95 * au.u_ln_alpha).exp(),
+        u_ln_alpha: au.u_ln_alpha,
+        uncertainty_not_stated: au.not_stated,
+        pair: kv.clone(),
+    };
+
+    // 5. Pressure table.
+    let mut table = Vec::new();
+    for q in pressure::ladder(p) {
+        let tbs: Result<Vec<f64>, _> = sorted.iter().map(|c| c.tb_k(q)).collect();
+        let Ok(tbs) = tbs else { continue };
+        let Ok(v) = volatility::pair_volatility(light, heavy, q) else {
+            continue;
+        };
+        let extrapolated = sorted.iter().zip(&tbs).any(|(c, &t)| c.extrapolated(t));
+        table.push(PressureRow {
+            p_pa: q,
+            delta_tb_k: v.delta_tb_k,
+            relative_volatility: v.geometric_mean,
+            fenske_min_stages: fenske::min_stages(v.geometric_mean, xd, xb)?,
+            tb_k: tbs,
+            extrapolated,
+            operating: (q - p).abs() <= 1e-9 * p,
+        });
+    }
+
+    // 6. Rayleigh curve of the key pair.
+    let ideal = IdealBinary {
+        light,
+        heavy,
+        p_pa: p,
+    };
+    let constant = ConstantAlpha { alpha };
+    let eq: &dyn Equilibrium = match opts.rayleigh_model {
+        RayleighModel::Varying => &ideal,
+        RayleighModel::Constant => &constant,
+    };
+    let ray = if alpha > 1.0 {
+        let points = rayleigh::curve(eq, opts.feed_x_light, 0.05, 0.9);
+        let cut = rayleigh::cut_at_pot(eq, opts.feed_x_light, 1.0 - xb).ok();
+        match points {
+            Ok(mut points) => {
+                if opts.rayleigh_model == RayleighModel::Constant {
+                    // Head temperature from the curves even when y(x) uses constant α.
+                    for pt in &mut points {
+                        pt.head_t_k = ideal.bubble_t_k(pt.pot_x_light).ok();
+                    }
+                }
+                Some(RayleighSummary {
+                    model: eq.model(),
+                    feed_x_light: opts.feed_x_light,
+                    points,
+                    cut_to_bottoms_target: cut,
+                })
+            }
+            Err(_) => None,
+        }
+    } else {
+        None
+    };
+
+    // 7. Verdict.
+    let cut = ray.as_ref().and_then(|r| r.cut_to_bottoms_target);
+    let verdict = verdict::decide(&VerdictInputs {
+        alpha,
+        n_min,
+        delta_tb_k: kv.delta_tb_k,
+        distillate_purity: xd,
+        simple_cut_distillate: cut.map(|c| c.distillate_avg_x_light),
+        simple_cut_fraction: cut.map(|c| c.fraction_distilled),
+    });
+    if verdict.rule_of_thumb.code != verdict.code {
+        findings.push(Finding {
+            code: "rule-of-thumb-disagrees",
+            severity: Severity::Info,
+            message: "The boiling-point-difference rule of thumb reads differently from the stage count for these purity targets; plan with the stage count.".to_string(),
+        });
+    }
+
+    Ok(Plan {
+        pressure_pa: p,
+        pressure_choice,
+        components: at_p,
+        key_pair: [light.name.clone(), heavy.name.clone()],
+        relative_volatility: alpha,
+        relative_volatility_detail: detail,
+        fenske_min_stages: n_min,
+        fenske_detail,
+        pairs,
+        pressure_table: table,
+        rayleigh: ray,
+        verdict,
+        findings,
+        limits: limits::IDEAL_SOLUTION,
+        cautions: limits::CAUTIONS,
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::vapor::AntoineConstants;
+
+    fn svna(name: &str, a: f64, b: f64, c: f64) -> Component {
+        let conv = "ln,kPa,degC".parse().unwrap();
+        Component::new(name, Box::new(AntoineConstants::new(a, b, c, conv)), "test")
+    }
+
+    /// Benzene/toluene, Smith, Van Ness & Abbott App. B Table B.2 constants.
+    fn bz_tol() -> Vec<Component> {
+        vec![
+            svna("toluene", 13.9320, 3056.96, 217.625),
+            svna("benzene", 13.7819, 2726.81, 217.572),
+        ]
+    }
+
+    #[test]
+    fn benzene_toluene_plan_at_one_atmosphere_needs_a_column() {
+        let p = plan(&bz_tol(), &PlanOptions::default()).unwrap();
+        assert_eq!(p.components[0].name, "benzene");
+        assert_eq!(p.verdict.code, verdict::VerdictCode::ColumnNeeded);
+        let n = p.fenske_min_stages.unwrap();
+        assert_eq!(p.verdict.min_theoretical_stages, Some(n.ceil() as u32));
+        assert!(p.pressure_table.iter().any(|r| r.operating));
+        // Lower pressure raises α for this pair.
+        let first = &p.pressure_table[0];
+        let last = p.pressure_table.last().unwrap();
+        assert!(last.p_pa < first.p_pa && last.relative_volatility > first.relative_volatility);
+        let r = p.rayleigh.unwrap();
+        assert_eq!(r.points.len(), 19);
+        assert!(r.points[0].head_t_k.unwrap() > p.components[0].tb_k);
+    }
+
+    #[test]
+    fn max_pot_plan_uses_the_rounded_setpoint() {
+        let opts = PlanOptions {
+            pressure: PressureRequest::MaxPot(273.15 + 60.0),
+            ..PlanOptions::default()
+        };
+        let p = plan(&bz_tol(), &opts).unwrap();
+        let m = p.pressure_choice.max_pot.as_ref().unwrap();
+        assert_eq!(m.heaviest, "toluene");
+        assert_eq!(p.pressure_pa, m.setpoint_pa);
+        assert!(p.components[1].tb_k <= 273.15 + 60.0);
+    }
+
+    #[test]
+    fn varying_and_constant_alpha_rayleigh_curves_are_close_for_a_near_ideal_pair() {
+        let mut opts = PlanOptions::default();
+        let a = plan(&bz_tol(), &opts).unwrap().rayleigh.unwrap();
+        opts.rayleigh_model = RayleighModel::Constant;
+        let b = plan(&bz_tol(), &opts).unwrap().rayleigh.unwrap();
+        for (pa, pb) in a.points.iter().zip(&b.points) {
+            assert!((pa.distillate_avg_x_light - pb.distillate_avg_x_light).abs() < 0.03);
+        }
+    }
+
+    #[test]
+    fn widely_separated_pair_is_a_simple_distillation() {
+        // Acetone and n-decane by Smith, Van Ness & Abbott App. B constants
+        // (a real mixture is non-ideal; this checks only the verdict branch).
+        let comps = vec![
+            svna("acetone", 14.3145, 2756.22, 228.060),
+            svna("n-decane", 13.9748, 3442.76, 193.858),
+        ];
+        let opts = PlanOptions {
+            distillate_purity: 0.90,
+            bottoms_purity: 0.90,
+            ..PlanOptions::default()
+        };
+        let p = plan(&comps, &opts).unwrap();
+        assert_eq!(
+            p.verdict.code,
+            verdict::VerdictCode::SimpleDistillation,
+            "{}",
+            p.verdict.message
+        );
+    }
+
+    #[test]
+    fn bad_inputs_are_typed_errors() {
+        let one = vec![svna("benzene", 13.7819, 2726.81, 217.572)];
+        assert!(matches!(
+            plan(&one, &PlanOptions::default()),
+            Err(PlanError::TooFewComponents { found: 1 })
+        ));
+        let mut dup = bz_tol();
+        dup.push(svna("benzene", 13.7819, 2726.81, 217.572));
+        assert!(matches!(
+            plan(&dup, &PlanOptions::default()),
+            Err(PlanError::DuplicateName { .. })
+        ));
+        let opts = PlanOptions {
+            feed_x_light: 1.2,
+            ..PlanOptions::default()
+        };
+        assert!(matches!(
+            plan(&bz_tol(), &opts),
+            Err(PlanError::BadFeed { .. })
+        ));
+    }
+}

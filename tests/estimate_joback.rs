@@ -1,0 +1,175 @@
+//! Joback estimation checked against the published worked example, hand-counted
+//! groups, and the measured dev set.
+
+use ebullio::estimate::{
+    assign_groups, calibration, estimate_groups, estimate_smiles, joback, parse_groups,
+    EstimateError,
+};
+use ebullio::molecule::parse_smiles;
+
+fn close(a: f64, b: f64, tol: f64) -> bool {
+    (a - b).abs() <= tol
+}
+
+/// Source: reference-data/JOBACK.md §6, acetone. The values there are computed
+/// from the table and agree with the encyclopedia article's worked example as
+/// recalled (from memory; that text is unconfirmed). The equation constants are
+/// confirmed (JOBACK.md §3, sources S2, S3).
+#[test]
+fn acetone_worked_example_joback_md_section6() {
+    let e = estimate_smiles("CC(C)=O").unwrap();
+    assert_eq!(e.groups.get("ch3"), Some(&2));
+    assert_eq!(e.groups.get("co_chain"), Some(&1));
+    assert_eq!(e.n_atoms, 10);
+    assert!(close(e.tb_joback_k, 321.91, 0.005), "{}", e.tb_joback_k);
+    assert!(
+        close(e.tb_stein_brown_k, 326.76, 0.01),
+        "{}",
+        e.tb_stein_brown_k
+    );
+    assert!(close(e.tm_k.unwrap(), 173.5, 0.005));
+    // Tc from the Joback Tb, as in the worked example.
+    assert!(close(joback::tc_k(e.tb_joback_k, 0.0662), 500.248, 0.01));
+    assert!(close(e.pc_bar.unwrap(), 48.025, 0.005), "{:?}", e.pc_bar);
+    assert!(close(e.vc_cm3_mol.unwrap(), 209.5, 1e-9));
+    assert!(close(e.hf_kj_mol.unwrap(), -217.83, 0.005));
+    assert!(close(e.gf_kj_mol.unwrap(), -154.54, 0.005));
+    let cp = e.cp.unwrap();
+    assert!(close(cp.at(298.15), 74.970, 0.002), "{}", cp.at(298.15));
+    assert!(close(cp.at(300.0), 75.326, 0.002));
+    assert!(close(cp.at(1000.0), 163.120, 0.005));
+    assert!(close(e.hvap_tb_kj_mol.unwrap(), 29.018, 0.0005));
+    assert!(close(e.hfus_kj_mol.unwrap(), 5.125, 0.0005));
+}
+
+/// Source: reference-data/JOBACK.md §6 self-consistency vectors (ethanol,
+/// toluene, thiophene), computed from the table.
+#[test]
+fn ethanol_toluene_thiophene_joback_md_section6() {
+    let e = estimate_smiles("CCO").unwrap();
+    assert!(close(e.tb_joback_k, 337.34, 0.005));
+    assert!(close(e.pc_bar.unwrap(), 57.566, 0.005));
+    assert!(close(e.hvap_tb_kj_mol.unwrap(), 36.725, 0.001));
+    let t = estimate_smiles("Cc1ccccc1").unwrap();
+    assert!(close(t.tb_joback_k, 386.24, 0.005));
+    assert!(close(t.pc_bar.unwrap(), 41.144, 0.005));
+    assert!(close(t.cp.unwrap().at(298.15), 106.583, 0.005));
+    let s = estimate_smiles("c1ccsc1").unwrap();
+    assert!(close(s.tb_joback_k, 357.02, 0.005));
+    assert!(close(s.pc_bar.unwrap(), 57.132, 0.005));
+}
+
+/// Expected groups written by hand (counted from the structures on paper).
+#[test]
+fn group_sums_of_hand_checked_molecules() {
+    let cases: &[(&str, &[(&str, u32)])] = &[
+        ("CCOC(C)=O", &[("ch3", 2), ("ch2_chain", 1), ("coo", 1)]),
+        (
+            "Oc1ccccc1",
+            &[("oh_phenol", 1), ("eq_ch_ring", 5), ("eq_c_ring", 1)],
+        ),
+        ("C1=CC=CC=C1", &[("eq_ch_ring", 6)]),
+        ("CCCC(=O)O", &[("ch3", 1), ("ch2_chain", 2), ("cooh", 1)]),
+        ("CC#N", &[("ch3", 1), ("cn", 1)]),
+        ("C[N+](=O)[O-]", &[("ch3", 1), ("no2", 1)]),
+        ("CN(C)C=O", &[("ch3", 2), ("n_chain", 1), ("cho", 1)]),
+        ("C1CCC(=O)CC1", &[("ch2_ring", 5), ("co_ring", 1)]),
+        ("c1ccncc1", &[("eq_ch_ring", 5), ("eq_n_ring", 1)]),
+        ("C1CCNC1", &[("ch2_ring", 4), ("nh_ring", 1)]),
+        (
+            "CC(C)(C)CC(C)C",
+            &[
+                ("ch3", 5),
+                ("c_chain", 1),
+                ("ch2_chain", 1),
+                ("ch_chain", 1),
+            ],
+        ),
+        (
+            "C=CC#C",
+            &[("eq_ch2", 1), ("eq_ch_chain", 1), ("tr_c", 1), ("tr_ch", 1)],
+        ),
+        ("CCSC", &[("ch3", 2), ("ch2_chain", 1), ("s_chain", 1)]),
+        ("C1CCOC1", &[("ch2_ring", 4), ("o_ring", 1)]),
+        (
+            "FC(F)(Cl)Br",
+            &[("c_chain", 1), ("f", 2), ("cl", 1), ("br", 1)],
+        ),
+        ("NCCS", &[("nh2", 1), ("ch2_chain", 2), ("sh", 1)]),
+        ("C=C=C", &[("eq_ch2", 2), ("eq_c_eq", 1)]),
+    ];
+    for (smi, want) in cases {
+        let got = assign_groups(&parse_smiles(smi).unwrap()).unwrap();
+        let want: std::collections::BTreeMap<String, u32> =
+            want.iter().map(|(k, v)| (k.to_string(), *v)).collect();
+        assert_eq!(got, want, "{smi}");
+    }
+}
+
+#[test]
+fn kekule_and_aromatic_benzene_give_the_same_estimate() {
+    let a = estimate_smiles("C1=CC=CC=C1C").unwrap();
+    let b = estimate_smiles("Cc1ccccc1").unwrap();
+    assert_eq!(a.groups, b.groups);
+    assert_eq!(a.tb_k, b.tb_k);
+}
+
+#[test]
+fn atoms_without_a_group_are_named_with_position() {
+    let e = estimate_smiles("CCP(C)C").unwrap_err();
+    assert!(
+        matches!(e, EstimateError::NoGroup { position: 3, .. }),
+        "{e}"
+    );
+    assert!(e.to_string().contains("phosphorus"), "{e}");
+    let e = estimate_smiles("CN1CCCC1").unwrap_err();
+    assert!(e.to_string().contains("ring tertiary nitrogen"), "{e}");
+    let e = estimate_smiles("CCO.Cl").unwrap_err();
+    assert!(e.to_string().contains("estimate each component"), "{e}");
+}
+
+#[test]
+fn manual_groups_match_the_smiles_route() {
+    let g = parse_groups("ch3=2,ch2_chain=3").unwrap();
+    let a = estimate_groups(&g).unwrap();
+    let b = estimate_smiles("CCCCC").unwrap();
+    assert_eq!(a.tb_k, b.tb_k);
+    assert_eq!(a.pc_bar, b.pc_bar);
+}
+
+/// Source: reference-data/normal-boiling-points-dev.csv (each row names its
+/// handbook source). Bound set before measuring: 20 K (the method's commonly
+/// quoted error is about 13 K on its own fitting set, from memory; the dev set
+/// holds very small molecules where it is known to be poor).
+#[test]
+fn dev_set_mean_absolute_error_normal_boiling_points_dev_csv() {
+    let c = calibration();
+    println!(
+        "dev set: {} of {} estimated; MAE joback {:.2} K, stein-brown {:.2} K, switched {:.2} K; recommended {} MAE {:.2} K bias {:+.2} K; q90 {:.4}; coverage in-sample {:.3}, leave-one-out {:.3}",
+        c.n_estimated, c.n_total, c.mae_joback_k, c.mae_stein_brown_k, c.mae_switched_k,
+        c.variant.name(), c.mae_recommended_k, c.bias_recommended_k, c.q90,
+        c.coverage_in_sample, c.coverage_leave_one_out
+    );
+    for r in &c.rows {
+        if let Some(e) = &r.error {
+            println!("  not estimated: {} {}: {e}", r.compound, r.smiles);
+        }
+    }
+    assert!(
+        c.n_estimated * 10 >= c.n_total * 9,
+        "coverage of structures"
+    );
+    assert!(c.mae_joback_k < 20.0, "joback MAE {}", c.mae_joback_k);
+    assert!(
+        c.mae_recommended_k < 20.0,
+        "recommended MAE {}",
+        c.mae_recommended_k
+    );
+    assert!(c.mae_recommended_k <= c.mae_joback_k + 1e-12);
+    assert!(c.coverage_in_sample >= 0.9);
+    assert!(
+        c.coverage_leave_one_out >= 0.8,
+        "{}",
+        c.coverage_leave_one_out
+    );
+}
