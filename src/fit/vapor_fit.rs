@@ -675,7 +675,7 @@ fn outlier_refit(r: &mut FitReport, points: &[Point], f: &EquationFit, opts: &Fi
     let sub = build_report(None, &kept, &g, opts, false);
     if let (Some(a), Some(b)) = (&r.normal_boiling_point_k, &sub.normal_boiling_point_k) {
         r.flags.push(Finding::new(
-            "outlier-point",
+            "without-flagged-points",
             Severity::Info,
             format!(
                 "Without the {} flagged point(s) the normal boiling point would be {:.2} K instead of {:.2} K and the RMS deviation {:.3} % instead of {:.3} %.",

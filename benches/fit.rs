@@ -1,0 +1,44 @@
+//! Fit throughput: one Antoine fit of 10 points with full statistics, and a batch of 10,000.
+//!
+//! Run: `cargo bench --no-default-features --bench fit`. Data are invented
+//! (ln(p/Pa) = 22.0 − 3500/(T − 45) with a deterministic ±0.2 % wiggle).
+
+use divan::black_box;
+use ebullio::fit::{fit_points, FitOptions, Point};
+
+fn main() {
+    divan::main();
+}
+
+fn set(seed: usize) -> Vec<Point> {
+    (0..10)
+        .map(|i| {
+            let t = 320.0 + 6.0 * i as f64;
+            let e = 0.002 * ((i + seed) as f64 * 2.3).sin();
+            Point {
+                t_k: t,
+                p_pa: (22.0 - 3500.0 / (t - 45.0) + e).exp(),
+                u_t_k: None,
+                u_p_pa: None,
+            }
+        })
+        .collect()
+}
+
+#[divan::bench]
+fn antoine_10_points_full_statistics(b: divan::Bencher) {
+    let pts = set(0);
+    let opts = FitOptions::default();
+    b.bench(|| fit_points(None, black_box(&pts), &opts).map(|r| r.rms_rel_dev_pct));
+}
+
+#[divan::bench(sample_count = 3)]
+fn batch_10000_compounds_one_core(b: divan::Bencher) {
+    let sets: Vec<Vec<Point>> = (0..10_000).map(set).collect();
+    let opts = FitOptions::default();
+    b.bench(|| {
+        sets.iter()
+            .filter_map(|s| fit_points(None, s, &opts).ok())
+            .count()
+    });
+}
