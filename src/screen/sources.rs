@@ -185,6 +185,9 @@ impl TableReference {
 
 impl ReferenceLookup for TableReference {
     fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry> {
+        if self.is_empty() {
+            return None;
+        }
         id.cas
             .and_then(|c| self.by_cas.get(c.trim()))
             .or_else(|| id.structure_key.and_then(|k| self.by_key.get(k)))
