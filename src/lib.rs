@@ -29,6 +29,7 @@ pub mod molecule;
 pub mod plan;
 pub mod reference;
 pub mod report;
+pub mod screen;
 pub mod table_io;
 pub mod units;
 pub mod vapor;

@@ -4,6 +4,7 @@ use anyhow::Context;
 use std::io::{IsTerminal, Write};
 use std::path::{Path, PathBuf};
 use std::process::ExitCode;
+use std::sync::atomic::{AtomicU64, Ordering};
 
 /// What a command achieved, mapped to an exit code by [`exit_code`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -64,10 +65,19 @@ impl OutputArgs {
     }
 
     /// Emit `text` to the output file (atomically) or stdout.
+    ///
+    /// An interrupt that arrives while the file is written waits until the
+    /// rename is done (see [`install_interrupt_handler`]), so no temporary or
+    /// partial file is ever left behind.
     pub fn emit(&self, text: &str, inputs: &[&Path]) -> anyhow::Result<()> {
         match &self.output {
-            Some(p) => ebullio::table_io::write_atomic(p, text.as_bytes(), inputs)
-                .with_context(|| format!("writing {}", p.display())),
+            Some(p) => {
+                let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
+                let r = ebullio::table_io::write_atomic(p, text.as_bytes(), inputs)
+                    .with_context(|| format!("writing {}", p.display()));
+                *written = r.is_ok();
+                r
+            }
             None => print_stdout(text),
         }
     }
@@ -115,4 +125,47 @@ pub fn exit_code(r: anyhow::Result<Outcome>) -> ExitCode {
             ExitCode::from(2)
         }
     }
+}
+
+/// Set once the output file has been written; held while it is being written.
+static OUTPUT_WRITTEN: std::sync::Mutex<bool> = std::sync::Mutex::new(false);
+/// Items finished in the running batch, for the interrupt message.
+static BATCH_DONE: AtomicU64 = AtomicU64::new(0);
+/// Items in the running batch (0 when no batch has started).
+static BATCH_TOTAL: AtomicU64 = AtomicU64::new(0);
+
+/// Install the SIGINT/SIGTERM handler: an interrupted run prints how far its
+/// batch got and exits with code 130 without writing any output, so a file
+/// named by `--output` is either complete or absent. An interrupt during the
+/// final atomic write waits for the rename and lets the run finish.
+pub fn install_interrupt_handler() {
+    // Failing to install (a handler already set) only loses the message.
+    let _ = ctrlc::set_handler(|| {
+        let written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
+        if *written {
+            return;
+        }
+        let done = BATCH_DONE.load(Ordering::Relaxed);
+        let total = BATCH_TOTAL.load(Ordering::Relaxed);
+        let msg = if total > 0 {
+            format!("interrupted after {done} of {total} items; no output was written")
+        } else {
+            "interrupted before the batch started; no output was written".to_string()
+        };
+        let _ = writeln!(std::io::stderr(), "{msg}");
+        std::process::exit(130);
+    });
+}
+
+/// Tell the interrupt handler that a batch of `total` items has started.
+#[allow(dead_code)] // used by the batch commands
+pub fn batch_started(total: usize) {
+    BATCH_DONE.store(0, Ordering::Relaxed);
+    BATCH_TOTAL.store(total as u64, Ordering::Relaxed);
+}
+
+/// Tell the interrupt handler that one more batch item is finished.
+#[allow(dead_code)] // used by the batch commands
+pub fn batch_step() {
+    BATCH_DONE.fetch_add(1, Ordering::Relaxed);
 }

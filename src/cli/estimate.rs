@@ -443,6 +443,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         );
         b
     });
+    super::common::batch_started(jobs.len());
     let done: Vec<Row> = jobs
         .into_par_iter()
         .map(|j| {
@@ -468,6 +469,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             if let Some(b) = &bar {
                 b.inc(1);
             }
+            super::common::batch_step();
             r
         })
         .collect();

@@ -59,6 +59,7 @@ pub fn main() -> ExitCode {
             return ExitCode::from(code);
         }
     };
+    common::install_interrupt_handler();
     let result = match cli.command {
         Command::Fit(a) => fit::run(a),
         Command::Estimate(a) => estimate::run(a),

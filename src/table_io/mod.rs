@@ -13,6 +13,8 @@ pub mod measured;
 #[cfg(feature = "tables")]
 pub mod parquet;
 pub mod source;
+#[cfg(feature = "tables")]
+pub mod property_table;
 
 pub use atomic::{write_atomic, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};

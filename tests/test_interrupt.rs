@@ -1,0 +1,83 @@
+//! SIGINT during a long batch: no output file or temporary file is left, and the message says how far it got.
+#![cfg(unix)]
+
+use std::io::Write;
+use std::process::{Command, Stdio};
+use std::time::{Duration, Instant};
+
+fn bin() -> &'static str {
+    env!("CARGO_BIN_EXE_ebullio")
+}
+
+/// Wait for the child with a deadline; kill it (and fail) if it hangs.
+fn wait_with_deadline(
+    child: &mut std::process::Child,
+    limit: Duration,
+) -> std::process::ExitStatus {
+    let start = Instant::now();
+    loop {
+        if let Some(status) = child.try_wait().expect("try_wait") {
+            return status;
+        }
+        if start.elapsed() > limit {
+            let _ = child.kill();
+            panic!("ebullio did not stop within {limit:?} of SIGINT");
+        }
+        std::thread::sleep(Duration::from_millis(20));
+    }
+}
+
+#[test]
+fn sigint_during_estimate_batch_leaves_no_output_and_reports_progress() {
+    let dir = tempfile::tempdir().unwrap();
+    let input = dir.path().join("library.csv");
+    {
+        // Invented structures; enough rows that the batch is still running when the signal comes.
+        let mut f = std::io::BufWriter::new(std::fs::File::create(&input).unwrap());
+        writeln!(f, "smiles").unwrap();
+        let pool = [
+            "CCCCCCCCCCCCOC(=O)c1ccc(cc1)C(C)(C)C",
+            "Oc1ccc(cc1)CCCCCCCCC(=O)OCC",
+            "ClCCCCCCCCCCCCc1ccccc1",
+            "CC(C)CC(=O)Nc1ccc(cc1)C#N",
+        ];
+        for i in 0..1_500_000usize {
+            writeln!(f, "{}", pool[i % pool.len()]).unwrap();
+        }
+    }
+    let output = dir.path().join("estimates.csv");
+    let mut child = Command::new(bin())
+        .args(["estimate", "--input"])
+        .arg(&input)
+        .args(["--smiles-column", "smiles", "--format", "csv", "--output"])
+        .arg(&output)
+        .stdin(Stdio::null())
+        .stdout(Stdio::null())
+        .stderr(Stdio::piped())
+        .spawn()
+        .unwrap();
+    std::thread::sleep(Duration::from_millis(1500));
+    assert!(
+        child.try_wait().unwrap().is_none(),
+        "the batch finished before the signal; make the input larger"
+    );
+    let pid = child.id().to_string();
+    let sent = Command::new("kill").args(["-INT", &pid]).status().unwrap();
+    assert!(sent.success());
+    let status = wait_with_deadline(&mut child, Duration::from_secs(30));
+    let mut stderr = String::new();
+    std::io::Read::read_to_string(&mut child.stderr.take().unwrap(), &mut stderr).unwrap();
+    assert_eq!(status.code(), Some(130), "stderr: {stderr}");
+    assert!(
+        stderr.contains("interrupted") && stderr.contains("no output was written"),
+        "stderr: {stderr}"
+    );
+    assert!(!output.exists(), "a partial output file was left");
+    let leftovers: Vec<_> = std::fs::read_dir(dir.path())
+        .unwrap()
+        .filter_map(|e| e.ok())
+        .map(|e| e.file_name().to_string_lossy().into_owned())
+        .filter(|n| n != "library.csv")
+        .collect();
+    assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
+}
