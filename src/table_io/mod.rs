@@ -12,9 +12,9 @@ pub mod headings;
 pub mod measured;
 #[cfg(feature = "tables")]
 pub mod parquet;
-pub mod source;
 #[cfg(feature = "tables")]
 pub mod property_table;
+pub mod source;
 
 pub use atomic::{write_atomic, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
