@@ -22,6 +22,7 @@
 #![warn(missing_docs)]
 
 pub mod boiling;
+pub mod demo;
 pub mod estimate;
 pub mod fit;
 pub mod molecule;

@@ -1,11 +1,58 @@
-//! `ebullio demo`: placeholder until its issue lands (returns a usage error).
+//! `ebullio demo`: run the embedded (invented) demo scenario and write a report folder.
 
 use super::Outcome;
+use anyhow::Context;
+use std::path::PathBuf;
 
-/// (not built yet)
+/// Run the whole job on the embedded demo scenario (INVENTED in-house data of a
+/// fictional site) and write a report folder. Needs no input and no network.
 #[derive(Debug, clap::Args)]
-pub struct Args {}
+pub struct Args {
+    /// Folder to write (report.html, fits.json, estimates.json, the demo data).
+    #[arg(long, short = 'o', default_value = "ebullio-demo")]
+    pub output: PathBuf,
+    /// Write into the folder even if it is not empty.
+    #[arg(long)]
+    pub force: bool,
+}
 
-pub fn run(_args: Args) -> anyhow::Result<Outcome> {
-    anyhow::bail!("'demo' is not built yet")
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    let dir = &args.output;
+    if dir.exists() {
+        let non_empty = std::fs::read_dir(dir)
+            .with_context(|| format!("reading {}", dir.display()))?
+            .next()
+            .is_some();
+        if non_empty && !args.force {
+            return Err(super::InputError(format!(
+                "{} is not empty; choose another --output or pass --force",
+                dir.display()
+            ))
+            .into());
+        }
+    }
+    std::fs::create_dir_all(dir).with_context(|| format!("creating {}", dir.display()))?;
+    let run = ebullio::demo::run().map_err(anyhow::Error::msg)?;
+    let cmd = ebullio::report::html::shell_line(&std::env::args().collect::<Vec<_>>());
+    let w = |name: &str, text: &str| -> anyhow::Result<()> {
+        let p = dir.join(name);
+        ebullio::table_io::write_atomic(&p, text.as_bytes(), &[])
+            .with_context(|| format!("writing {}", p.display()))
+    };
+    w("report.html", &ebullio::demo::html(&run, &cmd))?;
+    w(
+        "fits.json",
+        &(serde_json::to_string_pretty(&run.fits)? + "\n"),
+    )?;
+    w(
+        "estimates.json",
+        &(serde_json::to_string_pretty(&run.estimates)? + "\n"),
+    )?;
+    std::fs::create_dir_all(dir.join("data"))?;
+    for (name, text) in ebullio::demo::FILES {
+        w(&format!("data/{name}"), text)?;
+    }
+    super::common::print_stdout(&ebullio::demo::summary(&run))?;
+    super::common::print_stdout(&format!("\nWrote {}/report.html\n", dir.display()))?;
+    Ok(Outcome::Success)
 }
