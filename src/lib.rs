@@ -21,11 +21,14 @@
 //! ```
 #![warn(missing_docs)]
 
-pub mod fit;
+pub mod boiling;
 pub mod estimate;
+pub mod fit;
 pub mod molecule;
 pub mod plan;
 pub mod reference;
+pub mod report;
+pub mod screen;
 pub mod table_io;
 pub mod units;
 pub mod vapor;

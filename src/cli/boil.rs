@@ -1,11 +1,342 @@
-//! `ebullio boil`: placeholder until its issue lands (returns a usage error).
+//! `ebullio boil`: boiling temperature at pressures, or vapor pressure at temperatures.
 
-use super::Outcome;
+use super::common::{Format, OutputArgs};
+use super::convert::parse_abc;
+use super::{InputError, Outcome};
+use anyhow::Context;
+use ebullio::boiling::{self, BoilResult, VACUUM_CAUTIONS};
+use ebullio::fit::report::FitReport;
+use ebullio::fit::FittedCurve;
+use ebullio::reference::Library;
+use ebullio::units::{parse_pressure, parse_temperature, ATM_PA};
+use ebullio::vapor::{AntoineConstants, AntoineConvention, Curve};
+use std::path::{Path, PathBuf};
 
-/// (not built yet)
+/// Boiling temperature at one or more pressures, or vapor pressure at temperatures.
+///
+/// Source: --antoine with --constants, --compound (bundled reference), --from
+/// fit.json, or --smiles (structure estimate, with its expected error).
+///
+/// Example: ebullio boil --compound toluene --pressure "15 mbar"
 #[derive(Debug, clap::Args)]
-pub struct Args {}
+pub struct Args {
+    /// Antoine constants "A,B,C" (with --constants).
+    #[arg(long, allow_hyphen_values = true)]
+    pub antoine: Option<String>,
+    /// Convention of --antoine, e.g. "log10,mmHg,degC".
+    #[arg(long)]
+    pub constants: Option<String>,
+    /// Validity range of --antoine, e.g. "20 degC..110 degC".
+    #[arg(long)]
+    pub range: Option<String>,
+    /// A reference compound (name, synonym or CAS number).
+    #[arg(long)]
+    pub compound: Option<String>,
+    /// A fit result written by `ebullio fit --format json`.
+    #[arg(long, value_name = "FIT.json")]
+    pub from: Option<PathBuf>,
+    /// A structure (SMILES): Joback/Lee-Kesler estimate.
+    #[arg(long)]
+    pub smiles: Option<String>,
+    /// Your own reference table (CSV, same columns as the bundled ones); takes precedence.
+    #[arg(long, value_name = "FILE")]
+    pub reference_table: Option<PathBuf>,
+    /// Pressure with unit, e.g. "15 mbar" (repeatable).
+    #[arg(long, short = 'p')]
+    pub pressure: Vec<String>,
+    /// Pressure range "LOW..HIGH", log-spaced by --steps.
+    #[arg(long)]
+    pub pressure_range: Option<String>,
+    /// Temperature with unit, e.g. "85 degC" (repeatable): gives vapor pressure.
+    #[arg(long, short = 't')]
+    pub temperature: Vec<String>,
+    /// Temperature range "LOW..HIGH", evenly spaced by --steps.
+    #[arg(long)]
+    pub temperature_range: Option<String>,
+    /// Number of points in a range.
+    #[arg(long, default_value_t = 10)]
+    pub steps: usize,
+    #[command(flatten)]
+    pub out: OutputArgs,
+}
 
-pub fn run(_args: Args) -> anyhow::Result<Outcome> {
-    anyhow::bail!("'boil' is not built yet")
+#[derive(serde::Serialize)]
+struct Report {
+    source: String,
+    mode: &'static str,
+    results: Vec<BoilResult>,
+    notes: Vec<String>,
+    cautions: Vec<String>,
+}
+
+fn split_range(s: &str, what: &str) -> Result<(String, String), InputError> {
+    s.split_once("..")
+        .map(|(a, b)| (a.trim().to_string(), b.trim().to_string()))
+        .ok_or_else(|| {
+            InputError(format!(
+                "--{what}-range '{s}': write it as \"LOW..HIGH\", e.g. \"1 mbar..1 atm\""
+            ))
+        })
+}
+
+fn read_text(p: &Path) -> anyhow::Result<String> {
+    std::fs::read_to_string(p).with_context(|| format!("reading {}", p.display()))
+}
+
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    // 1. Resolve the query.
+    let mut pressures = Vec::new();
+    for s in &args.pressure {
+        pressures.push(
+            parse_pressure(s)
+                .map_err(|e| InputError(format!("--pressure: {e}")))?
+                .pa(),
+        );
+    }
+    if let Some(r) = &args.pressure_range {
+        let (a, b) = split_range(r, "pressure")?;
+        let lo = parse_pressure(&a).map_err(|e| InputError(format!("--pressure-range: {e}")))?;
+        let hi = parse_pressure(&b).map_err(|e| InputError(format!("--pressure-range: {e}")))?;
+        pressures.extend(boiling::log_spaced(lo.pa(), hi.pa(), args.steps.max(2)));
+    }
+    let mut temps = Vec::new();
+    for s in &args.temperature {
+        temps.push(
+            parse_temperature(s)
+                .map_err(|e| InputError(format!("--temperature: {e}")))?
+                .kelvin(),
+        );
+    }
+    if let Some(r) = &args.temperature_range {
+        let (a, b) = split_range(r, "temperature")?;
+        let lo =
+            parse_temperature(&a).map_err(|e| InputError(format!("--temperature-range: {e}")))?;
+        let hi =
+            parse_temperature(&b).map_err(|e| InputError(format!("--temperature-range: {e}")))?;
+        temps.extend(boiling::lin_spaced(
+            lo.kelvin(),
+            hi.kelvin(),
+            args.steps.max(2),
+        ));
+    }
+    if pressures.is_empty() == temps.is_empty() {
+        return Err(InputError("give pressures (--pressure, --pressure-range) or temperatures (--temperature, --temperature-range), not both or neither".into()).into());
+    }
+    // 2. Resolve the source into one curve.
+    let n_sources = [
+        args.antoine.is_some(),
+        args.compound.is_some(),
+        args.from.is_some(),
+        args.smiles.is_some(),
+    ]
+    .iter()
+    .filter(|x| **x)
+    .count();
+    if n_sources != 1 {
+        return Err(InputError(
+            "give exactly one source: --antoine (with --constants), --compound, --from or --smiles"
+                .into(),
+        )
+        .into());
+    }
+    let mut notes = Vec::new();
+    let mut inputs: Vec<&Path> = Vec::new();
+    let (curve, source, k95): (Box<dyn Curve>, String, f64) = if let Some(abc) = &args.antoine {
+        let [a, b, c] = parse_abc(abc)?;
+        let conv: AntoineConvention = args
+            .constants
+            .as_deref()
+            .ok_or_else(|| {
+                InputError("--antoine needs --constants, e.g. \"log10,mmHg,degC\"".into())
+            })?
+            .parse()
+            .map_err(|e| InputError(format!("--constants: {e}")))?;
+        let mut k = AntoineConstants::new(a, b, c, conv);
+        if let Some(r) = &args.range {
+            let (lo, hi) = split_range(r, "temperature")?;
+            let lo = parse_temperature(&lo).map_err(|e| InputError(format!("--range: {e}")))?;
+            let hi = parse_temperature(&hi).map_err(|e| InputError(format!("--range: {e}")))?;
+            k = k.with_range_k(lo.kelvin(), hi.kelvin());
+        } else {
+            notes.push(
+                "No validity range given (--range), so extrapolation cannot be flagged.".into(),
+            );
+        }
+        notes.push(
+            "Constants given on the command line carry no uncertainty; no interval is shown."
+                .into(),
+        );
+        (
+            Box::new(k),
+            format!("Antoine constants {a}, {b}, {c} ({conv})"),
+            1.96,
+        )
+    } else if let Some(name) = &args.compound {
+        let lib_owned;
+        let lib = match &args.reference_table {
+            Some(p) => {
+                let text = read_text(p)?;
+                inputs.push(p);
+                lib_owned = Library::with_user_table(&p.display().to_string(), &text)?;
+                &lib_owned
+            }
+            None => Library::bundled(),
+        };
+        let c = lib.find(name)?;
+        let rc = c.best_curve().ok_or_else(|| {
+            InputError(format!(
+                "reference compound '{}' has a boiling point but no vapor-pressure curve",
+                c.name
+            ))
+        })?;
+        if !rc.note.is_empty() {
+            notes.push(format!("Reference row note: {}", rc.note));
+        }
+        if rc.valid_range_k().is_none() {
+            notes.push(
+                "The reference row states no validity range, so extrapolation cannot be flagged."
+                    .into(),
+            );
+        }
+        notes.push(format!(
+            "Interval from an assumed {:.1} % standard uncertainty in p of the reference.",
+            100.0 * rc.u_p_rel
+        ));
+        (
+            Box::new(rc.clone()),
+            format!("reference {}: {}", c.name, rc.source),
+            1.96,
+        )
+    } else if let Some(path) = &args.from {
+        let text = read_text(path)?;
+        inputs.push(path);
+        let report: FitReport = serde_json::from_str(&text).map_err(|e| {
+            InputError(format!(
+                "{}: not a fit result ({e}); write one with `ebullio fit DATA --format json`",
+                path.display()
+            ))
+        })?;
+        let fc = FittedCurve::from_report(&report);
+        let k = fc.t95();
+        let name = report.compound.clone().unwrap_or_else(|| "unnamed".into());
+        (
+            Box::new(fc),
+            format!(
+                "fit {} ({}, {}, {} points)",
+                path.display(),
+                name,
+                report.model,
+                report.n_points
+            ),
+            k,
+        )
+    } else {
+        let s = args.smiles.as_deref().unwrap_or_default();
+        let e = ebullio::estimate::estimate_smiles(s)
+            .map_err(|e| InputError(format!("--smiles '{s}': {e}")))?;
+        let c = e.curve().ok_or_else(|| {
+            InputError(format!(
+                "--smiles '{s}': no critical constants for this structure, so no curve"
+            ))
+        })?;
+        notes.push(format!(
+            "Structure estimate (Joback Tb {:.1} K, recommended {:.1} K, 90 % interval {:.1}-{:.1} K; Lee-Kesler curve): not a measurement.",
+            e.tb_joback_k, e.tb_k, e.tb_pi90_low_k, e.tb_pi90_high_k
+        ));
+        (Box::new(c), format!("structure estimate for {s}"), 1.96)
+    };
+    // 3. Compute (library) and print.
+    let (mode, results) = if pressures.is_empty() {
+        (
+            "vapor-pressure",
+            boiling::vapor_pressures(curve.as_ref(), &temps, k95),
+        )
+    } else {
+        (
+            "boiling-temperature",
+            boiling::boiling_points(curve.as_ref(), &pressures, k95),
+        )
+    };
+    if results.iter().any(|r| r.extrapolated) {
+        notes.push("Some results lie outside the source's validity range (extrapolated): treat them as rough.".into());
+    }
+    let vacuum = results
+        .iter()
+        .any(|r| r.p_pa.is_finite() && r.p_pa < ATM_PA);
+    let cautions = if vacuum {
+        VACUUM_CAUTIONS.iter().map(|s| s.to_string()).collect()
+    } else {
+        Vec::new()
+    };
+    let rep = Report {
+        source,
+        mode,
+        results,
+        notes,
+        cautions,
+    };
+    let text = match args.out.format() {
+        Format::Json => serde_json::to_string_pretty(&rep)? + "\n",
+        Format::Csv => {
+            let mut s = String::from(
+                "p_pa,t_k,ci95_low_k,ci95_high_k,ci95_low_pa,ci95_high_pa,extrapolated,error\n",
+            );
+            let o = |x: Option<f64>| x.map_or(String::new(), |v| format!("{v}"));
+            for r in &rep.results {
+                s.push_str(&format!(
+                    "{},{},{},{},{},{},{},\"{}\"\n",
+                    r.p_pa,
+                    r.t_k,
+                    o(r.ci95_low_k),
+                    o(r.ci95_high_k),
+                    o(r.ci95_low_pa),
+                    o(r.ci95_high_pa),
+                    r.extrapolated,
+                    r.error
+                ));
+            }
+            s
+        }
+        Format::Table => table(&rep),
+    };
+    args.out.emit(&text, &inputs)?;
+    Ok(Outcome::Success)
+}
+
+fn table(rep: &Report) -> String {
+    let mut s = format!("Source: {}\n\n", rep.source);
+    s.push_str("   p / mbar     t / degC    95 % interval / degC   note\n");
+    for r in &rep.results {
+        let ci = match (r.ci95_low_k, r.ci95_high_k, r.ci95_low_pa, r.ci95_high_pa) {
+            (Some(a), Some(b), _, _) => format!("{:8.2} .. {:8.2}", a - 273.15, b - 273.15),
+            (_, _, Some(a), Some(b)) => format!("{:7.2} .. {:7.2} mbar", a / 100.0, b / 100.0),
+            _ => "-".into(),
+        };
+        let note = if !r.error.is_empty() {
+            r.error.clone()
+        } else if r.extrapolated {
+            "extrapolated".into()
+        } else {
+            String::new()
+        };
+        s.push_str(&format!(
+            "{:11.3} {:12.2}    {:22} {}\n",
+            r.p_pa / 100.0,
+            r.t_k - 273.15,
+            ci,
+            note
+        ));
+    }
+    for n in &rep.notes {
+        s.push_str(&format!("\nNote: {n}"));
+    }
+    if !rep.cautions.is_empty() {
+        s.push_str("\n\nVacuum-distillation cautions:\n");
+        for c in &rep.cautions {
+            s.push_str(&format!("  - {c}\n"));
+        }
+    } else {
+        s.push('\n');
+    }
+    s
 }

@@ -1,11 +1,195 @@
-//! `ebullio check`: placeholder until its issue lands (returns a usage error).
+//! `ebullio check`: screen a property table for slips and outliers.
 
-use super::Outcome;
+use super::{InputError, Outcome};
+use std::path::PathBuf;
 
-/// (not built yet)
+/// Screen a property table (CSV or Parquet) before it goes into a plan.
+///
+/// Writes the table back, every row and column kept in order, with three
+/// added columns: `flags` (`;`-separated codes), `severity` (worst) and
+/// `diagnosis` (what is probably wrong). The summary goes to stderr when the
+/// table goes to stdout. Findings are screening aids, not measurements:
+/// confirm before using any value for a distillation.
+///
+/// Example: ebullio check solvents.csv --constants "log10,mmHg,degC" -o checked.csv
 #[derive(Debug, clap::Args)]
-pub struct Args {}
+pub struct Args {
+    /// The property table (CSV, or Parquet by its .parquet extension).
+    pub table: PathBuf,
+    /// Convention of A, B, C when the table has no convention column, e.g. "log10,mmHg,degC".
+    #[arg(long, value_name = "CONVENTION")]
+    pub constants: Option<String>,
+    /// Tolerance between boiling points that should agree, K.
+    #[arg(long, value_name = "K", default_value_t = 1.0)]
+    pub tolerance: f64,
+    /// A table of reference boiling points (same column rules; Tb listed or implied by A, B, C).
+    #[arg(long, value_name = "FILE")]
+    pub reference_table: Option<PathBuf>,
+    /// Skip the structure estimate (Joback) for rows with a SMILES.
+    #[arg(long)]
+    pub no_structure: bool,
+    /// Exit with code 1 when any finding is at or above this severity.
+    #[arg(long, value_enum, value_name = "SEVERITY")]
+    pub fail_on: Option<FailOn>,
+    /// Write the checked table to FILE (.csv or .parquet), atomically; default stdout (CSV).
+    #[arg(long, short = 'o', value_name = "FILE")]
+    pub output: Option<PathBuf>,
+    /// Rows listed in the summary.
+    #[arg(long, value_name = "N", default_value_t = 10)]
+    pub worst: usize,
+}
 
+/// `--fail-on` levels.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum FailOn {
+    /// Fail on warnings and errors.
+    Warning,
+    /// Fail on errors only.
+    Error,
+}
+
+#[cfg(not(feature = "tables"))]
 pub fn run(_args: Args) -> anyhow::Result<Outcome> {
-    anyhow::bail!("'check' is not built yet")
+    Err(InputError(
+        "'check' needs the `tables` feature (polars); rebuild with default features".into(),
+    )
+    .into())
+}
+
+#[cfg(feature = "tables")]
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    use anyhow::Context;
+    use ebullio::screen::{
+        screen, Identity, JobackEstimator, NoStructure, ReferenceEntry, ReferenceLookup, Rows,
+        ScreenContext, ScreenOptions, Severity, TableReference,
+    };
+    use ebullio::table_io::property_table::{
+        is_parquet, table_bytes, PropertyReadOptions, PropertyTable,
+    };
+    use ebullio::vapor::AntoineConvention;
+    use std::io::Write;
+
+    // Resolve options.
+    let constants: Option<AntoineConvention> = match &args.constants {
+        Some(s) => Some(
+            s.parse()
+                .map_err(|e| InputError(format!("--constants: {e}")))?,
+        ),
+        None => None,
+    };
+    if !(args.tolerance.is_finite() && args.tolerance > 0.0) {
+        return Err(InputError(format!(
+            "--tolerance must be a positive number of kelvin, not {}",
+            args.tolerance
+        ))
+        .into());
+    }
+    let read_opts = PropertyReadOptions { constants };
+    let table =
+        PropertyTable::read(&args.table, &read_opts).map_err(|e| InputError(e.to_string()))?;
+    let joback = JobackEstimator;
+    let estimator: &dyn ebullio::screen::StructureEstimator = if args.no_structure {
+        &NoStructure
+    } else {
+        &joback
+    };
+
+    let mut reference = TableReference::new();
+    if let Some(p) = &args.reference_table {
+        let rt = PropertyTable::read(p, &read_opts).map_err(|e| InputError(e.to_string()))?;
+        let implied = rt.implied_tb_k();
+        for i in 0..rt.n_rows() {
+            let r = rt.row(i);
+            let tb = r.tb_k.or_else(|| {
+                implied
+                    .as_ref()
+                    .and_then(|v| v.get(i).copied())
+                    .filter(|t| t.is_finite())
+            });
+            if let Some(tb) = tb {
+                let cas = r
+                    .cas
+                    .filter(|c| ebullio::reference::cas::validate(c).is_ok());
+                let key = r
+                    .smiles
+                    .and_then(|s| ebullio::molecule::parse_smiles(s).ok())
+                    .map(|m| m.structure_key());
+                let name = r
+                    .compound
+                    .map(str::to_string)
+                    .unwrap_or_else(|| format!("line {}", r.line));
+                reference.add(
+                    &Identity {
+                        name: r.compound,
+                        cas,
+                        structure_key: key.as_deref(),
+                    },
+                    ReferenceEntry {
+                        name,
+                        tb_k: tb,
+                        source: format!("{} line {}", p.display(), r.line),
+                    },
+                );
+            }
+        }
+    }
+    let ctx = ScreenContext {
+        options: ScreenOptions {
+            tolerance_k: args.tolerance,
+        },
+        estimator,
+        reference: &reference as &dyn ReferenceLookup,
+    };
+    let implied = table.implied_tb_k();
+    let report = screen(&table, implied.as_deref(), &ctx);
+
+    let n = report.len();
+    let flags: Vec<String> = (0..n).map(|i| report.flags(i)).collect();
+    let severity: Vec<String> = (0..n)
+        .map(|i| {
+            report
+                .severity(i)
+                .map(|s| s.as_str().to_string())
+                .unwrap_or_default()
+        })
+        .collect();
+    let diagnosis: Vec<String> = (0..n).map(|i| report.diagnosis(i)).collect();
+    let parquet = args.output.as_deref().is_some_and(is_parquet);
+    let out_name = args
+        .output
+        .clone()
+        .unwrap_or_else(|| PathBuf::from("<stdout>"));
+    let bytes = table_bytes(
+        &table.frame,
+        vec![
+            ("flags", flags),
+            ("severity", severity),
+            ("diagnosis", diagnosis),
+        ],
+        parquet,
+        &out_name,
+    )
+    .map_err(|e| InputError(e.to_string()))?;
+    let summary = report.summary(&table, args.worst);
+    match &args.output {
+        Some(p) => {
+            let mut inputs = vec![args.table.as_path()];
+            if let Some(r) = &args.reference_table {
+                inputs.push(r.as_path());
+            }
+            ebullio::table_io::write_atomic(p, &bytes, &inputs)
+                .with_context(|| format!("writing {}", p.display()))?;
+        }
+        None => super::common::print_stdout(&String::from_utf8_lossy(&bytes))?,
+    }
+    let _ = write!(std::io::stderr(), "{summary}");
+    let limit = match args.fail_on {
+        Some(FailOn::Warning) => Some(Severity::Warning),
+        Some(FailOn::Error) => Some(Severity::Error),
+        None => None,
+    };
+    Ok(match (limit, report.worst()) {
+        (Some(l), Some(w)) if w >= l => Outcome::Findings,
+        _ => Outcome::Success,
+    })
 }

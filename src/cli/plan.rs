@@ -1,11 +1,492 @@
-//! `ebullio plan`: placeholder until its issue lands (returns a usage error).
+//! `ebullio plan`: separation plan for two or more components (pressure, α, Fenske stages, Rayleigh curve, verdict).
 
-use super::Outcome;
+use super::common::{Format, OutputArgs};
+use super::{InputError, Outcome};
+use anyhow::Context;
+use ebullio::plan::{self, Component, Plan, PlanOptions, PressureRequest, RayleighModel};
+use ebullio::units::{parse_pressure, parse_temperature};
+use ebullio::vapor::{AntoineConstants, AntoineConvention};
+use std::fmt::Write as _;
+use std::path::PathBuf;
 
-/// (not built yet)
+/// Plan the separation of two or more components by batch distillation: the
+/// operating pressure, boiling points, ideal relative volatility (Raoult's
+/// law), Fenske minimum theoretical stages, the simple-distillation (Rayleigh)
+/// curve and a plain verdict. Ideal solution assumed: azeotropes and
+/// non-ideal mixtures are not modelled.
+///
+/// Example: ebullio plan --antoine "benzene:13.7819,2726.81,217.572" --antoine "toluene:13.9320,3056.96,217.625" --constants "ln,kPa,degC" --pressure "200 mbar"
 #[derive(Debug, clap::Args)]
-pub struct Args {}
+pub struct Args {
+    /// A component by Antoine constants, "NAME:A,B,C" (repeatable), in the
+    /// convention of --constants, or with its own: "NAME:A,B,C@log10,mmHg,degC".
+    #[arg(long, value_name = "NAME:A,B,C", allow_hyphen_values = true)]
+    pub antoine: Vec<String>,
+    /// A component estimated from structure (Joback boiling point, Lee–Kesler
+    /// curve), repeatable; a name may follow after a space: "CC(=O)C acetone".
+    #[arg(long, value_name = "SMILES")]
+    pub smiles: Vec<String>,
+    /// A component from a fit result file written by `ebullio fit --format json`
+    /// (repeatable; every compound in a batch file becomes a component).
+    #[arg(long, value_name = "FIT.json")]
+    pub from: Vec<PathBuf>,
+    /// Convention of the --antoine constants, e.g. "log10,mmHg,degC".
+    #[arg(long)]
+    pub constants: Option<String>,
+    /// Operating pressure with its unit, e.g. "50 mbar" [default: 1 atm].
+    #[arg(long, conflicts_with = "max_pot", allow_hyphen_values = true)]
+    pub pressure: Option<String>,
+    /// Maximum pot temperature, e.g. "120 degC": the plan uses the highest
+    /// pressure at which the heaviest component boils at or below it, rounded
+    /// down to 2 significant figures in mbar.
+    #[arg(long, allow_hyphen_values = true)]
+    pub max_pot: Option<String>,
+    /// Target purity (mole fraction) of both distillate and bottoms.
+    #[arg(long, default_value_t = 0.99)]
+    pub purity: f64,
+    /// Light-component purity of the distillate (overrides --purity).
+    #[arg(long)]
+    pub distillate_purity: Option<f64>,
+    /// Heavy-component purity of the bottoms (overrides --purity).
+    #[arg(long)]
+    pub bottoms_purity: Option<f64>,
+    /// Mole fraction of the lighter key component in the charge.
+    #[arg(long, default_value_t = 0.5)]
+    pub feed: f64,
+    /// Equilibrium for the Rayleigh curve: `varying` (Raoult, α follows the
+    /// pot temperature) or `constant` (the geometric-mean α).
+    #[arg(long, value_enum, default_value_t = RayleighArg::Varying)]
+    pub rayleigh: RayleighArg,
+    /// Also draw boiling points against pressure and the Rayleigh curve to this SVG file.
+    #[arg(long, value_name = "FILE.svg")]
+    pub plot: Option<PathBuf>,
+    #[command(flatten)]
+    pub out: OutputArgs,
+}
 
-pub fn run(_args: Args) -> anyhow::Result<Outcome> {
-    anyhow::bail!("'plan' is not built yet")
+/// `--rayleigh` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum RayleighArg {
+    /// α follows the bubble-point temperature (Raoult's law).
+    Varying,
+    /// Constant α.
+    Constant,
+}
+
+/// Parse one `--antoine` value into a component.
+fn antoine_component(
+    text: &str,
+    default: Option<AntoineConvention>,
+) -> Result<Component, InputError> {
+    let (body, conv) = match text.rsplit_once('@') {
+        Some((b, c)) => (
+            b,
+            Some(
+                c.parse::<AntoineConvention>()
+                    .map_err(|e| InputError(format!("--antoine '{text}': {e}")))?,
+            ),
+        ),
+        None => (text, None),
+    };
+    let (name, abc) = body.rsplit_once(':').ok_or_else(|| {
+        InputError(format!(
+            "--antoine '{text}': expected \"NAME:A,B,C\", e.g. \"toluene:13.9320,3056.96,217.625\""
+        ))
+    })?;
+    let name = name.trim();
+    if name.is_empty() {
+        return Err(InputError(format!(
+            "--antoine '{text}': the component name before ':' is empty"
+        )));
+    }
+    let [a, b, c] = super::convert::parse_abc(abc).map_err(|e| {
+        InputError(format!(
+            "--antoine '{text}': {}",
+            e.0.trim_start_matches("--antoine ")
+        ))
+    })?;
+    let conv = conv.or(default).ok_or_else(|| {
+        InputError(format!(
+            "--antoine '{text}': no convention; give --constants \"log10,mmHg,degC\" or append \"@log10,mmHg,degC\""
+        ))
+    })?;
+    Ok(Component::new(
+        name,
+        Box::new(AntoineConstants::new(a, b, c, conv)),
+        format!("Antoine constants given on the command line ({conv}); no uncertainty stated"),
+    ))
+}
+
+/// One `--smiles` value into a component.
+fn smiles_component(text: &str) -> Result<Component, InputError> {
+    let mut parts = text.split_whitespace();
+    let smiles = parts.next().ok_or_else(|| {
+        InputError("--smiles: empty value; give a SMILES such as \"CC(=O)C\"".into())
+    })?;
+    let rest: Vec<&str> = parts.collect();
+    let name = if rest.is_empty() {
+        smiles.to_string()
+    } else {
+        rest.join(" ")
+    };
+    let e = ebullio::estimate::estimate_smiles(smiles)
+        .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
+    let curve = e.curve().ok_or_else(|| {
+        InputError(format!(
+            "--smiles '{smiles}': no critical constants could be estimated, so there is no vapor-pressure curve"
+        ))
+    })?;
+    Ok(Component::new(
+        name,
+        Box::new(curve),
+        format!(
+            "structure estimate from SMILES {smiles} (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+            e.tb_k, e.tb_typical_error_k
+        ),
+    ))
+}
+
+/// The components in one fit result file.
+fn fit_components(path: &std::path::Path) -> Result<Vec<Component>, InputError> {
+    use ebullio::fit::{FitReport, FittedCurve};
+    let text = std::fs::read_to_string(path)
+        .map_err(|e| InputError(format!("--from {}: cannot read: {e}", path.display())))?;
+    let bad = |e: serde_json::Error| {
+        InputError(format!(
+            "--from {}: line {}, column {}: not a fit result (expected the JSON of `ebullio fit`): {e}",
+            path.display(),
+            e.line(),
+            e.column()
+        ))
+    };
+    let value: serde_json::Value = serde_json::from_str(&text).map_err(bad)?;
+    let reports: Vec<FitReport> = if value.is_array() {
+        serde_json::from_value(value).map_err(bad)?
+    } else {
+        vec![serde_json::from_value(value).map_err(bad)?]
+    };
+    let stem = path
+        .file_stem()
+        .and_then(|s| s.to_str())
+        .unwrap_or("fit")
+        .to_string();
+    let many = reports.len() > 1;
+    Ok(reports
+        .iter()
+        .enumerate()
+        .map(|(i, r)| {
+            let name = r.compound.clone().unwrap_or_else(|| {
+                if many {
+                    format!("{stem}#{}", i + 1)
+                } else {
+                    stem.clone()
+                }
+            });
+            let source = format!(
+                "{} fit of {} measured points from {} (uncertainty from the fit covariance)",
+                r.model,
+                r.n_points,
+                path.display()
+            );
+            Component::new(name, Box::new(FittedCurve::from_report(r)), source)
+        })
+        .collect())
+}
+
+/// Stage two of argument handling: build the components and options.
+fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
+    let default = args
+        .constants
+        .as_deref()
+        .map(|c| {
+            c.parse::<AntoineConvention>()
+                .map_err(|e| InputError(format!("--constants: {e}")))
+        })
+        .transpose()?;
+    let mut comps = args
+        .antoine
+        .iter()
+        .map(|t| antoine_component(t, default))
+        .collect::<Result<Vec<_>, _>>()?;
+    for s in &args.smiles {
+        comps.push(smiles_component(s)?);
+    }
+    for f in &args.from {
+        comps.extend(fit_components(f)?);
+    }
+    if comps.len() < 2 {
+        return Err(InputError(format!(
+            "a plan needs at least two components (any mix of --antoine, --smiles, --from); {} given",
+            comps.len()
+        )));
+    }
+    let pressure = match (&args.pressure, &args.max_pot) {
+        (Some(p), _) => PressureRequest::Given(
+            parse_pressure(p)
+                .map_err(|e| InputError(format!("--pressure: {e}")))?
+                .pa(),
+        ),
+        (None, Some(t)) => PressureRequest::MaxPot(
+            parse_temperature(t)
+                .map_err(|e| InputError(format!("--max-pot: {e}")))?
+                .kelvin(),
+        ),
+        (None, None) => PressureRequest::Given(plan::pressure::ATMOSPHERE_PA),
+    };
+    let opts = PlanOptions {
+        pressure,
+        distillate_purity: args.distillate_purity.unwrap_or(args.purity),
+        bottoms_purity: args.bottoms_purity.unwrap_or(args.purity),
+        feed_x_light: args.feed,
+        rayleigh_model: match args.rayleigh {
+            RayleighArg::Varying => RayleighModel::Varying,
+            RayleighArg::Constant => RayleighModel::Constant,
+        },
+    };
+    Ok((comps, opts))
+}
+
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    let (comps, opts) = resolve(&args)?;
+    let p = plan::plan(&comps, &opts).map_err(|e| InputError(e.to_string()))?;
+    if let Some(path) = &args.plot {
+        let svg = ebullio::report::plan_plot::plan_svg(&p, &comps)?;
+        let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();
+        ebullio::table_io::write_atomic(path, svg.as_bytes(), &inputs)
+            .with_context(|| format!("writing {}", path.display()))?;
+    }
+    let text = match args.out.format() {
+        Format::Json => serde_json::to_string_pretty(&p)? + "\n",
+        Format::Csv => csv_table(&p)?,
+        Format::Table => table(&p),
+    };
+    let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();
+    args.out.emit(&text, &inputs)?;
+    Ok(Outcome::Success)
+}
+
+fn c(t_k: f64) -> f64 {
+    t_k - 273.15
+}
+
+fn opt(v: Option<f64>, digits: usize) -> String {
+    v.map(|x| format!("{x:.digits$}"))
+        .unwrap_or_else(|| "—".to_string())
+}
+
+/// The pressure table as CSV (one row per pressure).
+fn csv_table(p: &Plan) -> anyhow::Result<String> {
+    let mut w = csv::Writer::from_writer(Vec::new());
+    let mut head = vec!["p/Pa".to_string()];
+    head.extend(p.components.iter().map(|c| format!("T_b({})/K", c.name)));
+    head.extend(
+        [
+            "delta_T_b/K",
+            "alpha",
+            "fenske_min_stages",
+            "extrapolated",
+            "operating",
+        ]
+        .map(String::from),
+    );
+    w.write_record(&head)?;
+    for r in &p.pressure_table {
+        let mut row = vec![format!("{}", r.p_pa)];
+        row.extend(r.tb_k.iter().map(|t| format!("{t:.3}")));
+        row.push(format!("{:.3}", r.delta_tb_k));
+        row.push(format!("{:.5}", r.relative_volatility));
+        row.push(opt(r.fenske_min_stages, 3).replace('—', ""));
+        row.push(r.extrapolated.to_string());
+        row.push(r.operating.to_string());
+        w.write_record(&row)?;
+    }
+    Ok(String::from_utf8(w.into_inner()?)?)
+}
+
+/// The readable report.
+fn table(p: &Plan) -> String {
+    let mut s = String::new();
+    let _ = writeln!(s, "Separation plan (ideal solution)");
+    let _ = write!(
+        s,
+        "Operating pressure: {} mbar ({:.1} Pa)",
+        mbar(p.pressure_pa),
+        p.pressure_pa
+    );
+    if let Some(m) = &p.pressure_choice.max_pot {
+        let _ = write!(
+            s,
+            " — from max pot {:.1} °C: {} boils there at {} mbar; {}",
+            c(m.max_pot_k),
+            m.heaviest,
+            mbar(m.unrounded_pa),
+            plan::pressure::ROUNDING_RULE
+        );
+    }
+    let _ = writeln!(s, "\n");
+    let _ = writeln!(
+        s,
+        "{:<24} {:>10} {:>12}  source",
+        "component", "t_b/°C", "u(t_b)/K"
+    );
+    for k in &p.components {
+        let _ = writeln!(
+            s,
+            "{:<24} {:>10.2} {:>12}  {}{}",
+            k.name,
+            c(k.tb_k),
+            opt(k.u_tb_k, 2),
+            k.source,
+            if k.extrapolated {
+                " [extrapolated]"
+            } else {
+                ""
+            }
+        );
+    }
+    let d = &p.relative_volatility_detail;
+    let _ = writeln!(
+        s,
+        "\nKey pair: {} / {}   Δt_b = {:.2} K",
+        d.pair.light, d.pair.heavy, d.pair.delta_tb_k
+    );
+    let _ = writeln!(
+        s,
+        "Relative volatility (Raoult): {:.4} at t_b({}), {:.4} at t_b({}), geometric mean {:.4} ({})",
+        d.pair.at_light_tb,
+        d.pair.light,
+        d.pair.at_heavy_tb,
+        d.pair.heavy,
+        p.relative_volatility,
+        if d.u_ln_alpha > 0.0 {
+            format!("95 % {:.4}–{:.4}", d.ci95_low, d.ci95_high)
+        } else {
+            "no uncertainty stated by the sources".to_string()
+        }
+    );
+    let no_u = d.u_ln_alpha <= 0.0;
+    let f = &p.fenske_detail;
+    let _ = writeln!(
+        s,
+        "Fenske minimum theoretical stages (x_D = {}, x_B = {}): {}{}",
+        f.distillate_purity,
+        f.bottoms_purity,
+        opt(p.fenske_min_stages, 2),
+        if no_u {
+            String::new()
+        } else {
+            format!(
+                " (95 % {}–{})",
+                opt(f.ci95_low, 2),
+                f.ci95_high
+                    .map(|v| format!("{v:.2}"))
+                    .unwrap_or_else(|| "unbounded".into())
+            )
+        }
+    );
+    if p.pairs.len() > 1 {
+        let _ = writeln!(s, "\nAdjacent pairs:");
+        for q in &p.pairs {
+            let _ = writeln!(
+                s,
+                "  {:<20} {:<20} Δt_b {:>7.2} K  α {:>8.4}  N_min {}",
+                q.light,
+                q.heavy,
+                q.delta_tb_k,
+                q.relative_volatility,
+                opt(q.fenske_min_stages, 2)
+            );
+        }
+    }
+    let _ = writeln!(s, "\nAcross pressures (key pair):");
+    let _ = write!(s, "{:>12}", "p/mbar");
+    for k in &p.components {
+        let _ = write!(s, " {:>14}", format!("t_b {}", truncate(&k.name, 9)));
+    }
+    let _ = writeln!(s, " {:>9} {:>8} {:>7}", "Δt_b/K", "α", "N_min");
+    for r in &p.pressure_table {
+        let _ = write!(s, "{:>12}", mbar(r.p_pa));
+        for t in &r.tb_k {
+            let _ = write!(s, " {:>14.2}", c(*t));
+        }
+        let _ = writeln!(
+            s,
+            " {:>9.2} {:>8.4} {:>7}{}{}",
+            r.delta_tb_k,
+            r.relative_volatility,
+            opt(r.fenske_min_stages, 2),
+            if r.operating { "  <- operating" } else { "" },
+            if r.extrapolated {
+                "  (extrapolated)"
+            } else {
+                ""
+            }
+        );
+    }
+    if let Some(r) = &p.rayleigh {
+        let _ = writeln!(
+            s,
+            "\nSimple batch distillation (Rayleigh, {}), charge x({}) = {}:",
+            r.model, p.key_pair[0], r.feed_x_light
+        );
+        let _ = writeln!(
+            s,
+            "{:>10} {:>10} {:>12} {:>14} {:>10}",
+            "distilled", "pot x", "distillate y", "all distillate", "head/°C"
+        );
+        for pt in r.points.iter().step_by(2) {
+            let _ = writeln!(
+                s,
+                "{:>9.0}% {:>10.4} {:>12.4} {:>14.4} {:>10}",
+                100.0 * pt.fraction_distilled,
+                pt.pot_x_light,
+                pt.vapor_y_light,
+                pt.distillate_avg_x_light,
+                opt(pt.head_t_k.map(c), 2)
+            );
+        }
+        if let Some(cut) = &r.cut_to_bottoms_target {
+            let _ = writeln!(
+                s,
+                "Stripping the pot to x = {:.4}: {:.1} % of the charge distilled, mean distillate purity {:.4}",
+                cut.pot_x_light,
+                100.0 * cut.fraction_distilled,
+                cut.distillate_avg_x_light
+            );
+        }
+    }
+    let _ = writeln!(s, "\nVerdict: {}", p.verdict.message);
+    let _ = writeln!(s, "{}", p.verdict.rule_of_thumb.message);
+    if !p.findings.is_empty() {
+        let _ = writeln!(s, "\nFindings:");
+        for f in &p.findings {
+            let sev = serde_json::to_value(f.severity)
+                .ok()
+                .and_then(|v| v.as_str().map(String::from))
+                .unwrap_or_default();
+            let _ = writeln!(s, "  [{sev}] {}: {}", f.code, f.message);
+        }
+    }
+    let _ = writeln!(s, "\nLimits: {}", p.limits);
+    let _ = writeln!(s, "Cautions:");
+    for k in p.cautions {
+        let _ = writeln!(s, "  - {k}");
+    }
+    s
+}
+
+/// A pressure in mbar with sensible digits.
+fn mbar(p_pa: f64) -> String {
+    let m = p_pa / 100.0;
+    if m >= 100.0 {
+        format!("{m:.2}")
+    } else if m >= 1.0 {
+        format!("{m:.3}")
+    } else {
+        format!("{m:.4}")
+    }
+}
+
+fn truncate(s: &str, n: usize) -> String {
+    s.chars().take(n).collect()
 }

@@ -10,7 +10,7 @@ pub const CAUTIONS: &[&str] = &[
     "Boiling points and volatilities here are estimates from pure-component curves, not measurements of your mixture.",
     "Most organic vapors are flammable: exclude ignition sources and vent the vacuum pump exhaust safely.",
     "Vacuum glassware can implode: inspect it for star cracks, shield it, and never heat a closed system.",
-    "Heating under vacuum can bump: stir or use a capillary bleed, and bring the vacuum down before the heat up.",
+    "Heating under vacuum can bump: stir or use a capillary bleed, and reach the working vacuum before heating.",
     "Test ethers and other peroxide formers for peroxides before distilling, and never distill to dryness.",
     "Check the plan against local codes and have it reviewed by qualified process-safety staff before use.",
 ];

@@ -17,6 +17,11 @@
 //! mapping `ln α ± 1.96·u(ln α)` through the Fenske equation (a monotone
 //! map), and is open-ended when the lower α bound reaches 1.
 //!
+//! The sources are treated as independent. Structure estimates of related
+//! compounds (homologues) share much of their error, so for them this
+//! overstates the uncertainty of α; a fit or reference value for at least
+//! one component narrows it.
+//!
 //! A source with no stated uncertainty (constants typed in) contributes zero
 //! and is named in the result so the output can say so.
 //!

@@ -1,4 +1,306 @@
 //! Bundled reference data: published Antoine constants, boiling points, the
 //! IAPWS-IF97 water line, and lookup by name, CAS number and structure.
+//!
+//! The tables in `reference-data/` are embedded in the binary and parsed once,
+//! on first use ([`Library::bundled`]). A user's table (same columns) can be
+//! layered on top with [`Library::with_user_table`]; its rows take precedence
+//! and are named (file and line) wherever they are used.
+//!
+//! ```
+//! use ebullio::reference::Library;
+//! use ebullio::vapor::Curve;
+//! let lib = Library::bundled();
+//! let ethanol = lib.find("Ethyl Alcohol").unwrap();
+//! assert_eq!(ethanol.name, "ethanol");
+//! let curve = ethanol.best_curve().unwrap();
+//! assert!((curve.t_at(101_325.0).unwrap() - 351.4).abs() < 0.5);
+//! // Structure lookup: any valid spelling.
+//! assert_eq!(lib.find_smiles("OCC").unwrap().name, "ethanol");
+//! ```
 
 pub mod cas;
+pub mod compare;
+mod curve;
+pub mod fit_check;
+pub mod table;
+pub mod water;
+
+pub use curve::{ReferenceCurve, ReferenceCurveKind};
+pub use table::{AntoineRow, Origin, TableError, TbRow, DEFAULT_U_P_REL};
+
+use std::collections::BTreeMap;
+use std::sync::OnceLock;
+
+/// The bundled Antoine table (`reference-data/antoine-published.csv`).
+pub const ANTOINE_CSV: &str = include_str!("../../reference-data/antoine-published.csv");
+/// The bundled boiling-point table (`reference-data/normal-boiling-points-dev.csv`).
+pub const TB_CSV: &str = include_str!("../../reference-data/normal-boiling-points-dev.csv");
+/// The bundled synonyms (`reference-data/synonyms.csv`).
+pub const SYNONYMS_CSV: &str = include_str!("../../reference-data/synonyms.csv");
+
+/// One compound with every reference value and its source.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Compound {
+    /// Canonical name (the boiling-point table's, else the first table's).
+    pub name: String,
+    /// Other names it is found by.
+    pub synonyms: Vec<String>,
+    /// SMILES, when a table gives one.
+    pub smiles: Option<String>,
+    /// CAS number, only where a source gives one.
+    pub cas: Option<String>,
+    /// Normal boiling point rows (user rows first).
+    pub tb: Vec<TbRow>,
+    /// Antoine rows (user rows first).
+    pub antoine: Vec<AntoineRow>,
+}
+
+impl Compound {
+    /// The preferred normal boiling point row (user's first, else the bundled one).
+    pub fn tb_row(&self) -> Option<&TbRow> {
+        self.tb.first()
+    }
+
+    /// True for water, whose reference curve is IAPWS-IF97.
+    pub fn is_water(&self) -> bool {
+        self.name.eq_ignore_ascii_case("water")
+    }
+
+    /// The best reference curve: a user's Antoine row if any; for water the
+    /// IAPWS-IF97 saturation line; otherwise the bundled Antoine row with a
+    /// stated range and no from-memory note, widest range first.
+    pub fn best_curve(&self) -> Option<ReferenceCurve> {
+        if let Some(r) = self.antoine.iter().find(|r| r.origin.user) {
+            return Some(ReferenceCurve::antoine(r));
+        }
+        if self.is_water() {
+            return Some(ReferenceCurve::water());
+        }
+        let score = |r: &AntoineRow| {
+            let width = r.constants.range_k.map_or(0.0, |(lo, hi)| hi - lo);
+            let clean = !r.note.to_ascii_lowercase().contains("memory");
+            (r.constants.range_k.is_some(), clean, width)
+        };
+        self.antoine
+            .iter()
+            .max_by(|a, b| {
+                score(a)
+                    .partial_cmp(&score(b))
+                    .unwrap_or(std::cmp::Ordering::Equal)
+            })
+            .map(ReferenceCurve::antoine)
+    }
+}
+
+/// Why a lookup failed.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum LookupError {
+    /// A CAS-shaped query with a wrong check digit or format.
+    #[error(transparent)]
+    Cas(#[from] cas::CasError),
+    /// Nothing matched.
+    #[error("no reference compound '{query}'{}", suggest(.near))]
+    NotFound {
+        /// What was asked for.
+        query: String,
+        /// Names containing the query, to help.
+        near: Vec<String>,
+    },
+    /// The SMILES could not be read.
+    #[error("'{smiles}' is not a SMILES this program can read: {reason}")]
+    BadSmiles {
+        /// The SMILES.
+        smiles: String,
+        /// The reader's message.
+        reason: String,
+    },
+}
+
+fn suggest(near: &[String]) -> String {
+    if near.is_empty() {
+        "; `ebullio reference` lists them".into()
+    } else {
+        format!("; did you mean: {}?", near.join(", "))
+    }
+}
+
+/// The reference library: bundled tables plus, optionally, a user's table.
+#[derive(Debug, Clone, Default)]
+pub struct Library {
+    compounds: Vec<Compound>,
+    index: BTreeMap<String, usize>,
+    /// The user's table, if one was added.
+    pub user_table: Option<String>,
+}
+
+fn key(name: &str) -> String {
+    name.trim().to_lowercase()
+}
+
+impl Library {
+    /// The bundled library, parsed once on first use. The bundled tables are
+    /// tested, so a parse failure here is a build defect (empty library + test failure).
+    pub fn bundled() -> &'static Library {
+        static LIB: OnceLock<Library> = OnceLock::new();
+        LIB.get_or_init(|| Library::from_tables(None).unwrap_or_default())
+    }
+
+    /// Build from the bundled tables, plus a user table `(file name, text)`.
+    pub fn from_tables(user: Option<(&str, &str)>) -> Result<Library, TableError> {
+        let mut lib = Library::default();
+        let syn = table::parse_synonyms(SYNONYMS_CSV, "reference-data/synonyms.csv")?;
+        let bundled_tb = table::parse(
+            TB_CSV,
+            "reference-data/normal-boiling-points-dev.csv",
+            false,
+        )?;
+        let bundled_a = table::parse(ANTOINE_CSV, "reference-data/antoine-published.csv", false)?;
+        let user_rows = match user {
+            Some((file, text)) => {
+                lib.user_table = Some(file.to_string());
+                Some(table::parse(text, file, true)?)
+            }
+            None => None,
+        };
+        for r in bundled_tb.tb {
+            lib.entry(&r.compound).tb.push(r);
+        }
+        for (c, s) in &syn {
+            let i = lib.entry_index(c);
+            lib.compounds[i].synonyms.push(s.clone());
+            lib.index.entry(key(s)).or_insert(i);
+        }
+        for r in bundled_a.antoine {
+            lib.entry(&r.compound).antoine.push(r);
+        }
+        if let Some(u) = user_rows {
+            for r in u.tb.into_iter().rev() {
+                lib.entry(&r.compound).tb.insert(0, r);
+            }
+            for r in u.antoine.into_iter().rev() {
+                lib.entry(&r.compound).antoine.insert(0, r);
+            }
+        }
+        for c in &mut lib.compounds {
+            c.smiles = c.tb.iter().find_map(|r| r.smiles.clone());
+            c.cas = c.tb.iter().find_map(|r| r.cas.clone());
+        }
+        // Drop empty entries created only by a synonym line.
+        let keep: Vec<bool> = lib
+            .compounds
+            .iter()
+            .map(|c| !(c.tb.is_empty() && c.antoine.is_empty()))
+            .collect();
+        if keep.iter().any(|k| !k) {
+            let old = std::mem::take(&mut lib.compounds);
+            lib.index.clear();
+            for (c, k) in old.into_iter().zip(keep) {
+                if k {
+                    let i = lib.compounds.len();
+                    lib.index.insert(key(&c.name), i);
+                    for s in &c.synonyms {
+                        lib.index.entry(key(s)).or_insert(i);
+                    }
+                    lib.compounds.push(c);
+                }
+            }
+        }
+        Ok(lib)
+    }
+
+    /// Bundled tables plus the user's table at `path` (read by the caller).
+    pub fn with_user_table(file: &str, text: &str) -> Result<Library, TableError> {
+        Library::from_tables(Some((file, text)))
+    }
+
+    fn entry_index(&mut self, name: &str) -> usize {
+        if let Some(&i) = self.index.get(&key(name)) {
+            return i;
+        }
+        let i = self.compounds.len();
+        self.compounds.push(Compound {
+            name: name.trim().to_string(),
+            synonyms: Vec::new(),
+            smiles: None,
+            cas: None,
+            tb: Vec::new(),
+            antoine: Vec::new(),
+        });
+        self.index.insert(key(name), i);
+        i
+    }
+
+    fn entry(&mut self, name: &str) -> &mut Compound {
+        let i = self.entry_index(name);
+        &mut self.compounds[i]
+    }
+
+    /// Every compound, in table order.
+    pub fn compounds(&self) -> &[Compound] {
+        &self.compounds
+    }
+
+    /// Find by name or synonym (case-insensitive), or by CAS number when the
+    /// query looks like one (digits-digits-digit; the check digit is validated).
+    pub fn find(&self, query: &str) -> Result<&Compound, LookupError> {
+        let q = query.trim();
+        let cas_like =
+            !q.is_empty() && q.chars().all(|c| c.is_ascii_digit() || c == '-') && q.contains('-');
+        if cas_like {
+            let cas = cas::validate(q)?;
+            return self
+                .compounds
+                .iter()
+                .find(|c| c.cas.as_deref() == Some(cas.as_str()))
+                .ok_or_else(|| LookupError::NotFound {
+                    query: q.to_string(),
+                    near: Vec::new(),
+                });
+        }
+        if let Some(&i) = self.index.get(&key(q)) {
+            return Ok(&self.compounds[i]);
+        }
+        let kq = key(q);
+        let near = self
+            .index
+            .keys()
+            .filter(|k| !kq.is_empty() && (k.contains(&kq) || kq.contains(k.as_str())))
+            .take(5)
+            .cloned()
+            .collect();
+        Err(LookupError::NotFound {
+            query: q.to_string(),
+            near,
+        })
+    }
+
+    /// Find by structure: any valid SMILES spelling of the same molecule
+    /// (matched on [`crate::molecule::Molecule::structure_key`]).
+    pub fn find_smiles(&self, smiles: &str) -> Result<&Compound, LookupError> {
+        let k = structure_key(smiles).map_err(|reason| LookupError::BadSmiles {
+            smiles: smiles.to_string(),
+            reason,
+        })?;
+        self.compounds
+            .iter()
+            .find(|c| {
+                c.smiles
+                    .as_deref()
+                    .and_then(|s| structure_key(s).ok())
+                    .is_some_and(|ck| ck == k)
+            })
+            .ok_or_else(|| LookupError::NotFound {
+                query: smiles.to_string(),
+                near: Vec::new(),
+            })
+    }
+}
+
+fn structure_key(smiles: &str) -> Result<String, String> {
+    crate::molecule::parse_smiles(smiles)
+        .map(|m| m.structure_key())
+        .map_err(|e| e.to_string())
+}
+
+#[cfg(test)]
+mod tests;

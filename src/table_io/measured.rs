@@ -29,7 +29,7 @@ pub struct MeasuredSet {
 }
 
 use crate::units::{PressureUnit, TemperatureUnit};
-use std::path::{Path, PathBuf};
+use std::path::Path;
 
 /// How to read a measured-data file.
 #[derive(Debug, Clone, Default)]
@@ -66,27 +66,545 @@ pub struct MeasuredData {
     pub warnings: Vec<ReadWarning>,
 }
 
-/// Error reading measured data: always names the file and, where it applies,
-/// the line and column.
-#[derive(Debug, Clone, PartialEq, thiserror::Error)]
-#[error("{file}: {message}")]
-pub struct ReadError {
-    /// The file.
-    pub file: PathBuf,
-    /// 1-based line, where it applies.
-    pub line: Option<u64>,
-    /// Column heading, where it applies.
-    pub column: Option<String>,
-    /// What was wrong and what was expected.
-    pub message: String,
+use super::error::{display_name, Locus, ReadError, ReadErrorKind};
+use super::headings::{classify, Role};
+use super::source::{decode_text, detect_format, read_bytes, TableFormat};
+use crate::units::{Pressure, Temperature};
+use std::collections::HashMap;
+
+/// A table as text cells, whatever the file format: what the validator reads.
+struct RawTable {
+    headers: Vec<String>,
+    /// (line or row number, cells)
+    rows: Vec<(u64, Vec<String>)>,
+    locus: Locus,
 }
 
 /// Read measured (T, p) data from CSV, Parquet (by extension or magic bytes) or stdin (`-`).
-pub fn read_measured(path: &Path, _opts: &ReadOptions) -> Result<MeasuredData, ReadError> {
-    Err(ReadError {
-        file: path.to_path_buf(),
-        line: None,
-        column: None,
-        message: "the measured-data reader is not built yet".into(),
+///
+/// ```
+/// use ebullio::table_io::{read_measured, ReadOptions};
+/// let dir = std::env::temp_dir().join(format!("ebullio-rm-{}", std::process::id()));
+/// std::fs::create_dir_all(&dir).unwrap();
+/// let f = dir.join("d.csv");
+/// std::fs::write(&f, "t/degC,p/kPa\n50,12.3\n60,18.9\n").unwrap();
+/// let d = read_measured(&f, &ReadOptions::default()).unwrap();
+/// assert_eq!(d.sets[0].points.len(), 2);
+/// assert!((d.sets[0].points[0].t_k - 323.15).abs() < 1e-12);
+/// assert!((d.sets[0].points[0].p_pa - 12_300.0).abs() < 1e-9);
+/// std::fs::remove_dir_all(&dir).unwrap();
+/// ```
+pub fn read_measured(path: &Path, opts: &ReadOptions) -> Result<MeasuredData, ReadError> {
+    let bytes = read_bytes(path)?;
+    read_measured_bytes(path, &bytes, opts)
+}
+
+/// Read measured data from bytes already in memory (`path` is used for messages and
+/// format detection only).
+pub fn read_measured_bytes(
+    path: &Path,
+    bytes: &[u8],
+    opts: &ReadOptions,
+) -> Result<MeasuredData, ReadError> {
+    let raw = match detect_format(path, bytes) {
+        TableFormat::Parquet => parquet_raw(path, bytes)?,
+        TableFormat::Csv => csv_raw(path, bytes, opts)?,
+    };
+    validate(path, raw, opts)
+}
+
+fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, ReadError> {
+    let text = decode_text(path, bytes)?;
+    if text.trim().is_empty() {
+        return Err(ReadError::file(
+            path,
+            ReadErrorKind::EmptyFile,
+            "the file is empty; expected a header line such as \"t/degC,p/kPa\" and data rows",
+        ));
+    }
+    let first = text.lines().next().unwrap_or_default();
+    let delim = if opts.decimal_comma { b';' } else { b',' };
+    if !opts.decimal_comma && first.contains(';') && !first.contains(',') {
+        return Err(ReadError::file(
+            path,
+            ReadErrorKind::Delimiter,
+            "the columns are separated by semicolons (a decimal-comma file?); use --decimal-comma",
+        )
+        .at_line(1, Locus::Line));
+    }
+    let mut rdr = csv::ReaderBuilder::new()
+        .has_headers(false)
+        .flexible(true)
+        .delimiter(delim)
+        .trim(csv::Trim::All)
+        .from_reader(text.as_bytes());
+    let mut headers: Option<Vec<String>> = None;
+    let mut rows = Vec::new();
+    for rec in rdr.records() {
+        let rec = rec.map_err(|e| {
+            let line = e.position().map(|p| p.line()).unwrap_or(0);
+            ReadError::file(path, ReadErrorKind::CsvSyntax, format!("broken CSV: {e}"))
+                .at_line(line.max(1), Locus::Line)
+        })?;
+        let line = rec.position().map(|p| p.line()).unwrap_or(0);
+        let cells: Vec<String> = rec.iter().map(str::to_string).collect();
+        // Skip blank lines and comment lines starting with '#'.
+        if cells.iter().all(|c| c.is_empty()) || cells.first().is_some_and(|c| c.starts_with('#')) {
+            continue;
+        }
+        match &headers {
+            None => headers = Some(cells),
+            Some(h) => {
+                if cells.len() != h.len() {
+                    return Err(ReadError::file(
+                        path,
+                        ReadErrorKind::RaggedRow,
+                        format!(
+                            "this row has {} fields but the header has {}",
+                            cells.len(),
+                            h.len()
+                        ),
+                    )
+                    .at_line(line, Locus::Line));
+                }
+                let cells = if opts.decimal_comma {
+                    cells.into_iter().map(|c| c.replace(',', ".")).collect()
+                } else {
+                    cells
+                };
+                rows.push((line, cells));
+            }
+        }
+    }
+    let headers = headers.ok_or_else(|| {
+        ReadError::file(
+            path,
+            ReadErrorKind::EmptyFile,
+            "the file has no header line",
+        )
+    })?;
+    Ok(RawTable {
+        headers,
+        rows,
+        locus: Locus::Line,
     })
+}
+
+#[cfg(feature = "tables")]
+fn parquet_raw(path: &Path, bytes: &[u8]) -> Result<RawTable, ReadError> {
+    super::parquet::read_as_text(path, bytes).map(|(headers, rows)| RawTable {
+        headers,
+        rows,
+        locus: Locus::Row,
+    })
+}
+
+#[cfg(not(feature = "tables"))]
+fn parquet_raw(path: &Path, _bytes: &[u8]) -> Result<RawTable, ReadError> {
+    Err(ReadError::file(
+        path,
+        ReadErrorKind::Parquet,
+        "this build of ebullio has no Parquet support (built without the `tables` feature); convert the file to CSV",
+    ))
+}
+
+struct Columns {
+    t: (usize, Role),
+    p: (usize, Role),
+    ut: Option<(usize, Role)>,
+    up: Option<(usize, Role)>,
+    compound: Option<usize>,
+    smiles: Option<usize>,
+}
+
+fn find_columns(path: &Path, headers: &[String], locus: Locus) -> Result<Columns, ReadError> {
+    let mut t = None;
+    let mut p = None;
+    let mut ut = None;
+    let mut up = None;
+    let mut compound = None;
+    let mut smiles = None;
+    let at_header = |e: ReadError, i: usize, h: &str| match locus {
+        Locus::Line => e.at_line(1, Locus::Line).at_column(i, h),
+        Locus::Row => e.at_column(i, h),
+    };
+    for (i, h) in headers.iter().enumerate() {
+        let role = classify(h).map_err(|e| {
+            at_header(
+                ReadError::file(
+                    path,
+                    ReadErrorKind::HeadingUnit,
+                    format!("heading '{h}': {}", e.message),
+                ),
+                i,
+                h,
+            )
+        })?;
+        let slot = match role {
+            Role::Temperature(_) => &mut t,
+            Role::Pressure(_) => &mut p,
+            Role::UTemperature(_) => &mut ut,
+            Role::UPressure(_) => &mut up,
+            Role::Compound => {
+                compound.get_or_insert(i);
+                continue;
+            }
+            Role::Smiles => {
+                smiles.get_or_insert(i);
+                continue;
+            }
+            Role::Other => continue,
+        };
+        if let Some((j, _)) = *slot {
+            let other: &String = &headers[j];
+            return Err(at_header(
+                ReadError::file(
+                    path,
+                    ReadErrorKind::AmbiguousColumn,
+                    format!("both '{other}' and '{h}' look like the same quantity; keep one (or rename the other, e.g. to 'note')"),
+                ),
+                i,
+                h,
+            ));
+        }
+        *slot = Some((i, role));
+    }
+    let t = t.ok_or_else(|| {
+        ReadError::file(
+            path,
+            ReadErrorKind::NoTemperatureColumn,
+            format!(
+                "no temperature column among [{}]; expected a heading such as T/K, t/degC or T [K]",
+                headers.join(", ")
+            ),
+        )
+    })?;
+    let p = p.ok_or_else(|| {
+        ReadError::file(
+            path,
+            ReadErrorKind::NoPressureColumn,
+            format!(
+                "no pressure column among [{}]; expected a heading such as p/kPa, p/mmHg or p (bar)",
+                headers.join(", ")
+            ),
+        )
+    })?;
+    Ok(Columns {
+        t,
+        p,
+        ut,
+        up,
+        compound,
+        smiles,
+    })
+}
+
+fn number(
+    path: &Path,
+    line: u64,
+    locus: Locus,
+    col: usize,
+    heading: &str,
+    cell: &str,
+) -> Result<f64, ReadError> {
+    let err = |kind, msg: String| {
+        ReadError::file(path, kind, msg)
+            .at_line(line, locus)
+            .at_column(col, heading)
+    };
+    if cell.is_empty() {
+        return Err(err(
+            ReadErrorKind::EmptyCell,
+            "empty cell; expected a number".to_string(),
+        ));
+    }
+    let v: f64 = cell.parse().map_err(|_| {
+        let hint = if cell.contains(',') {
+            " (a decimal comma? use --decimal-comma with semicolon-separated files)"
+        } else {
+            ""
+        };
+        err(
+            ReadErrorKind::NotANumber,
+            format!("'{cell}' is not a number{hint}"),
+        )
+    })?;
+    if !v.is_finite() {
+        return Err(err(
+            ReadErrorKind::NotFinite,
+            format!("'{cell}' is not a finite number"),
+        ));
+    }
+    Ok(v)
+}
+
+fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredData, ReadError> {
+    let locus = raw.locus;
+    let cols = find_columns(path, &raw.headers, locus)?;
+    if raw.rows.is_empty() {
+        return Err(ReadError::file(
+            path,
+            ReadErrorKind::HeaderOnly,
+            "the file has a header but no data rows",
+        ));
+    }
+    let heading = |i: usize| raw.headers[i].as_str();
+    let (ti, Role::Temperature(t_head)) = cols.t else {
+        unreachable!("find_columns returns a temperature role")
+    };
+    let (pi, Role::Pressure(p_head)) = cols.p else {
+        unreachable!("find_columns returns a pressure role")
+    };
+    let t_unit = opts.t_unit.or(t_head).ok_or_else(|| {
+        ReadError::file(
+            path,
+            ReadErrorKind::HeadingUnit,
+            format!(
+                "heading '{}' has no unit; write it as T/K or t/degC, or pass --t-unit",
+                heading(ti)
+            ),
+        )
+        .at_column(ti, heading(ti))
+    })?;
+    let p_unit = opts.p_unit.or(p_head).ok_or_else(|| {
+        ReadError::file(
+            path,
+            ReadErrorKind::HeadingUnit,
+            format!(
+                "heading '{}' has no unit; write it as p/kPa or p/mmHg, or pass --p-unit",
+                heading(pi)
+            ),
+        )
+        .at_column(pi, heading(pi))
+    })?;
+    let ut_unit = cols.ut.map(|(i, r)| match r {
+        Role::UTemperature(u) => (i, u.unwrap_or(t_unit)),
+        _ => (i, t_unit),
+    });
+    let up_unit = cols.up.map(|(i, r)| match r {
+        Role::UPressure(u) => (i, u.unwrap_or(p_unit)),
+        _ => (i, p_unit),
+    });
+
+    let mut data = MeasuredData {
+        source: display_name(path),
+        sets: Vec::new(),
+        warnings: Vec::new(),
+    };
+    let mut set_index: HashMap<String, usize> = HashMap::new();
+    let mut seen_rows: HashMap<Vec<String>, u64> = HashMap::new();
+    for (line, cells) in raw.rows {
+        let cell = |i: usize| cells.get(i).map(String::as_str).unwrap_or("");
+        let tv = number(path, line, locus, ti, heading(ti), cell(ti))?;
+        let t = Temperature::new(tv, t_unit).map_err(|e| {
+            ReadError::file(path, ReadErrorKind::BelowAbsoluteZero, e.to_string())
+                .at_line(line, locus)
+                .at_column(ti, heading(ti))
+        })?;
+        let pv = number(path, line, locus, pi, heading(pi), cell(pi))?;
+        let p = Pressure::new(pv, p_unit).map_err(|e| {
+            ReadError::file(path, ReadErrorKind::NonPositivePressure, e.to_string())
+                .at_line(line, locus)
+                .at_column(pi, heading(pi))
+        })?;
+        let uncertainty = |spec: Option<(usize, f64)>| -> Result<Option<f64>, ReadError> {
+            let Some((i, scale)) = spec else {
+                return Ok(None);
+            };
+            if cell(i).is_empty() {
+                return Ok(None);
+            }
+            let v = number(path, line, locus, i, heading(i), cell(i))?;
+            if v < 0.0 {
+                return Err(ReadError::file(
+                    path,
+                    ReadErrorKind::NegativeUncertainty,
+                    format!(
+                        "uncertainty '{}' is negative; expected a standard uncertainty ≥ 0",
+                        cell(i)
+                    ),
+                )
+                .at_line(line, locus)
+                .at_column(i, heading(i)));
+            }
+            Ok(Some(v * scale))
+        };
+        let u_t_k = uncertainty(ut_unit.map(|(i, u)| (i, u.kelvin_per_degree())))?;
+        let u_p_pa = uncertainty(up_unit.map(|(i, u)| (i, u.pa_per_unit())))?;
+
+        if let Some(first) = seen_rows.get(&cells) {
+            data.warnings.push(ReadWarning {
+                file: display_name(path),
+                line,
+                code: "repeated-row".into(),
+                message: format!(
+                    "this row repeats line {first} exactly; both are kept (remove one if it was pasted twice)"
+                ),
+            });
+        } else {
+            seen_rows.insert(cells.clone(), line);
+        }
+
+        let compound = cols
+            .compound
+            .map(|i| cell(i).to_string())
+            .filter(|s| !s.is_empty());
+        let key = compound.clone().unwrap_or_default();
+        let idx = *set_index.entry(key).or_insert_with(|| {
+            data.sets.push(MeasuredSet {
+                compound: compound.clone(),
+                smiles: None,
+                points: Vec::new(),
+            });
+            data.sets.len() - 1
+        });
+        let set = &mut data.sets[idx];
+        if set.smiles.is_none() {
+            set.smiles = cols
+                .smiles
+                .map(|i| cell(i).to_string())
+                .filter(|s| !s.is_empty());
+        }
+        set.points.push(MeasuredPoint {
+            t_k: t.kelvin(),
+            p_pa: p.pa(),
+            u_t_k,
+            u_p_pa,
+            line,
+        });
+    }
+    Ok(data)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use proptest::prelude::*;
+    use std::path::PathBuf;
+
+    fn read(text: &str, opts: &ReadOptions) -> Result<MeasuredData, ReadError> {
+        read_measured_bytes(&PathBuf::from("in.csv"), text.as_bytes(), opts)
+    }
+    fn kind(text: &str) -> ReadErrorKind {
+        read(text, &ReadOptions::default()).unwrap_err().kind
+    }
+
+    #[test]
+    fn reads_units_uncertainties_and_compounds() {
+        let d = read(
+            "compound,t/°C,p/mmHg,u(T)/K,u(p)/mmHg,note\nA,50,100,0.1,0.5,x\nB,60,200,,,\nA,70,300,0.1,0.5,\n",
+            &ReadOptions::default(),
+        )
+        .unwrap();
+        assert_eq!(d.sets.len(), 2);
+        assert_eq!(d.sets[0].compound.as_deref(), Some("A"));
+        assert_eq!(d.sets[0].points.len(), 2);
+        let p = &d.sets[0].points[0];
+        assert!((p.t_k - 323.15).abs() < 1e-12);
+        assert!((p.p_pa - 100.0 * 133.322_387_415).abs() < 1e-9);
+        assert_eq!(p.u_t_k, Some(0.1));
+        assert!((p.u_p_pa.unwrap() - 0.5 * 133.322_387_415).abs() < 1e-12);
+        assert_eq!(p.line, 2);
+        assert_eq!(d.sets[1].points[0].u_t_k, None);
+    }
+
+    #[test]
+    fn bom_decimal_comma_and_overrides() {
+        let d = read("\u{feff}T/K,p/kPa\n300,3.5\n", &ReadOptions::default()).unwrap();
+        assert_eq!(d.sets[0].points[0].t_k, 300.0);
+        let o = ReadOptions {
+            decimal_comma: true,
+            ..Default::default()
+        };
+        let d = read("t/degC;p/kPa\n50,5;12,25\n", &o).unwrap();
+        assert!((d.sets[0].points[0].t_k - 323.65).abs() < 1e-12);
+        assert_eq!(kind("t/degC;p/kPa\n50,5;12,25\n"), ReadErrorKind::Delimiter);
+        let o = ReadOptions {
+            t_unit: Some(crate::units::TemperatureUnit::Celsius),
+            p_unit: Some(crate::units::PressureUnit::Bar),
+            ..Default::default()
+        };
+        let d = read("T,p\n100,1\n", &o).unwrap();
+        assert!((d.sets[0].points[0].p_pa - 1e5).abs() < 1e-9);
+    }
+
+    #[test]
+    fn every_bad_case_has_its_kind_and_position() {
+        use ReadErrorKind as K;
+        assert_eq!(kind(""), K::EmptyFile);
+        assert_eq!(kind("T/K,p/kPa\n"), K::HeaderOnly);
+        assert_eq!(kind("T/K,x\n1,2\n"), K::NoPressureColumn);
+        assert_eq!(kind("x,p/kPa\n1,2\n"), K::NoTemperatureColumn);
+        assert_eq!(kind("T/K,t/degC,p/kPa\n1,2,3\n"), K::AmbiguousColumn);
+        assert_eq!(kind("T/K,p/furlong\n1,2\n"), K::HeadingUnit);
+        assert_eq!(kind("T/K,p/kPa\n300,abc\n"), K::NotANumber);
+        assert_eq!(kind("T/K,p/kPa\n300,\n"), K::EmptyCell);
+        assert_eq!(kind("T/K,p/kPa\n300,NaN\n"), K::NotFinite);
+        assert_eq!(kind("T/K,p/kPa\n300,inf\n"), K::NotFinite);
+        assert_eq!(kind("T/K,p/kPa\n300,-1\n"), K::NonPositivePressure);
+        assert_eq!(kind("T/K,p/kPa\n300,0\n"), K::NonPositivePressure);
+        assert_eq!(kind("t/degC,p/kPa\n-300,1\n"), K::BelowAbsoluteZero);
+        assert_eq!(
+            kind("T/K,p/kPa,u(T)/K\n300,1,-0.1\n"),
+            K::NegativeUncertainty
+        );
+        assert_eq!(kind("T/K,p/kPa\n300,1,5\n"), K::RaggedRow);
+        assert_eq!(kind("T,p\n300,1\n"), K::HeadingUnit);
+        let e = read("T/K,p/kPa\n300,1\n310,x\n", &ReadOptions::default()).unwrap_err();
+        assert_eq!(e.line, Some(3));
+        assert_eq!(e.column.as_deref(), Some("p/kPa"));
+        assert!(
+            e.to_string()
+                .starts_with("in.csv, line 3, column 2 (p/kPa)"),
+            "{e}"
+        );
+        let e = read_measured_bytes(
+            Path::new("in.csv"),
+            b"T/K,p/kPa\n3\xB000,1\n",
+            &ReadOptions::default(),
+        )
+        .unwrap_err();
+        assert_eq!(e.kind, K::NotUtf8);
+        assert_eq!(e.line, Some(2));
+    }
+
+    #[test]
+    fn duplicate_rows_are_kept_and_warned() {
+        let d = read("T/K,p/kPa\n300,1\n300,1\n310,2\n", &ReadOptions::default()).unwrap();
+        assert_eq!(d.sets[0].points.len(), 3);
+        assert_eq!(d.warnings.len(), 1);
+        assert_eq!(d.warnings[0].code, "repeated-row");
+        assert_eq!(d.warnings[0].line, 3);
+    }
+
+    proptest! {
+        #[test]
+        fn arbitrary_bytes_never_panic(bytes in proptest::collection::vec(any::<u8>(), 0..300)) {
+            let _ = read_measured_bytes(Path::new("x.csv"), &bytes, &ReadOptions::default());
+        }
+
+        #[test]
+        fn arbitrary_csv_text_never_panics(s in "[Tp/Kka,;0-9.\\- \n\"e]{0,120}") {
+            let _ = read(&s, &ReadOptions::default());
+            let _ = read(&s, &ReadOptions { decimal_comma: true, ..Default::default() });
+        }
+
+        // Round trip: values written in a random unit read back in SI within 1e-12.
+        #[test]
+        fn written_values_read_back(
+            pts in proptest::collection::vec((1.0f64..2000.0, 1e-2f64..1e7), 1..20),
+            tu in proptest::sample::select(crate::units::TemperatureUnit::ALL.to_vec()),
+            pu in proptest::sample::select(crate::units::PressureUnit::ALL.to_vec()),
+        ) {
+            let mut text = format!("T/{},p/{}\n", tu.symbol(), pu.symbol());
+            for (t, p) in &pts {
+                text.push_str(&format!("{:e},{:e}\n", tu.from_kelvin(*t), pu.from_pa(*p)));
+            }
+            let d = read(&text, &ReadOptions::default()).unwrap();
+            for ((t, p), got) in pts.iter().zip(&d.sets[0].points) {
+                prop_assert!(((got.t_k - t) / t).abs() < 1e-12);
+                prop_assert!(((got.p_pa - p) / p).abs() < 1e-12);
+            }
+        }
+    }
 }

@@ -1,14 +1,24 @@
 //! The one place that reads and writes tables and files.
 //!
-//! Measured (T, p) data come in through [`measured`]; every output file goes
-//! out through [`atomic`], which writes a temporary file beside the target and
-//! renames it, and refuses to write over an input. Commands never parse files
-//! themselves.
+//! Measured (T, p) data come in through [`measured`] (CSV via the csv crate
+//! with exact line and column in every error; Parquet via polars behind the
+//! `tables` feature); every output file goes out through [`atomic`], which
+//! writes a temporary file beside the target and renames it, and refuses to
+//! write over an input. Commands never parse files themselves.
 
 pub mod atomic;
+pub mod error;
+pub mod headings;
 pub mod measured;
+#[cfg(feature = "tables")]
+pub mod parquet;
+pub mod source;
+#[cfg(feature = "tables")]
+pub mod property_table;
 
 pub use atomic::{write_atomic, OutputError};
+pub use error::{Locus, ReadError, ReadErrorKind};
 pub use measured::{
-    read_measured, MeasuredData, MeasuredPoint, MeasuredSet, ReadError, ReadOptions, ReadWarning,
+    read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
+    ReadWarning,
 };

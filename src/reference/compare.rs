@@ -1,0 +1,214 @@
+//! Fitted curve against reference: differences over the common range, and findings.
+//!
+//! Over the overlap of the two validity ranges, the relative difference in p,
+//! δ(T) = p_fit/p_ref − 1, is sampled at 41 temperatures; its maximum and RMS
+//! are reported, with the difference in normal boiling point. A finding is
+//! raised where |δ| exceeds the allowance
+//! √((1.96·u_fit(T))² + tol_p²), with u_fit the fit's own standard
+//! uncertainty in ln p (from `Curve::t_uncertainty_k` times the slope), and
+//! likewise for Tb with `tol_tb_k`. The tolerances stand for the reference's
+//! uncertainty: defaults 2 % in p and 0.5 K in Tb (common practice).
+
+use super::{Compound, ReferenceCurve};
+use crate::units::ATM_PA;
+use crate::vapor::Curve;
+
+/// Tolerances for the reference's own uncertainty.
+#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize)]
+pub struct Tolerances {
+    /// Relative tolerance in p (0.02 = 2 %).
+    pub p_rel: f64,
+    /// Tolerance in normal boiling point, K.
+    pub tb_k: f64,
+}
+
+impl Default for Tolerances {
+    fn default() -> Self {
+        Tolerances {
+            p_rel: 0.02,
+            tb_k: 0.5,
+        }
+    }
+}
+
+/// A finding of the comparison (stable code, severity, one sentence).
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct Finding {
+    /// Stable kebab-case code.
+    pub code: String,
+    /// info, warning or error.
+    pub severity: String,
+    /// One sentence.
+    pub message: String,
+}
+
+/// The result of holding a fitted curve against a reference compound.
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct Comparison {
+    /// Reference compound name.
+    pub compound: String,
+    /// The reference curve's source.
+    pub reference_source: String,
+    /// Overlap of the temperature ranges, K (None: no overlap).
+    pub overlap_k: Option<(f64, f64)>,
+    /// Gap between the ranges, K, when they do not overlap.
+    pub gap_k: Option<f64>,
+    /// Maximum |p_fit/p_ref − 1| over the overlap, percent.
+    pub max_rel_diff_pct: Option<f64>,
+    /// RMS of p_fit/p_ref − 1 over the overlap, percent.
+    pub rms_rel_diff_pct: Option<f64>,
+    /// Fitted minus reference normal boiling point, K.
+    pub tb_diff_k: Option<f64>,
+    /// Reference normal boiling point used, K.
+    pub tb_reference_k: Option<f64>,
+    /// Findings.
+    pub findings: Vec<Finding>,
+}
+
+fn finding(code: &str, severity: &str, message: String) -> Finding {
+    Finding {
+        code: code.into(),
+        severity: severity.into(),
+        message,
+    }
+}
+
+/// Compare `fitted` (with its fitted range `fit_range_k`) with the compound's best reference curve.
+pub fn compare(
+    fitted: &dyn Curve,
+    fit_range_k: (f64, f64),
+    compound: &Compound,
+    tol: Tolerances,
+) -> Option<Comparison> {
+    let reference = compound.best_curve()?;
+    Some(compare_with(fitted, fit_range_k, compound, &reference, tol))
+}
+
+/// Compare with a given reference curve of `compound`.
+pub fn compare_with(
+    fitted: &dyn Curve,
+    fit_range_k: (f64, f64),
+    compound: &Compound,
+    reference: &ReferenceCurve,
+    tol: Tolerances,
+) -> Comparison {
+    let mut out = Comparison {
+        compound: compound.name.clone(),
+        reference_source: reference.source.clone(),
+        overlap_k: None,
+        gap_k: None,
+        max_rel_diff_pct: None,
+        rms_rel_diff_pct: None,
+        tb_diff_k: None,
+        tb_reference_k: None,
+        findings: Vec::new(),
+    };
+    // Reference range: stated, else ±30 K about its Tb (common practice, flagged).
+    let ref_range = reference.valid_range_k().or_else(|| {
+        let tb = reference.t_at(ATM_PA)?;
+        out.findings.push(finding(
+            "reference-range-unstated",
+            "info",
+            format!("The reference row for {} states no temperature range; it was compared within 30 K of its boiling point.", compound.name),
+        ));
+        Some((tb - 30.0, tb + 30.0))
+    });
+    if let Some((rlo, rhi)) = ref_range {
+        let (lo, hi) = (fit_range_k.0.max(rlo), fit_range_k.1.min(rhi));
+        if hi > lo {
+            out.overlap_k = Some((lo, hi));
+            let (mut max, mut ss, mut n, mut worst) = (0.0f64, 0.0, 0usize, None);
+            for i in 0..=40 {
+                let t = lo + (hi - lo) * i as f64 / 40.0;
+                let d = (fitted.ln_p(t) - reference.ln_p(t)).exp() - 1.0;
+                if !d.is_finite() {
+                    continue;
+                }
+                let slope = fitted.d_ln_p_dt(t);
+                let u_fit = fitted
+                    .t_uncertainty_k(fitted.p_pa(t))
+                    .map_or(0.0, |u| u * slope.abs());
+                let allow = ((1.96 * u_fit).powi(2) + tol.p_rel.powi(2)).sqrt();
+                if d.abs() > allow
+                    && worst.is_none_or(|(wd, _, _): (f64, f64, f64)| d.abs() > wd.abs())
+                {
+                    worst = Some((d, t, allow));
+                }
+                max = max.max(d.abs());
+                ss += d * d;
+                n += 1;
+            }
+            if n > 0 {
+                out.max_rel_diff_pct = Some(100.0 * max);
+                out.rms_rel_diff_pct = Some(100.0 * (ss / n as f64).sqrt());
+            }
+            if let Some((d, t, allow)) = worst {
+                out.findings.push(finding(
+                    "reference-pressure-disagrees",
+                    "warning",
+                    format!(
+                        "The fitted vapor pressure differs from the reference for {} by {:+.1} % at {:.1} K, more than the {:.1} % the fit's 95 % interval and the reference's uncertainty allow.",
+                        compound.name, 100.0 * d, t, 100.0 * allow
+                    ),
+                ));
+            }
+        } else {
+            let gap = if fit_range_k.1 < rlo {
+                rlo - fit_range_k.1
+            } else {
+                fit_range_k.0 - rhi
+            };
+            out.gap_k = Some(gap);
+            out.findings.push(finding(
+                "reference-no-overlap",
+                "info",
+                format!(
+                    "The fitted range {:.1}-{:.1} K and the reference range {:.1}-{:.1} K for {} do not overlap (gap {:.1} K), so the curves were not compared point by point.",
+                    fit_range_k.0, fit_range_k.1, rlo, rhi, compound.name, gap
+                ),
+            ));
+        }
+    }
+    let tb_ref = compound
+        .tb_row()
+        .map(|r| r.tb_k)
+        .or_else(|| reference.t_at(ATM_PA));
+    out.tb_reference_k = tb_ref;
+    if let (Some(tr), Some(tf)) = (tb_ref, fitted.t_at(ATM_PA)) {
+        let d = tf - tr;
+        out.tb_diff_k = Some(d);
+        let u = fitted.t_uncertainty_k(ATM_PA).unwrap_or(0.0);
+        let allow = ((1.96 * u).powi(2) + tol.tb_k.powi(2)).sqrt();
+        if d.abs() > allow {
+            out.findings.push(finding(
+                "reference-tb-disagrees",
+                "warning",
+                format!(
+                    "The fitted normal boiling point {:.2} K differs from the reference {:.2} K for {} by {:+.2} K, more than the {:.2} K allowed.",
+                    tf, tr, compound.name, d, allow
+                ),
+            ));
+        }
+    }
+    out
+}
+
+/// Fitted Tb against a structure estimate: a finding when the difference is
+/// beyond three times the method's typical error for the structure.
+pub fn compare_structure(
+    fitted_tb_k: f64,
+    estimate_tb_k: f64,
+    typical_error_k: f64,
+    smiles: &str,
+) -> Option<Finding> {
+    let d = fitted_tb_k - estimate_tb_k;
+    (d.abs() > 3.0 * typical_error_k).then(|| {
+        finding(
+            "structure-tb-disagrees",
+            "warning",
+            format!(
+                "The fitted normal boiling point {fitted_tb_k:.1} K differs from the structure estimate {estimate_tb_k:.1} K for {smiles} by {d:+.1} K, more than three times the method's typical error ({typical_error_k:.1} K)."
+            ),
+        )
+    })
+}

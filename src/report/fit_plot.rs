@@ -1,0 +1,154 @@
+//! SVG plot of a fit: ln p against 1000/T with data, curve, 95 % band, flagged points, residuals.
+//!
+//! Pure-Rust plotters SVG backend: text is written as SVG `<text>`, so no
+//! system fonts are needed. [`svg`] returns the document as a `String` so an
+//! HTML report can inline it.
+
+use crate::fit::{FitReport, FittedCurve};
+use plotters::prelude::*;
+
+/// The plot as an SVG document. Never fails: a drawing error yields an SVG
+/// that says so.
+pub fn svg(r: &FitReport) -> String {
+    let mut buf = String::new();
+    if let Err(e) = draw(r, &mut buf) {
+        return format!(
+            "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"640\" height=\"80\"><text x=\"10\" y=\"40\">plot failed: {}</text></svg>",
+            e.to_string().replace('<', "&lt;")
+        );
+    }
+    buf
+}
+
+type DrawResult = Result<(), Box<dyn std::error::Error>>;
+
+fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
+    let curve = FittedCurve::from_report(r);
+    let t95 = curve.t95();
+    let (lo, hi) = (r.t_range_k[0], r.t_range_k[1]);
+    let pad = 0.05 * (hi - lo).max(1.0);
+    let (t_lo, t_hi) = ((lo - pad).max(1.0), hi + pad);
+    let x = |t: f64| 1000.0 / t;
+    let n = 120;
+    let line: Vec<(f64, f64, f64)> = (0..=n)
+        .map(|i| {
+            let t = t_lo + (t_hi - t_lo) * i as f64 / n as f64;
+            let (v, se) = curve.ln_p_with_se(t);
+            (x(t), v, t95 * se)
+        })
+        .filter(|(_, v, _)| v.is_finite())
+        .collect();
+    let ys: Vec<f64> = r.points.iter().map(|p| p.p_pa.ln()).collect();
+    let ymin = ys
+        .iter()
+        .chain(line.iter().map(|l| &l.1))
+        .copied()
+        .fold(f64::INFINITY, f64::min);
+    let ymax = ys
+        .iter()
+        .chain(line.iter().map(|l| &l.1))
+        .copied()
+        .fold(f64::NEG_INFINITY, f64::max);
+    let ypad = 0.05 * (ymax - ymin).max(0.1);
+    let root = SVGBackend::with_string(buf, (720, 640)).into_drawing_area();
+    root.fill(&WHITE)?;
+    let (top, bottom) = root.split_vertically(440);
+    let title = format!(
+        "{}: {} fit, {} points",
+        r.compound.as_deref().unwrap_or("data"),
+        r.model,
+        r.n_points
+    );
+    let mut ch = ChartBuilder::on(&top)
+        .caption(title, ("sans-serif", 18))
+        .margin(10)
+        .x_label_area_size(35)
+        .y_label_area_size(55)
+        .build_cartesian_2d(x(t_hi)..x(t_lo), (ymin - ypad)..(ymax + ypad))?;
+    ch.configure_mesh()
+        .x_desc("1000 K / T")
+        .y_desc("ln(p/Pa)")
+        .draw()?;
+    let band: Vec<(f64, f64)> = line
+        .iter()
+        .map(|(a, v, h)| (*a, v + h))
+        .chain(line.iter().rev().map(|(a, v, h)| (*a, v - h)))
+        .filter(|(_, v)| v.is_finite())
+        .collect();
+    ch.draw_series(std::iter::once(Polygon::new(band, BLUE.mix(0.2))))?
+        .label("95 % band");
+    ch.draw_series(LineSeries::new(
+        line.iter().map(|(a, v, _)| (*a, *v)),
+        &BLUE,
+    ))?
+    .label("fit")
+    .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 20, y)], BLUE));
+    ch.draw_series(
+        r.points
+            .iter()
+            .filter(|p| !p.outlier)
+            .map(|p| Circle::new((x(p.t_k), p.p_pa.ln()), 4, BLACK.filled())),
+    )?
+    .label("measured")
+    .legend(|(x, y)| Circle::new((x + 10, y), 4, BLACK.filled()));
+    ch.draw_series(
+        r.points
+            .iter()
+            .filter(|p| p.outlier)
+            .map(|p| Cross::new((x(p.t_k), p.p_pa.ln()), 7, RED.stroke_width(2))),
+    )?
+    .label("flagged")
+    .legend(|(x, y)| Cross::new((x + 10, y), 5, RED.stroke_width(2)));
+    ch.configure_series_labels()
+        .background_style(WHITE.mix(0.8))
+        .border_style(BLACK)
+        .draw()?;
+    let dev: Vec<f64> = r.points.iter().map(|p| p.rel_dev_pct).collect();
+    let dmax = dev.iter().map(|d| d.abs()).fold(0.0, f64::max).max(1e-3) * 1.15;
+    let mut rc = ChartBuilder::on(&bottom)
+        .margin(10)
+        .x_label_area_size(35)
+        .y_label_area_size(55)
+        .build_cartesian_2d(x(t_hi)..x(t_lo), -dmax..dmax)?;
+    rc.configure_mesh()
+        .x_desc("1000 K / T")
+        .y_desc("100 (p - p_fit)/p_fit")
+        .draw()?;
+    rc.draw_series(LineSeries::new(vec![(x(t_hi), 0.0), (x(t_lo), 0.0)], &BLUE))?;
+    rc.draw_series(r.points.iter().map(|p| {
+        let c = if p.outlier { RED } else { BLACK };
+        Circle::new((x(p.t_k), p.rel_dev_pct), 4, c.filled())
+    }))?;
+    root.present()?;
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use crate::fit::{fit_points, FitOptions, Point};
+
+    #[test]
+    fn plot_is_svg_with_labels_and_points() {
+        let pts: Vec<Point> = (0..10)
+            .map(|i| {
+                let t = 300.0 + 7.0 * i as f64;
+                let bump = if i == 4 {
+                    0.1
+                } else {
+                    0.001 * (i as f64).sin()
+                };
+                Point {
+                    t_k: t,
+                    p_pa: (22.0 - 3500.0 / (t - 45.0) + bump).exp(),
+                    u_t_k: None,
+                    u_p_pa: None,
+                }
+            })
+            .collect();
+        let r = fit_points(Some("HV-17".into()), &pts, &FitOptions::default()).unwrap();
+        let s = super::svg(&r);
+        assert!(s.starts_with("<svg"), "{}", &s[..s.len().min(200)]);
+        assert!(s.contains("HV-17") && s.contains("ln(p/Pa)"));
+        assert!(s.matches("<circle").count() >= 10);
+    }
+}

@@ -1,0 +1,11 @@
+//! Output documents: SVG plots and one self-contained HTML report per run; no numerics.
+//!
+//! Output only: this module formats results the domain modules computed. Plots
+//! are drawn with plotters' SVG backend and inlined into the HTML by
+//! [`html::Report`], which needs no script, font, style sheet or image from
+//! anywhere else.
+
+pub mod curve_plot;
+pub mod fit_plot;
+pub mod html;
+pub mod plan_plot;

@@ -1,0 +1,156 @@
+//! The same compound listed more than once with disagreeing boiling points.
+//!
+//! Rows are the same compound when they share a valid CAS number, a
+//! structure key, or a name (case and spacing ignored); the links are
+//! transitive (union–find), so a row matched by CAS to one row and by name to
+//! another joins both.
+
+use super::finding::{Code, Finding};
+use super::sources::name_key;
+use std::collections::HashMap;
+
+/// Identity keys and boiling point of one row, for grouping.
+#[derive(Debug, Clone, Default)]
+pub struct DupKey<'a> {
+    /// Valid CAS number.
+    pub cas: Option<&'a str>,
+    /// Structure key.
+    pub structure: Option<&'a str>,
+    /// Compound name.
+    pub name: Option<&'a str>,
+    /// Boiling point to compare (listed, else implied), K; NaN if none.
+    pub tb_k: f64,
+    /// Line number.
+    pub line: usize,
+}
+
+fn find(parent: &mut [usize], mut i: usize) -> usize {
+    while parent[i] != i {
+        parent[i] = parent[parent[i]];
+        i = parent[i];
+    }
+    i
+}
+
+/// Findings per row index (`(row, finding)`) for groups whose boiling points
+/// spread by more than `tol_k`.
+pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)> {
+    let n = keys.len();
+    let mut parent: Vec<usize> = (0..n).collect();
+    let mut cas: HashMap<&str, usize> = HashMap::new();
+    let mut structure: HashMap<&str, usize> = HashMap::new();
+    let mut names: HashMap<String, usize> = HashMap::new();
+    let union = |parent: &mut Vec<usize>, a: usize, b: usize| {
+        let (ra, rb) = (find(parent, a), find(parent, b));
+        if ra != rb {
+            parent[ra.max(rb)] = ra.min(rb);
+        }
+    };
+    let mut linked = false;
+    for (i, k) in keys.iter().enumerate() {
+        if let Some(c) = k.cas {
+            if let Some(&j) = cas.get(c) {
+                union(&mut parent, i, j);
+                linked = true;
+            } else {
+                cas.insert(c, i);
+            }
+        }
+        if let Some(s) = k.structure {
+            if let Some(&j) = structure.get(s) {
+                union(&mut parent, i, j);
+                linked = true;
+            } else {
+                structure.insert(s, i);
+            }
+        }
+        if let Some(nm) = k.name.filter(|s| !s.trim().is_empty()) {
+            let key = name_key(nm);
+            if let Some(&j) = names.get(&key) {
+                union(&mut parent, i, j);
+                linked = true;
+            } else {
+                names.insert(key, i);
+            }
+        }
+    }
+    if !linked {
+        return Vec::new();
+    }
+    let mut groups: HashMap<usize, Vec<usize>> = HashMap::new();
+    for i in 0..n {
+        let r = find(&mut parent, i);
+        groups.entry(r).or_default().push(i);
+    }
+    let mut out = Vec::new();
+    for members in groups.into_values().filter(|m| m.len() > 1) {
+        let with_tb: Vec<usize> = members
+            .iter()
+            .copied()
+            .filter(|&i| keys[i].tb_k.is_finite())
+            .collect();
+        if with_tb.len() < 2 {
+            continue;
+        }
+        for &i in &with_tb {
+            let v = keys[i].tb_k;
+            let Some(&far) = with_tb.iter().filter(|&&j| j != i).max_by(|&&a, &&b| {
+                (keys[a].tb_k - v)
+                    .abs()
+                    .total_cmp(&(keys[b].tb_k - v).abs())
+            }) else {
+                continue;
+            };
+            let d = (keys[far].tb_k - v).abs();
+            if d > tol_k {
+                out.push((
+                    i,
+                    Finding::new(
+                        Code::DuplicateDisagrees,
+                        format!(
+                            "The same compound is also on line {} with a boiling point {d:.1} K different ({:.1} K there, {v:.1} K here).",
+                            keys[far].line, keys[far].tb_k
+                        ),
+                    ),
+                ));
+            }
+        }
+    }
+    out.sort_by_key(|(i, _)| *i);
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn key<'a>(name: &'a str, cas: Option<&'a str>, tb: f64, line: usize) -> DupKey<'a> {
+        DupKey {
+            name: Some(name),
+            cas,
+            structure: None,
+            tb_k: tb,
+            line,
+        }
+    }
+
+    #[test]
+    fn links_by_cas_and_name_transitively() {
+        let keys = [
+            key("acetone", Some("67-64-1"), 329.4, 2),
+            key("propan-2-one", Some("67-64-1"), 329.2, 3),
+            key("Propan-2-one", None, 339.0, 4),
+            key("benzene", None, 353.2, 5),
+        ];
+        let f = check_duplicates(&keys, 1.0);
+        let rows: Vec<usize> = f.iter().map(|(i, _)| *i).collect();
+        assert_eq!(rows, [0, 1, 2]);
+        assert!(f[2].1.message.contains("line 3"), "{}", f[2].1.message);
+    }
+
+    #[test]
+    fn agreeing_duplicates_pass() {
+        let keys = [key("water", None, 373.15, 2), key("Water", None, 373.12, 3)];
+        assert!(check_duplicates(&keys, 1.0).is_empty());
+    }
+}

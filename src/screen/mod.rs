@@ -1,0 +1,251 @@
+//! Screening a property table for slips and outliers before it reaches a plan.
+//!
+//! A property table collects boiling points, Antoine constants, SMILES and
+//! critical constants from notebooks, suppliers and the literature. Each row
+//! is checked on its own (implied vs listed Tb with a unit-slip diagnosis,
+//! validity range, impossible constants, Trouton plausibility, critical
+//! constants, CAS check digit, SMILES, structure estimate, reference table),
+//! then the table as a whole (the same compound listed twice with different
+//! values; robust outlier scores of residuals against the structure estimate).
+//! Each check is one file and reports [`Finding`]s with a stable code.
+//!
+//! The structure estimate and the reference lookup come in through the
+//! [`StructureEstimator`] and [`ReferenceLookup`] traits, so the checks never
+//! depend on where they come from.
+//!
+//! ```
+//! use ebullio::screen::{screen, Code, RowInput, ScreenContext};
+//! // Toluene (Smith, Van Ness & Abbott App. B Table B.2, ln/kPa/°C, tn 383.75 K)
+//! // entered with its convention mislabelled as mmHg.
+//! let conv = "ln,mmHg,degC".parse().unwrap();
+//! let rows = vec![RowInput::at_line(2)
+//!     .with_compound("toluene")
+//!     .with_tb_k(383.75)
+//!     .with_antoine(13.9320, 3056.96, 217.625, conv)];
+//! let report = screen(&rows, None, &ScreenContext::default());
+//! assert_eq!(report.flags(0), "tb-antoine-mismatch;slip-pressure-unit");
+//! assert!(report.diagnosis(0).contains("kPa, not mmHg"));
+//! ```
+
+pub mod antoine_tb;
+pub mod constants;
+pub mod critical;
+pub mod duplicates;
+mod finding;
+#[cfg(feature = "tables")]
+pub mod frame;
+pub mod identity;
+pub mod outliers;
+pub mod reference;
+mod report;
+mod row;
+pub mod slip;
+pub mod sources;
+pub mod structure;
+
+pub use finding::{Code, Finding, Severity};
+pub use report::{ScreenReport, Summary, WorstRow};
+pub use row::{row_label, AntoineCell, RowInput};
+pub use sources::{
+    Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
+    StructureEstimator, StructureOutcome, TableReference,
+};
+
+use crate::units::ATM_PA;
+use crate::vapor::Curve;
+use rayon::prelude::*;
+use std::collections::{HashMap, HashSet};
+
+/// Tunable limits of the checks.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ScreenOptions {
+    /// Tolerance between boiling points that should agree (implied vs listed,
+    /// duplicates, reference), K. Default [`antoine_tb::DEFAULT_TOLERANCE_K`].
+    pub tolerance_k: f64,
+}
+
+impl Default for ScreenOptions {
+    fn default() -> Self {
+        ScreenOptions {
+            tolerance_k: antoine_tb::DEFAULT_TOLERANCE_K,
+        }
+    }
+}
+
+/// What the checks compare against, and their limits.
+pub struct ScreenContext<'a> {
+    /// Limits.
+    pub options: ScreenOptions,
+    /// Structure estimates ([`NoStructure`] to skip).
+    pub estimator: &'a dyn StructureEstimator,
+    /// Reference boiling points ([`NoReference`] to skip).
+    pub reference: &'a dyn ReferenceLookup,
+}
+
+impl Default for ScreenContext<'_> {
+    fn default() -> Self {
+        ScreenContext {
+            options: ScreenOptions::default(),
+            estimator: &NoStructure,
+            reference: &NoReference,
+        }
+    }
+}
+
+/// A table of rows the checks can read by index.
+pub trait Rows: Sync {
+    /// Number of rows.
+    fn n_rows(&self) -> usize;
+    /// Row `i` (0-based).
+    fn row(&self, i: usize) -> RowInput<'_>;
+}
+
+impl Rows for Vec<RowInput<'_>> {
+    fn n_rows(&self) -> usize {
+        self.len()
+    }
+    fn row(&self, i: usize) -> RowInput<'_> {
+        self[i].clone()
+    }
+}
+
+/// Per-row facts the table-level checks need.
+struct Facts<'a> {
+    line: usize,
+    tb_k: f64,
+    residual: f64,
+    cas: Option<&'a str>,
+    structure: Option<&'a str>,
+    name: Option<&'a str>,
+}
+
+/// Estimate every distinct SMILES once, in parallel.
+fn estimate_all<'r>(
+    rows: &'r dyn Rows,
+    estimator: &dyn StructureEstimator,
+) -> HashMap<&'r str, StructureOutcome> {
+    let mut distinct: HashSet<&'r str> = HashSet::new();
+    for i in 0..rows.n_rows() {
+        if let Some(s) = rows.row(i).smiles {
+            let s = s.trim();
+            if !s.is_empty() {
+                distinct.insert(s);
+            }
+        }
+    }
+    let distinct: Vec<&str> = distinct.into_iter().collect();
+    distinct
+        .par_iter()
+        .filter_map(|s| estimator.estimate(s).map(|o| (*s, o)))
+        .collect()
+}
+
+/// Run every check on every row. `implied_tb_k`, when given, holds the
+/// Antoine-implied boiling point per row (NaN where none), computed in bulk
+/// (see `frame`); otherwise it is computed row by row.
+pub fn screen(
+    rows: &dyn Rows,
+    implied_tb_k: Option<&[f64]>,
+    ctx: &ScreenContext<'_>,
+) -> ScreenReport {
+    let n = rows.n_rows();
+    let tol = ctx.options.tolerance_k;
+    let estimates = estimate_all(rows, ctx.estimator);
+
+    let per_row: Vec<(Vec<Finding>, Facts<'_>)> = (0..n)
+        .into_par_iter()
+        .map(|i| {
+            let row = rows.row(i);
+            let mut out = Vec::new();
+            identity::check_unreadable(&row.unreadable, row.line, &mut out);
+            let cas = row.cas.and_then(|c| identity::check_cas(c, &mut out));
+
+            let mut implied = None;
+            match &row.antoine {
+                AntoineCell::Absent => {}
+                AntoineCell::Incomplete => out.push(Finding::new(
+                    Code::AntoineIncomplete,
+                    "Only some of the Antoine constants A, B, C are given, so the row's curve cannot be checked.",
+                )),
+                AntoineCell::NoConvention => {}
+                AntoineCell::Given(k) => {
+                    implied = match implied_tb_k {
+                        Some(v) => v.get(i).copied().filter(|t| t.is_finite()),
+                        None => k.t_at(ATM_PA),
+                    };
+                    constants::check_constants(k, implied, row.tb_k, &mut out);
+                    match (implied, row.tb_k) {
+                        (Some(t), Some(listed)) => {
+                            antoine_tb::check_implied_vs_listed(
+                                k, t, listed, row.tb_unit, tol, &mut out,
+                            );
+                            constants::check_range(k, listed, true, &mut out);
+                        }
+                        (Some(t), None) => constants::check_range(k, t, false, &mut out),
+                        _ => {}
+                    }
+                }
+            }
+            let (tb, listed) = match (row.tb_k, implied) {
+                (Some(t), _) => (Some(t), true),
+                (None, Some(t)) => (Some(t), false),
+                _ => (None, false),
+            };
+            critical::check_critical(tb, listed, row.tc_k, row.pc_pa, &mut out);
+
+            let mut residual = f64::NAN;
+            let mut structure_key = None;
+            if let Some(s) = row.smiles.map(str::trim).filter(|s| !s.is_empty()) {
+                if let Some(o) = estimates.get(s) {
+                    structure_key = o.structure_key();
+                    if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {
+                        residual = r;
+                    }
+                }
+            }
+            let id = Identity {
+                name: row.compound,
+                cas,
+                structure_key,
+            };
+            if let Some(t) = tb {
+                reference::check_reference(ctx.reference, &id, t, listed, tol, &mut out);
+            }
+            (
+                out,
+                Facts {
+                    line: row.line,
+                    tb_k: tb.unwrap_or(f64::NAN),
+                    residual,
+                    cas,
+                    structure: structure_key,
+                    name: row.compound,
+                },
+            )
+        })
+        .collect();
+
+    let mut findings = Vec::with_capacity(n);
+    let mut keys = Vec::with_capacity(n);
+    let mut residuals = Vec::with_capacity(n);
+    let mut lines = Vec::with_capacity(n);
+    for (f, facts) in per_row {
+        findings.push(f);
+        residuals.push(facts.residual);
+        lines.push(facts.line);
+        keys.push(duplicates::DupKey {
+            cas: facts.cas,
+            structure: facts.structure,
+            name: facts.name,
+            tb_k: facts.tb_k,
+            line: facts.line,
+        });
+    }
+    for (i, f) in duplicates::check_duplicates(&keys, tol) {
+        findings[i].push(f);
+    }
+    for (i, f) in outliers::check_outliers(&residuals) {
+        findings[i].push(f);
+    }
+    ScreenReport::new(findings, lines)
+}

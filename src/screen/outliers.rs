@@ -1,0 +1,94 @@
+//! Robust outlier scores of residuals across the table (median and MAD).
+//!
+//! The modified z-score z = 0.6745·(r − median)/MAD uses the median absolute
+//! deviation instead of the standard deviation, so a handful of bad rows
+//! cannot inflate the scale and hide each other; |z| > 3.5 is flagged.
+//!
+//! Reference: B. Iglewicz and D. C. Hoaglin, *How to Detect and Handle
+//! Outliers*, ASQC Quality Press (1993) (from memory).
+
+use super::finding::{Code, Finding};
+
+/// |z| above which a residual is an outlier.
+pub const Z_LIMIT: f64 = 3.5;
+
+/// Fewest residuals for which robust scores are computed.
+pub const MIN_ROWS: usize = 8;
+
+fn median(v: &mut [f64]) -> f64 {
+    let n = v.len();
+    v.sort_unstable_by(f64::total_cmp);
+    if n % 2 == 1 {
+        v[n / 2]
+    } else {
+        0.5 * (v[n / 2 - 1] + v[n / 2])
+    }
+}
+
+/// Modified z-scores for `residuals` (NaN for missing); `None` when fewer
+/// than [`MIN_ROWS`] residuals exist or their MAD is zero.
+pub fn robust_z(residuals: &[f64]) -> Option<(Vec<f64>, f64, f64)> {
+    let mut finite: Vec<f64> = residuals
+        .iter()
+        .copied()
+        .filter(|r| r.is_finite())
+        .collect();
+    if finite.len() < MIN_ROWS {
+        return None;
+    }
+    let med = median(&mut finite);
+    let mut dev: Vec<f64> = finite.iter().map(|r| (r - med).abs()).collect();
+    let mad = median(&mut dev);
+    if mad <= 0.0 || mad.is_nan() {
+        return None;
+    }
+    Some((
+        residuals.iter().map(|r| 0.6745 * (r - med) / mad).collect(),
+        med,
+        mad,
+    ))
+}
+
+/// `structure-outlier` findings per row index for residuals (Tb − estimate).
+pub fn check_outliers(residuals: &[f64]) -> Vec<(usize, Finding)> {
+    let Some((z, med, mad)) = robust_z(residuals) else {
+        return Vec::new();
+    };
+    z.iter()
+        .enumerate()
+        .filter(|(_, z)| z.abs() > Z_LIMIT)
+        .map(|(i, z)| {
+            (
+                i,
+                Finding::new(
+                    Code::StructureOutlier,
+                    format!(
+                        "Against the structure estimate this row's residual of {:+.1} K is an outlier in the table (robust z = {z:.1}; median {med:+.1} K, MAD {mad:.1} K).",
+                        residuals[i]
+                    ),
+                ),
+            )
+        })
+        .collect()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn two_outliers_do_not_hide_each_other() {
+        let mut r = vec![1.0, -2.0, 0.5, 3.0, -1.5, 2.0, -0.5, 1.5, -3.0, 0.0];
+        r.push(60.0);
+        r.push(-55.0);
+        r.push(f64::NAN);
+        let f = check_outliers(&r);
+        let rows: Vec<usize> = f.iter().map(|(i, _)| *i).collect();
+        assert_eq!(rows, [10, 11]);
+    }
+
+    #[test]
+    fn too_few_rows_gives_nothing() {
+        assert!(check_outliers(&[1.0, 100.0, 2.0]).is_empty());
+    }
+}

@@ -1,0 +1,237 @@
+//! What the checks compare a row against: structure estimates and reference tables.
+//!
+//! Both are traits so `screen` does not care whether an estimate comes from
+//! the Joback method, a test double, or nothing at all ([`NoStructure`]), nor
+//! whether reference boiling points come from the bundled tables or a table
+//! the user supplies ([`TableReference`]).
+
+use std::collections::HashMap;
+
+/// The structure-based estimate for one SMILES.
+#[derive(Debug, Clone, PartialEq)]
+pub enum StructureOutcome {
+    /// The SMILES parsed and an estimate was made.
+    Estimate {
+        /// Estimated normal boiling point, K.
+        tb_k: f64,
+        /// The method's typical error at this estimate (1 sigma, K).
+        typical_error_k: f64,
+        /// Canonical structure key (same molecule, same key), when available.
+        structure_key: Option<String>,
+    },
+    /// The SMILES parsed but no estimate is possible (a group the method lacks).
+    NoEstimate {
+        /// Canonical structure key.
+        structure_key: Option<String>,
+        /// Why no estimate.
+        reason: String,
+    },
+    /// The SMILES does not parse.
+    Unreadable {
+        /// What the parser said.
+        reason: String,
+    },
+}
+
+impl StructureOutcome {
+    /// The structure key, if the SMILES parsed.
+    pub fn structure_key(&self) -> Option<&str> {
+        match self {
+            StructureOutcome::Estimate { structure_key, .. }
+            | StructureOutcome::NoEstimate { structure_key, .. } => structure_key.as_deref(),
+            StructureOutcome::Unreadable { .. } => None,
+        }
+    }
+}
+
+/// Something that turns a SMILES into a boiling-point estimate.
+pub trait StructureEstimator: Sync {
+    /// Estimate from one SMILES; `None` when this estimator offers nothing at
+    /// all (structure checks are then skipped, not failed).
+    fn estimate(&self, smiles: &str) -> Option<StructureOutcome>;
+}
+
+/// An estimator that offers nothing: structure checks are skipped.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct NoStructure;
+
+impl StructureEstimator for NoStructure {
+    fn estimate(&self, _smiles: &str) -> Option<StructureOutcome> {
+        None
+    }
+}
+
+/// Structure estimates by the Joback method with the Stein & Brown
+/// correction (`crate::estimate`), structure keys from `crate::molecule`.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct JobackEstimator;
+
+impl StructureEstimator for JobackEstimator {
+    fn estimate(&self, smiles: &str) -> Option<StructureOutcome> {
+        let m = match crate::molecule::parse_smiles(smiles) {
+            Ok(m) => m,
+            Err(e) => {
+                return Some(StructureOutcome::Unreadable {
+                    reason: e.to_string(),
+                })
+            }
+        };
+        let key = Some(m.structure_key());
+        Some(match crate::estimate::estimate_molecule(&m) {
+            Ok(e) => StructureOutcome::Estimate {
+                tb_k: e.tb_k,
+                typical_error_k: e.tb_typical_error_k,
+                structure_key: key,
+            },
+            Err(e) => StructureOutcome::NoEstimate {
+                structure_key: key,
+                reason: e.to_string(),
+            },
+        })
+    }
+}
+
+/// A reference boiling point for a compound.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ReferenceEntry {
+    /// Name in the reference.
+    pub name: String,
+    /// Reference normal boiling point, K.
+    pub tb_k: f64,
+    /// Where it comes from (short).
+    pub source: String,
+}
+
+/// Identity of a row for reference lookup.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct Identity<'a> {
+    /// Compound name.
+    pub name: Option<&'a str>,
+    /// CAS number (already validated).
+    pub cas: Option<&'a str>,
+    /// Structure key from the estimator.
+    pub structure_key: Option<&'a str>,
+}
+
+/// Something that knows reference boiling points.
+pub trait ReferenceLookup: Sync {
+    /// The reference entry for this identity, CAS first, then structure, then name.
+    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry>;
+}
+
+/// No reference: reference checks are skipped.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct NoReference;
+
+impl ReferenceLookup for NoReference {
+    fn find(&self, _id: &Identity<'_>) -> Option<ReferenceEntry> {
+        None
+    }
+}
+
+/// Normalise a compound name for matching: lowercase, single spaces.
+pub fn name_key(name: &str) -> String {
+    name.split_whitespace()
+        .collect::<Vec<_>>()
+        .join(" ")
+        .to_lowercase()
+}
+
+/// A reference built from rows of a table (e.g. `--reference-table`).
+#[derive(Debug, Clone, Default)]
+pub struct TableReference {
+    by_cas: HashMap<String, ReferenceEntry>,
+    by_key: HashMap<String, ReferenceEntry>,
+    by_name: HashMap<String, ReferenceEntry>,
+}
+
+impl TableReference {
+    /// An empty reference.
+    pub fn new() -> Self {
+        Self::default()
+    }
+
+    /// Add an entry under any identity parts that are known. The first entry
+    /// for an identity wins.
+    pub fn add(&mut self, id: &Identity<'_>, entry: ReferenceEntry) {
+        if let Some(c) = id.cas {
+            self.by_cas
+                .entry(c.trim().to_string())
+                .or_insert_with(|| entry.clone());
+        }
+        if let Some(k) = id.structure_key {
+            self.by_key
+                .entry(k.to_string())
+                .or_insert_with(|| entry.clone());
+        }
+        if let Some(n) = id.name {
+            self.by_name.entry(name_key(n)).or_insert(entry);
+        }
+    }
+
+    /// Number of distinct entries by name, CAS or structure.
+    pub fn len(&self) -> usize {
+        self.by_name
+            .len()
+            .max(self.by_cas.len())
+            .max(self.by_key.len())
+    }
+
+    /// Whether there are no entries.
+    pub fn is_empty(&self) -> bool {
+        self.len() == 0
+    }
+}
+
+impl ReferenceLookup for TableReference {
+    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry> {
+        id.cas
+            .and_then(|c| self.by_cas.get(c.trim()))
+            .or_else(|| id.structure_key.and_then(|k| self.by_key.get(k)))
+            .or_else(|| id.name.and_then(|n| self.by_name.get(&name_key(n))))
+            .cloned()
+    }
+}
+
+/// Several references, asked in order; the first that knows the compound answers.
+pub struct Chain<'a>(pub Vec<&'a dyn ReferenceLookup>);
+
+impl ReferenceLookup for Chain<'_> {
+    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry> {
+        self.0.iter().find_map(|r| r.find(id))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn table_reference_finds_by_cas_then_name() {
+        let mut r = TableReference::new();
+        let e = ReferenceEntry {
+            name: "acetone".into(),
+            tb_k: 329.35,
+            source: "test".into(),
+        };
+        r.add(
+            &Identity {
+                name: Some("Acetone"),
+                cas: Some("67-64-1"),
+                structure_key: None,
+            },
+            e.clone(),
+        );
+        let by_cas = Identity {
+            cas: Some("67-64-1"),
+            ..Default::default()
+        };
+        assert_eq!(r.find(&by_cas), Some(e.clone()));
+        let by_name = Identity {
+            name: Some("  acetone "),
+            ..Default::default()
+        };
+        assert_eq!(r.find(&by_name), Some(e));
+        assert!(r.find(&Identity::default()).is_none());
+    }
+}

@@ -1,0 +1,749 @@
+//! Property tables (CSV or Parquet) in and out, with their recognised columns.
+//!
+//! Every row and column of the input is kept, in order; `check` only adds
+//! columns. CSV is read with every column as text, so unknown columns and
+//! number formatting come back exactly as written. Recognised columns
+//! (`compound`, `smiles`, `cas`, a boiling-point column with its unit such as
+//! `Tb/K`, `tb/°C` or `Tb [K]`, Antoine `A`, `B`, `C` with a `convention`
+//! column, the three columns `log_base`, `p_unit`, `t_unit`, or `--constants`,
+//! `Tmin`/`Tmax` (unit in the heading, else the row's convention), `Tc/K`,
+//! `pc/bar`) are read into SI. A recognised column that cannot be understood
+//! is an error naming it; one unreadable cell is reported on its row.
+
+use crate::screen::{AntoineCell, RowInput, Rows};
+use crate::units::{PressureUnit, TemperatureUnit};
+use crate::vapor::{AntoineConstants, AntoineConvention, LogBase};
+use polars::prelude::*;
+use polars_io::prelude::*;
+use rayon::prelude::*;
+use std::collections::HashMap;
+use std::path::{Path, PathBuf};
+
+/// Error reading or writing a property table: always names the file, and the
+/// column where it applies.
+#[derive(Debug, thiserror::Error)]
+pub enum TableError {
+    /// The file cannot be read or parsed as CSV/Parquet.
+    #[error("{path}: cannot read the table: {message}")]
+    Read {
+        /// File.
+        path: PathBuf,
+        /// What went wrong.
+        message: String,
+    },
+    /// A recognised column holds no value of the expected kind.
+    #[error("{path}: column '{column}' should hold {expected}, but line {line} holds '{value}' and no cell in it is {expected}")]
+    WrongType {
+        /// File.
+        path: PathBuf,
+        /// Column heading.
+        column: String,
+        /// What was expected.
+        expected: String,
+        /// First offending line.
+        line: usize,
+        /// The offending value.
+        value: String,
+    },
+    /// Values with different units in one column.
+    #[error("{path}: column '{column}' mixes units ({units}); give one unit per column, e.g. in the heading 'Tb/K'")]
+    MixedUnits {
+        /// File.
+        path: PathBuf,
+        /// Column heading.
+        column: String,
+        /// Units found, with the first line of each.
+        units: String,
+    },
+    /// A recognised column with no unit in its heading or cells.
+    #[error("{path}: column '{column}' has no unit; write it in the heading, e.g. '{example}'")]
+    MissingUnit {
+        /// File.
+        path: PathBuf,
+        /// Column heading.
+        column: String,
+        /// Example heading.
+        example: String,
+    },
+    /// Recognised columns missing or incomplete.
+    #[error("{path}: {message}")]
+    Columns {
+        /// File.
+        path: PathBuf,
+        /// What is missing.
+        message: String,
+    },
+    /// Writing failed.
+    #[error("{path}: cannot write the table: {message}")]
+    Write {
+        /// File.
+        path: PathBuf,
+        /// What went wrong.
+        message: String,
+    },
+}
+
+/// How to read a property table.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct PropertyReadOptions {
+    /// Convention of A, B, C when the table has no convention column (`--constants`).
+    pub constants: Option<AntoineConvention>,
+}
+
+/// Column roles `check` recognises.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+enum Role {
+    Compound,
+    Smiles,
+    Cas,
+    Tb,
+    A,
+    B,
+    C,
+    Convention,
+    LogBase,
+    PUnit,
+    TUnit,
+    Tmin,
+    Tmax,
+    Tc,
+    Pc,
+}
+
+fn role_of(name: &str) -> Option<Role> {
+    let n: String = name
+        .chars()
+        .filter(|c| !matches!(c, ' ' | '_' | '-' | '.'))
+        .collect::<String>()
+        .to_lowercase();
+    Some(match n.as_str() {
+        "compound" | "name" | "compoundname" | "substance" => Role::Compound,
+        "smiles" => Role::Smiles,
+        "cas" | "casno" | "casrn" | "casnumber" => Role::Cas,
+        "tb" | "tnb" | "tn" | "nbp" | "normalboilingpoint" | "boilingpoint" => Role::Tb,
+        "a" => Role::A,
+        "b" => Role::B,
+        "c" => Role::C,
+        "convention" | "antoineconvention" => Role::Convention,
+        "logbase" => Role::LogBase,
+        "punit" => Role::PUnit,
+        "tunit" => Role::TUnit,
+        "tmin" | "tlow" => Role::Tmin,
+        "tmax" | "thigh" => Role::Tmax,
+        "tc" | "tcrit" => Role::Tc,
+        "pc" | "pcrit" => Role::Pc,
+        _ => return None,
+    })
+}
+
+fn is_temperature(r: Role) -> bool {
+    matches!(r, Role::Tb | Role::Tmin | Role::Tmax | Role::Tc)
+}
+
+/// Split a heading into (role, unit text): `Tb/K`, `Tb [K]`, `Tb (K)`, `tb_k`.
+fn parse_heading(h: &str) -> Option<(Role, Option<String>)> {
+    let t = h.trim();
+    let split = if let Some((n, u)) = t.split_once('/') {
+        Some((n, u.trim()))
+    } else if let (Some(i), true) = (t.find(['[', '(']), t.ends_with([']', ')'])) {
+        Some((&t[..i], t[i + 1..t.len() - 1].trim()))
+    } else {
+        None
+    };
+    if let Some((n, u)) = split {
+        return role_of(n.trim()).map(|r| (r, Some(u.to_string())));
+    }
+    if let Some((n, u)) = t.rsplit_once('_') {
+        if let Some(r) = role_of(n) {
+            let unit_ok = if is_temperature(r) {
+                TemperatureUnit::parse(u).is_ok()
+            } else if r == Role::Pc {
+                PressureUnit::parse(u).is_ok()
+            } else {
+                false
+            };
+            if unit_ok {
+                return Some((r, Some(u.to_string())));
+            }
+        }
+    }
+    role_of(t).map(|r| (r, None))
+}
+
+/// A numeric column read into one unit.
+struct NumColumn {
+    values: Vec<f64>,
+    /// (row, message) for unreadable cells.
+    bad: Vec<(usize, String)>,
+}
+
+/// A numeric column read, with the unit it was in.
+type NumRead = Result<(NumColumn, Option<String>), TableError>;
+
+#[derive(Clone, Copy)]
+enum Kind {
+    Temperature,
+    Pressure,
+    Plain,
+}
+
+fn text_of(col: &Column) -> Option<StringChunked> {
+    match col.dtype() {
+        DataType::String => col.str().ok().cloned(),
+        _ => None,
+    }
+}
+
+/// Read a numeric column. Returns values in the column's unit converted by
+/// `to_si` (temperatures to K, pressures to Pa); `unit` is the heading unit.
+fn read_numeric(
+    path: &Path,
+    heading: &str,
+    col: &Column,
+    kind: Kind,
+    unit: Option<&str>,
+    line0: usize,
+) -> Result<(NumColumn, Option<String>), TableError> {
+    let n = col.len();
+    if col.dtype().is_primitive_numeric() {
+        let s = col
+            .cast(&DataType::Float64)
+            .map_err(|e| read_err(path, e))?;
+        let ca = s.f64().map_err(|e| read_err(path, e))?;
+        let raw: Vec<f64> = ca.iter().map(|v| v.unwrap_or(f64::NAN)).collect();
+        let (values, unit) = convert(path, heading, raw, kind, unit)?;
+        return Ok((
+            NumColumn {
+                values,
+                bad: vec![],
+            },
+            unit,
+        ));
+    }
+    let Some(ca) = text_of(col) else {
+        return Err(TableError::WrongType {
+            path: path.into(),
+            column: heading.into(),
+            expected: "numbers".into(),
+            line: line0,
+            value: format!("a column of type {}", col.dtype()),
+        });
+    };
+    let mut raw = Vec::with_capacity(n);
+    let mut bad = Vec::new();
+    let mut cell_units: Vec<(String, usize)> = Vec::new();
+    let mut good = 0usize;
+    for (i, v) in ca.iter().enumerate() {
+        let Some(v) = v.map(str::trim).filter(|v| !v.is_empty()) else {
+            raw.push(f64::NAN);
+            continue;
+        };
+        if let Ok(x) = v.parse::<f64>() {
+            if x.is_finite() {
+                raw.push(x);
+                good += 1;
+                continue;
+            }
+        }
+        // a number followed by a unit?
+        let split = v
+            .find(|c: char| !(c.is_ascii_digit() || matches!(c, '.' | '-' | '+' | 'e' | 'E')))
+            .map(|k| (v[..k].trim(), v[k..].trim()));
+        let unit_ok = |u: &str| match kind {
+            Kind::Temperature => TemperatureUnit::parse(u).is_ok(),
+            Kind::Pressure => PressureUnit::parse(u).is_ok(),
+            Kind::Plain => false,
+        };
+        match split {
+            Some((num, u)) if !u.is_empty() && unit_ok(u) && num.parse::<f64>().is_ok() => {
+                let x: f64 = num.parse().unwrap_or(f64::NAN);
+                if !cell_units.iter().any(|(x, _)| x == u) {
+                    cell_units.push((u.to_string(), i + line0));
+                }
+                raw.push(x);
+                good += 1;
+            }
+            _ => {
+                if bad.is_empty() || bad.len() < 1000 {
+                    bad.push((i, format!("'{v}' is not a number")));
+                }
+                raw.push(f64::NAN);
+            }
+        }
+    }
+    if good == 0 {
+        if let Some((i, _)) = bad.first() {
+            let value = ca.get(*i).unwrap_or("").to_string();
+            return Err(TableError::WrongType {
+                path: path.into(),
+                column: heading.into(),
+                expected: match kind {
+                    Kind::Temperature => "temperatures (numbers)".into(),
+                    Kind::Pressure => "pressures (numbers)".into(),
+                    Kind::Plain => "numbers".into(),
+                },
+                line: i + line0,
+                value,
+            });
+        }
+    }
+    let unit = match (unit, cell_units.len()) {
+        (_, 0) => unit.map(str::to_string),
+        (None, 1) => Some(cell_units[0].0.clone()),
+        (h, _) => {
+            let mut all: Vec<String> = h.map(|u| format!("{u} (heading)")).into_iter().collect();
+            all.extend(cell_units.iter().map(|(u, l)| format!("{u} (line {l})")));
+            return Err(TableError::MixedUnits {
+                path: path.into(),
+                column: heading.into(),
+                units: all.join(", "),
+            });
+        }
+    };
+    let (values, unit) = convert(path, heading, raw, kind, unit.as_deref())?;
+    Ok((NumColumn { values, bad }, unit))
+}
+
+fn convert(
+    path: &Path,
+    heading: &str,
+    mut raw: Vec<f64>,
+    kind: Kind,
+    unit: Option<&str>,
+) -> Result<(Vec<f64>, Option<String>), TableError> {
+    match (kind, unit) {
+        (Kind::Plain, _) | (Kind::Temperature, None) => Ok((raw, unit.map(str::to_string))),
+        (Kind::Pressure, None) => Err(TableError::MissingUnit {
+            path: path.into(),
+            column: heading.into(),
+            example: "pc/bar".into(),
+        }),
+        (Kind::Temperature, Some(u)) => {
+            let tu = TemperatureUnit::parse(u).map_err(|e| TableError::Columns {
+                path: path.into(),
+                message: format!("column '{heading}': {e}"),
+            })?;
+            raw.iter_mut().for_each(|v| *v = tu.to_kelvin(*v));
+            Ok((raw, Some(u.to_string())))
+        }
+        (Kind::Pressure, Some(u)) => {
+            let pu = PressureUnit::parse(u).map_err(|e| TableError::Columns {
+                path: path.into(),
+                message: format!("column '{heading}': {e}"),
+            })?;
+            raw.iter_mut().for_each(|v| *v = pu.to_pa(*v));
+            Ok((raw, Some(u.to_string())))
+        }
+    }
+}
+
+fn read_err(path: &Path, e: impl std::fmt::Display) -> TableError {
+    TableError::Read {
+        path: path.into(),
+        message: e.to_string(),
+    }
+}
+
+/// A property table: the original frame plus its recognised columns in SI.
+pub struct PropertyTable {
+    /// The table as read (every column, in order).
+    pub frame: DataFrame,
+    path: PathBuf,
+    line0: usize,
+    compound: Option<StringChunked>,
+    smiles: Option<StringChunked>,
+    cas: Option<StringChunked>,
+    tb_k: Option<Vec<f64>>,
+    tb_unit: TemperatureUnit,
+    abc: Option<[Vec<f64>; 3]>,
+    conventions: Vec<Option<AntoineConvention>>,
+    tmin: Option<(Vec<f64>, bool)>,
+    tmax: Option<(Vec<f64>, bool)>,
+    tc_k: Option<Vec<f64>>,
+    pc_pa: Option<Vec<f64>>,
+    /// Unreadable cells per row: (column heading, message).
+    bad: HashMap<usize, Vec<(String, String)>>,
+}
+
+fn read_frame(path: &Path) -> Result<(DataFrame, usize), TableError> {
+    let ext = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(str::to_ascii_lowercase);
+    match ext.as_deref() {
+        Some("parquet") | Some("pq") => {
+            let f = std::fs::File::open(path).map_err(|e| read_err(path, e))?;
+            let df = ParquetReader::new(f)
+                .finish()
+                .map_err(|e| read_err(path, e))?;
+            Ok((df, 1))
+        }
+        _ => {
+            let df = CsvReadOptions::default()
+                .with_has_header(true)
+                .with_infer_schema_length(Some(0))
+                .try_into_reader_with_file_path(Some(path.to_path_buf()))
+                .and_then(|r| r.finish())
+                .map_err(|e| read_err(path, e))?;
+            Ok((df, 2))
+        }
+    }
+}
+
+impl PropertyTable {
+    /// Read a CSV or Parquet property table (by extension; anything not
+    /// `.parquet` is read as CSV) and recognise its columns.
+    pub fn read(path: &Path, opts: &PropertyReadOptions) -> Result<Self, TableError> {
+        let (frame, line0) = read_frame(path)?;
+        Self::from_frame(frame, path, line0, opts)
+    }
+
+    /// Recognise the columns of an already-read frame. `line0` is the line of
+    /// the first data row (2 for CSV with a header, 1 for Parquet).
+    pub fn from_frame(
+        frame: DataFrame,
+        path: &Path,
+        line0: usize,
+        opts: &PropertyReadOptions,
+    ) -> Result<Self, TableError> {
+        let n = frame.height();
+        let mut roles: HashMap<Role, (String, Option<String>)> = HashMap::new();
+        for c in frame.columns() {
+            let h = c.name().to_string();
+            if let Some((r, u)) = parse_heading(&h) {
+                if let Some((other, _)) = roles.get(&r) {
+                    return Err(TableError::Columns {
+                        path: path.into(),
+                        message: format!(
+                            "columns '{other}' and '{h}' both look like the same quantity; keep one"
+                        ),
+                    });
+                }
+                roles.insert(r, (h, u));
+            }
+        }
+        let col = |r: Role| roles.get(&r).and_then(|(h, _)| frame.column(h).ok());
+        let text = |r: Role| -> Result<Option<StringChunked>, TableError> {
+            match col(r) {
+                None => Ok(None),
+                Some(c) => match text_of(c) {
+                    Some(ca) => Ok(Some(ca.rechunk().into_owned())),
+                    None => Err(TableError::WrongType {
+                        path: path.into(),
+                        column: c.name().to_string(),
+                        expected: "text".into(),
+                        line: line0,
+                        value: format!("a column of type {}", c.dtype()),
+                    }),
+                },
+            }
+        };
+        let compound = text(Role::Compound)?;
+        let smiles = text(Role::Smiles)?;
+        let cas = text(Role::Cas)?;
+
+        let have = |r: Role| roles.contains_key(&r);
+        let n_abc = [Role::A, Role::B, Role::C]
+            .iter()
+            .filter(|r| have(**r))
+            .count();
+        if n_abc > 0 && n_abc < 3 {
+            return Err(TableError::Columns {
+                path: path.into(),
+                message: "Antoine constants need all three columns A, B and C".into(),
+            });
+        }
+        if !have(Role::Tb) && n_abc == 0 && !have(Role::Smiles) {
+            return Err(TableError::Columns {
+                path: path.into(),
+                message: "no column to check: expected a boiling point (e.g. 'Tb/K'), Antoine 'A', 'B', 'C', or 'smiles'".into(),
+            });
+        }
+
+        let numeric: Vec<(Role, Kind)> = vec![
+            (Role::Tb, Kind::Temperature),
+            (Role::A, Kind::Plain),
+            (Role::B, Kind::Plain),
+            (Role::C, Kind::Plain),
+            (Role::Tmin, Kind::Temperature),
+            (Role::Tmax, Kind::Temperature),
+            (Role::Tc, Kind::Temperature),
+            (Role::Pc, Kind::Pressure),
+        ];
+        let read: Vec<(Role, NumRead)> = numeric
+            .par_iter()
+            .filter_map(|&(r, k)| {
+                let (h, u) = roles.get(&r)?;
+                let c = frame.column(h).ok()?;
+                Some((r, read_numeric(path, h, c, k, u.as_deref(), line0)))
+            })
+            .collect();
+        let mut nums: HashMap<Role, (NumColumn, Option<String>)> = HashMap::new();
+        for (r, res) in read {
+            nums.insert(r, res?);
+        }
+        let mut bad: HashMap<usize, Vec<(String, String)>> = HashMap::new();
+        for (r, (c, _)) in &nums {
+            let h = roles.get(r).map(|x| x.0.clone()).unwrap_or_default();
+            for (i, m) in &c.bad {
+                bad.entry(*i).or_default().push((h.clone(), m.clone()));
+            }
+        }
+        let mut take = |r: Role| nums.remove(&r);
+        let mut tb_unit = TemperatureUnit::Kelvin;
+        let tb_k = match take(Role::Tb) {
+            Some((c, Some(u))) => {
+                tb_unit = TemperatureUnit::parse(&u).unwrap_or(TemperatureUnit::Kelvin);
+                Some(c.values)
+            }
+            Some((_, None)) => {
+                return Err(TableError::MissingUnit {
+                    path: path.into(),
+                    column: roles[&Role::Tb].0.clone(),
+                    example: "Tb/K".into(),
+                })
+            }
+            None => None,
+        };
+        let tc_k = match take(Role::Tc) {
+            Some((c, Some(_))) => Some(c.values),
+            Some((_, None)) => {
+                return Err(TableError::MissingUnit {
+                    path: path.into(),
+                    column: roles[&Role::Tc].0.clone(),
+                    example: "Tc/K".into(),
+                })
+            }
+            None => None,
+        };
+        let pc_pa = take(Role::Pc).map(|(c, _)| c.values);
+        let tmin = take(Role::Tmin).map(|(c, u)| (c.values, u.is_some()));
+        let tmax = take(Role::Tmax).map(|(c, u)| (c.values, u.is_some()));
+        let abc = match (take(Role::A), take(Role::B), take(Role::C)) {
+            (Some(a), Some(b), Some(c)) => Some([a.0.values, b.0.values, c.0.values]),
+            _ => None,
+        };
+
+        // Conventions per row.
+        let mut conventions = vec![opts.constants; n];
+        if abc.is_some() {
+            let conv_col = text(Role::Convention)?;
+            let parts = [text(Role::LogBase)?, text(Role::PUnit)?, text(Role::TUnit)?];
+            let three = parts.iter().all(Option::is_some);
+            if conv_col.is_none() && !three && opts.constants.is_none() {
+                return Err(TableError::Columns {
+                    path: path.into(),
+                    message: "Antoine constants A, B, C need their convention: pass --constants \"log10,mmHg,degC\" or add a 'convention' column".into(),
+                });
+            }
+            let mut cache: HashMap<String, Option<AntoineConvention>> = HashMap::new();
+            for (i, slot) in conventions.iter_mut().enumerate() {
+                let text: Option<String> = if let Some(cc) = &conv_col {
+                    cc.get(i)
+                        .map(str::trim)
+                        .filter(|s| !s.is_empty())
+                        .map(str::to_string)
+                } else if three {
+                    let g = |k: usize| {
+                        parts[k]
+                            .as_ref()
+                            .and_then(|p| p.get(i))
+                            .map(str::trim)
+                            .filter(|s| !s.is_empty())
+                    };
+                    match (g(0), g(1), g(2)) {
+                        (Some(b), Some(p), Some(t)) => Some(format!("{b},{p},{t}")),
+                        _ => None,
+                    }
+                } else {
+                    None
+                };
+                let Some(t) = text else { continue };
+                let parsed = cache.entry(t.clone()).or_insert_with(|| {
+                    let mut p = t.split(',').map(str::trim);
+                    let base = p.next().and_then(LogBase::parse);
+                    t.parse::<AntoineConvention>()
+                        .ok()
+                        .or_else(|| base.and(t.parse().ok()))
+                });
+                *slot = *parsed;
+                if parsed.is_none() {
+                    bad.entry(i).or_default().push((
+                        "convention".into(),
+                        format!("'{t}' is not an Antoine convention (write e.g. log10,mmHg,degC)"),
+                    ));
+                }
+            }
+        }
+        Ok(PropertyTable {
+            frame,
+            path: path.into(),
+            line0,
+            compound,
+            smiles,
+            cas,
+            tb_k,
+            tb_unit,
+            abc,
+            conventions,
+            tmin,
+            tmax,
+            tc_k,
+            pc_pa,
+            bad,
+        })
+    }
+
+    /// Number of rows.
+    pub fn height(&self) -> usize {
+        self.frame.height()
+    }
+
+    /// The implied normal boiling points of every row in one vectorised pass.
+    pub fn implied_tb_k(&self) -> Option<Vec<f64>> {
+        let [a, b, c] = self.abc.as_ref()?;
+        crate::screen::frame::implied_tb_k(a, b, c, &self.conventions).ok()
+    }
+
+    /// The path the table was read from.
+    pub fn path(&self) -> &Path {
+        &self.path
+    }
+}
+
+fn get(v: &Option<Vec<f64>>, i: usize) -> Option<f64> {
+    v.as_ref()
+        .and_then(|v| v.get(i).copied())
+        .filter(|x| x.is_finite())
+}
+
+fn text_at(c: &Option<StringChunked>, i: usize) -> Option<&str> {
+    c.as_ref()
+        .and_then(|c| c.get(i))
+        .map(str::trim)
+        .filter(|s| !s.is_empty())
+}
+
+impl Rows for PropertyTable {
+    fn n_rows(&self) -> usize {
+        self.height()
+    }
+
+    fn row(&self, i: usize) -> RowInput<'_> {
+        let conv = self.conventions.get(i).copied().flatten();
+        let antoine = match &self.abc {
+            None => AntoineCell::Absent,
+            Some([a, b, c]) => {
+                let (a, b, c) = (a[i], b[i], c[i]);
+                let given = [a, b, c].iter().filter(|x| x.is_finite()).count();
+                match (given, conv) {
+                    (0, _) => AntoineCell::Absent,
+                    (3, Some(cv)) => {
+                        let to_k = |v: &Option<(Vec<f64>, bool)>| {
+                            let (vals, in_k) = v.as_ref()?;
+                            let x = *vals.get(i)?;
+                            if !x.is_finite() {
+                                return None;
+                            }
+                            Some(if *in_k { x } else { cv.t_unit.to_kelvin(x) })
+                        };
+                        let mut k = AntoineConstants::new(a, b, c, cv);
+                        match (to_k(&self.tmin), to_k(&self.tmax)) {
+                            (None, None) => {}
+                            (lo, hi) => {
+                                k.range_k = Some((
+                                    lo.unwrap_or(f64::NEG_INFINITY),
+                                    hi.unwrap_or(f64::INFINITY),
+                                ))
+                            }
+                        }
+                        AntoineCell::Given(k)
+                    }
+                    (3, None) => AntoineCell::NoConvention,
+                    _ => AntoineCell::Incomplete,
+                }
+            }
+        };
+        RowInput {
+            line: i + self.line0,
+            compound: text_at(&self.compound, i),
+            smiles: text_at(&self.smiles, i),
+            cas: text_at(&self.cas, i),
+            tb_k: get(&self.tb_k, i),
+            tb_unit: self.tb_unit,
+            antoine,
+            tc_k: get(&self.tc_k, i),
+            pc_pa: get(&self.pc_pa, i),
+            unreadable: self
+                .bad
+                .get(&i)
+                .map(|v| v.iter().map(|(h, m)| (h.as_str(), m.clone())).collect())
+                .unwrap_or_default(),
+        }
+    }
+}
+
+/// Output file kind, by extension: `.parquet` is Parquet, anything else CSV.
+pub fn is_parquet(path: &Path) -> bool {
+    matches!(
+        path.extension()
+            .and_then(|e| e.to_str())
+            .map(str::to_ascii_lowercase)
+            .as_deref(),
+        Some("parquet") | Some("pq")
+    )
+}
+
+/// The table with added text columns, as CSV or Parquet bytes.
+pub fn table_bytes(
+    frame: &DataFrame,
+    added: Vec<(&str, Vec<String>)>,
+    parquet: bool,
+    path_for_errors: &Path,
+) -> Result<Vec<u8>, TableError> {
+    let werr = |e: PolarsError| TableError::Write {
+        path: path_for_errors.into(),
+        message: e.to_string(),
+    };
+    let mut df = frame.clone();
+    for (name, values) in added {
+        if df.column(name).is_ok() {
+            return Err(TableError::Columns {
+                path: path_for_errors.into(),
+                message: format!("the input already has a column named '{name}'; rename it so the check columns can be added"),
+            });
+        }
+        df.with_column(Column::new(name.into(), values))
+            .map_err(werr)?;
+    }
+    let mut buf = Vec::new();
+    if parquet {
+        ParquetWriter::new(&mut buf).finish(&mut df).map_err(werr)?;
+    } else {
+        CsvWriter::new(&mut buf)
+            .include_header(true)
+            .finish(&mut df)
+            .map_err(werr)?;
+    }
+    Ok(buf)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn headings_are_recognised_with_units() {
+        assert_eq!(parse_heading("Tb/K"), Some((Role::Tb, Some("K".into()))));
+        assert_eq!(parse_heading("tb/°C"), Some((Role::Tb, Some("°C".into()))));
+        assert_eq!(parse_heading("Tb [K]"), Some((Role::Tb, Some("K".into()))));
+        assert_eq!(parse_heading("tb_k"), Some((Role::Tb, Some("k".into()))));
+        assert_eq!(
+            parse_heading("pc/bar"),
+            Some((Role::Pc, Some("bar".into())))
+        );
+        assert_eq!(parse_heading("t_min"), Some((Role::Tmin, None)));
+        assert_eq!(parse_heading("log_base"), Some((Role::LogBase, None)));
+        assert_eq!(parse_heading("supplier"), None);
+    }
+}
