@@ -146,6 +146,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     }
     let bar = (data.sets.len() >= 50 && std::io::stderr().is_terminal())
         .then(|| indicatif::ProgressBar::new(data.sets.len() as u64));
+    super::common::batch_started(data.sets.len());
     let results: Vec<Result<FitReport, FitError>> = data
         .sets
         .par_iter()
@@ -154,6 +155,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             if let Some(b) = &bar {
                 b.inc(1);
             }
+            super::common::batch_step();
             r
         })
         .collect();
