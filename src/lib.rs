@@ -27,6 +27,7 @@ pub mod fit;
 pub mod molecule;
 pub mod plan;
 pub mod reference;
+pub mod refit;
 pub mod table_io;
 pub mod units;
 pub mod vapor;
