@@ -30,6 +30,7 @@ pub mod plan;
 pub mod reference;
 pub mod report;
 pub mod screen;
+pub mod refit;
 pub mod table_io;
 pub mod units;
 pub mod vapor;

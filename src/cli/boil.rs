@@ -27,7 +27,7 @@ pub struct Args {
     #[arg(long)]
     pub constants: Option<String>,
     /// Validity range of --antoine, e.g. "20 degC..110 degC".
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub range: Option<String>,
     /// A reference compound (name, synonym or CAS number).
     #[arg(long)]
@@ -45,13 +45,13 @@ pub struct Args {
     #[arg(long, short = 'p')]
     pub pressure: Vec<String>,
     /// Pressure range "LOW..HIGH", log-spaced by --steps.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub pressure_range: Option<String>,
     /// Temperature with unit, e.g. "85 degC" (repeatable): gives vapor pressure.
-    #[arg(long, short = 't')]
+    #[arg(long, short = 't', allow_hyphen_values = true)]
     pub temperature: Vec<String>,
     /// Temperature range "LOW..HIGH", evenly spaced by --steps.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub temperature_range: Option<String>,
     /// Number of points in a range.
     #[arg(long, default_value_t = 10)]

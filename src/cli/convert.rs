@@ -2,10 +2,15 @@
 
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
+use ebullio::fit::options::ModelSelection;
+use ebullio::refit::refit;
+use ebullio::units::{parse_pressure, parse_temperature};
 use ebullio::vapor::{convert, AntoineConstants, AntoineConvention};
 
 /// Convert Antoine constants between conventions (log base, pressure unit,
-/// temperature unit). Unit and base changes are exact.
+/// temperature unit), exactly; or into another equation form (--model
+/// clapeyron|riedel|wagner) by refitting over the validity range (--range),
+/// reporting the largest deviation the refit introduced.
 ///
 /// Example: ebullio convert --antoine "14.3145,2756.22,228.060" --constants "ln,kPa,degC" --to "log10,mmHg,degC"
 #[derive(Debug, clap::Args)]
@@ -16,9 +21,18 @@ pub struct Args {
     /// Convention of the given constants, e.g. "log10,mmHg,degC".
     #[arg(long)]
     pub constants: String,
-    /// Target convention, e.g. "ln,kPa,K".
+    /// Target convention, e.g. "ln,kPa,K" (for an Antoine target).
     #[arg(long)]
-    pub to: String,
+    pub to: Option<String>,
+    /// Target equation: antoine (exact, default), clapeyron, riedel or wagner (refit).
+    #[arg(long, default_value = "antoine")]
+    pub model: String,
+    /// Validity range to refit over, e.g. "-26 degC..77 degC".
+    #[arg(long, allow_hyphen_values = true)]
+    pub range: Option<String>,
+    /// Critical point "Tc,pc" with units for Wagner, e.g. "508.1 K,47.0 bar".
+    #[arg(long)]
+    pub critical: Option<String>,
     #[command(flatten)]
     pub out: OutputArgs,
 }
@@ -60,14 +74,113 @@ pub fn parse_abc(s: &str) -> Result<[f64; 3], InputError> {
     Ok(v)
 }
 
+#[derive(serde::Serialize)]
+struct Refitted {
+    model: String,
+    parameters: Vec<Param>,
+    convention: String,
+    exact: bool,
+    range_k: (f64, f64),
+    max_rel_dev_pct: f64,
+}
+
+#[derive(serde::Serialize)]
+struct Param {
+    name: String,
+    value: f64,
+}
+
+fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow::Result<Outcome> {
+    let mut k = k;
+    if let Some(r) = &args.range {
+        let (lo, hi) = r.split_once("..").ok_or_else(|| {
+            InputError(format!(
+                "--range '{r}': write it as \"LOW..HIGH\", e.g. \"20 degC..110 degC\""
+            ))
+        })?;
+        let lo = parse_temperature(lo).map_err(|e| InputError(format!("--range: {e}")))?;
+        let hi = parse_temperature(hi).map_err(|e| InputError(format!("--range: {e}")))?;
+        k = k.with_range_k(lo.kelvin(), hi.kelvin());
+    }
+    let critical = match &args.critical {
+        Some(s) => {
+            let (t, p) = s.split_once(',').ok_or_else(|| {
+                InputError(format!(
+                    "--critical '{s}': write it as \"Tc,pc\" with units"
+                ))
+            })?;
+            let t = parse_temperature(t).map_err(|e| InputError(format!("--critical: {e}")))?;
+            let p = parse_pressure(p).map_err(|e| InputError(format!("--critical: {e}")))?;
+            Some((t.kelvin(), p.pa()))
+        }
+        None => None,
+    };
+    let r = refit(&k, model, critical).map_err(|e| InputError(e.to_string()))?;
+    let out = Refitted {
+        model: r.model.clone(),
+        parameters: r
+            .parameters
+            .iter()
+            .map(|(n, v)| Param {
+                name: n.clone(),
+                value: *v,
+            })
+            .collect(),
+        convention: r.convention.clone(),
+        exact: false,
+        range_k: r.range_k,
+        max_rel_dev_pct: r.max_rel_dev_pct,
+    };
+    let text = match args.out.format() {
+        Format::Json => serde_json::to_string_pretty(&out)? + "\n",
+        Format::Csv => {
+            let mut s = String::from("model,name,value,convention,exact,max_rel_dev_pct\n");
+            for p in &out.parameters {
+                s.push_str(&format!(
+                    "{},{},{},\"{}\",false,{}\n",
+                    out.model, p.name, p.value, out.convention, out.max_rel_dev_pct
+                ));
+            }
+            s
+        }
+        Format::Table => {
+            let mut s = format!(
+                "{} constants ({}), refitted over {:.2}-{:.2} K (not exact)\n",
+                out.model, out.convention, out.range_k.0, out.range_k.1
+            );
+            for p in &out.parameters {
+                s.push_str(&format!("  {} = {}\n", p.name, p.value));
+            }
+            s.push_str(&format!(
+                "Largest deviation from the Antoine curve over the range: {:.3} % in p\n",
+                out.max_rel_dev_pct
+            ));
+            s
+        }
+    };
+    args.out.emit(&text, &[])?;
+    Ok(Outcome::Success)
+}
+
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let [a, b, c] = parse_abc(&args.antoine)?;
     let from: AntoineConvention = args
         .constants
         .parse()
         .map_err(|e| InputError(format!("--constants: {e}")))?;
+    let model: ModelSelection = args
+        .model
+        .parse()
+        .map_err(|e: String| InputError(format!("--model: {e}")))?;
+    if !matches!(model, ModelSelection::Antoine) {
+        return run_refit(&args, AntoineConstants::new(a, b, c, from), model);
+    }
     let to: AntoineConvention = args
         .to
+        .as_deref()
+        .ok_or_else(|| {
+            InputError("--to is needed for an Antoine target, e.g. --to \"log10,mmHg,degC\"".into())
+        })?
         .parse()
         .map_err(|e| InputError(format!("--to: {e}")))?;
     let k = convert::exact(&AntoineConstants::new(a, b, c, from), to);
