@@ -58,6 +58,18 @@ pub struct Args {
     /// Draw ln p against 1/T with the fit, its 95 % band and residuals to this SVG file.
     #[arg(long, value_name = "FILE.svg")]
     pub plot: Option<PathBuf>,
+    /// Compare with this bundled reference compound (else the `compound` column is tried).
+    #[arg(long)]
+    pub compound: Option<String>,
+    /// Structure (SMILES) for the reference lookup and the Joback comparison.
+    #[arg(long)]
+    pub smiles: Option<String>,
+    /// Allowed relative difference in p from the reference curve, in percent.
+    #[arg(long, default_value_t = 2.0)]
+    pub ref_p_tolerance_pct: f64,
+    /// Allowed difference in normal boiling point from the reference, in K.
+    #[arg(long, default_value_t = 0.5)]
+    pub ref_tb_tolerance_k: f64,
     #[command(flatten)]
     pub out: OutputArgs,
 }
@@ -162,11 +174,26 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     if let Some(b) = bar {
         b.finish_and_clear();
     }
+    let tol = ebullio::reference::compare::Tolerances {
+        p_rel: args.ref_p_tolerance_pct / 100.0,
+        tb_k: args.ref_tb_tolerance_k,
+    };
+    let lib = ebullio::reference::Library::bundled();
     let rows: Vec<Row> = results
         .into_iter()
         .zip(&data.sets)
         .map(|(r, s)| match r {
-            Ok(rep) => Row::Ok(Box::new(rep)),
+            Ok(mut rep) => {
+                let smiles = args.smiles.as_deref().or(s.smiles.as_deref());
+                ebullio::reference::fit_check::check_fit(
+                    &mut rep,
+                    lib,
+                    args.compound.as_deref(),
+                    smiles,
+                    tol,
+                );
+                Row::Ok(Box::new(rep))
+            }
             Err(e) => Row::Failed {
                 compound: s.compound.clone(),
                 error: e.to_string(),
