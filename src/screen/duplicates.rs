@@ -92,14 +92,19 @@ pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)
         if with_tb.len() < 2 {
             continue;
         }
+        // The farthest member from any value is the group's minimum or maximum,
+        // so the whole group is O(n), not O(n²).
+        let by_tb = |a: &&usize, b: &&usize| keys[**a].tb_k.total_cmp(&keys[**b].tb_k);
+        let (Some(&lo), Some(&hi)) = (with_tb.iter().min_by(by_tb), with_tb.iter().max_by(by_tb))
+        else {
+            continue;
+        };
         for &i in &with_tb {
             let v = keys[i].tb_k;
-            let Some(&far) = with_tb.iter().filter(|&&j| j != i).max_by(|&&a, &&b| {
-                (keys[a].tb_k - v)
-                    .abs()
-                    .total_cmp(&(keys[b].tb_k - v).abs())
-            }) else {
-                continue;
+            let far = if (keys[hi].tb_k - v).abs() >= (v - keys[lo].tb_k).abs() {
+                hi
+            } else {
+                lo
             };
             let d = (keys[far].tb_k - v).abs();
             if d > tol_k {
