@@ -26,6 +26,9 @@ pub struct Args {
     /// curve), repeatable; a name may follow after a space: "CC(=O)C acetone".
     #[arg(long, value_name = "SMILES")]
     pub smiles: Vec<String>,
+    /// A bundled reference compound by name, synonym or CAS number (repeatable).
+    #[arg(long, value_name = "NAME")]
+    pub compound: Vec<String>,
     /// A component from a fit result file written by `ebullio fit --format json`
     /// (repeatable; every compound in a batch file becomes a component).
     #[arg(long, value_name = "FIT.json")]
@@ -115,6 +118,22 @@ fn antoine_component(
         Box::new(AntoineConstants::new(a, b, c, conv)),
         format!("Antoine constants given on the command line ({conv}); no uncertainty stated"),
     ))
+}
+
+/// One `--compound` value into a component from the bundled reference.
+fn reference_component(name: &str) -> Result<Component, InputError> {
+    let lib = ebullio::reference::Library::bundled();
+    let c = lib
+        .find(name)
+        .map_err(|e| InputError(format!("--compound '{name}': {e}")))?;
+    let curve = c.best_curve().ok_or_else(|| {
+        InputError(format!(
+            "--compound '{name}': the reference has no vapor-pressure curve for {}",
+            c.name
+        ))
+    })?;
+    let source = format!("reference: {}", curve.source);
+    Ok(Component::new(c.name.clone(), Box::new(curve), source))
 }
 
 /// One `--smiles` value into a component.
@@ -208,6 +227,9 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
         .iter()
         .map(|t| antoine_component(t, default))
         .collect::<Result<Vec<_>, _>>()?;
+    for c in &args.compound {
+        comps.push(reference_component(c)?);
+    }
     for s in &args.smiles {
         comps.push(smiles_component(s)?);
     }
@@ -216,7 +238,7 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
     }
     if comps.len() < 2 {
         return Err(InputError(format!(
-            "a plan needs at least two components (any mix of --antoine, --smiles, --from); {} given",
+            "a plan needs at least two components (any mix of --antoine, --compound, --smiles, --from); {} given",
             comps.len()
         )));
     }
