@@ -6,6 +6,8 @@ use std::path::PathBuf;
 
 /// Run the whole job on the embedded demo scenario (INVENTED in-house data of a
 /// fictional site) and write a report folder. Needs no input and no network.
+///
+/// Example: ebullio demo --output ebullio-demo
 #[derive(Debug, clap::Args)]
 pub struct Args {
     /// Folder to write (report.html, fits.json, estimates.json, the demo data).
