@@ -45,38 +45,8 @@ pub fn escape(s: &str) -> String {
     out
 }
 
-/// Severity of a finding, as everywhere in ebullio: info, warning, error.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash, Serialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Severity {
-    /// Worth knowing.
-    Info,
-    /// Check before use.
-    Warning,
-    /// Do not use as is.
-    Error,
-}
-
-impl Severity {
-    /// `info`, `warning` or `error`.
-    pub fn as_str(self) -> &'static str {
-        match self {
-            Severity::Info => "info",
-            Severity::Warning => "warning",
-            Severity::Error => "error",
-        }
-    }
-
-    /// Parse `info`/`warning`/`error` (any case); `None` otherwise.
-    pub fn parse(s: &str) -> Option<Self> {
-        match s.trim().to_ascii_lowercase().as_str() {
-            "info" => Some(Severity::Info),
-            "warning" | "warn" => Some(Severity::Warning),
-            "error" => Some(Severity::Error),
-            _ => None,
-        }
-    }
-}
+/// Severity of a finding: the same type the table screener uses.
+pub use crate::screen::Severity;
 
 /// One finding shown in the report: what it is about, a stable code, a sentence.
 #[derive(Debug, Clone, PartialEq, Serialize)]
