@@ -107,3 +107,81 @@ fn measured_point_anchors_the_curve() {
     let tb = v["anchored"]["tb_k"].as_f64().unwrap();
     assert!((tb - 390.85).abs() < 0.01, "{tb}");
 }
+
+/// The same structures as CSV and as Parquet give the same estimates; a ragged and a
+/// non-UTF-8 row in the CSV become row errors naming the line, and the batch goes on.
+#[test]
+fn parquet_input_matches_csv_and_unreadable_rows_are_row_errors() {
+    use polars::prelude::*;
+    use polars_io::prelude::*;
+    let dir = tempfile::tempdir().unwrap();
+    let names = ["ethyl acetate", "toluene", "isopropanol"];
+    let smiles = ["CCOC(C)=O", "Cc1ccccc1", "CC(C)O"];
+    let mut df = df!("compound" => &names, "structure" => &smiles).unwrap();
+    let pq = dir.path().join("in.parquet");
+    ParquetWriter::new(std::fs::File::create(&pq).unwrap())
+        .finish(&mut df)
+        .unwrap();
+    let csv_in = dir.path().join("in.csv");
+    let mut text = String::from("compound,structure\n");
+    for (n, s) in names.iter().zip(smiles) {
+        text.push_str(&format!("{n},{s}\n"));
+    }
+    let mut bytes = text.into_bytes();
+    bytes.extend_from_slice(b"ragged\nlatin,C\xB0C\n");
+    std::fs::write(&csv_in, bytes).unwrap();
+    let run = |input: &std::path::Path, out: &str| {
+        let output = dir.path().join(out);
+        let o = ebullio()
+            .args(["estimate", "--smiles-column", "structure", "--input"])
+            .arg(input)
+            .arg("--output")
+            .arg(&output)
+            .output()
+            .unwrap();
+        assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+        std::fs::read_to_string(&output).unwrap()
+    };
+    let from_pq = run(&pq, "pq.csv");
+    let from_csv = run(&csv_in, "csv.csv");
+    let pq_lines: Vec<&str> = from_pq.lines().collect();
+    let csv_lines: Vec<&str> = from_csv.lines().collect();
+    assert_eq!(pq_lines.len(), 4, "{from_pq}");
+    assert_eq!(pq_lines[..], csv_lines[..4]);
+    assert!(pq_lines[2].starts_with("toluene,Cc1ccccc1,C7H8,"));
+    assert!(
+        csv_lines[4].contains("line 5") && csv_lines[4].contains("fields"),
+        "{}",
+        csv_lines[4]
+    );
+    assert!(
+        csv_lines[5].contains("line 6") && csv_lines[5].contains("UTF-8"),
+        "{}",
+        csv_lines[5]
+    );
+}
+
+/// A missing structure column in a Parquet file is exit 2 naming the columns there are.
+#[test]
+fn parquet_without_the_structure_column_is_exit_2() {
+    use polars::prelude::*;
+    use polars_io::prelude::*;
+    let dir = tempfile::tempdir().unwrap();
+    let mut df = df!("compound" => &["a"], "mol" => &["CCO"]).unwrap();
+    let pq = dir.path().join("in.parquet");
+    ParquetWriter::new(std::fs::File::create(&pq).unwrap())
+        .finish(&mut df)
+        .unwrap();
+    let o = ebullio()
+        .args(["estimate", "--input"])
+        .arg(&pq)
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&o.stderr);
+    assert!(
+        err.contains("no column 'smiles' (columns: compound, mol)"),
+        "{err}"
+    );
+    assert!(err.contains("--smiles-column"), "{err}");
+}

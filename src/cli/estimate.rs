@@ -2,11 +2,11 @@
 
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
-use anyhow::Context;
 use ebullio::estimate::anchor::{anchor, Anchored, MeasuredPoint};
 use ebullio::estimate::{
     calibration, estimate_groups, estimate_smiles, group, parse_groups, Estimate, EstimateError,
 };
+use ebullio::table_io::read_text_table;
 use ebullio::units::{parse_pressure, parse_temperature, PressureUnit};
 use ebullio::vapor::Curve;
 use rayon::prelude::*;
@@ -25,7 +25,7 @@ pub struct Args {
     /// A structure as SMILES (repeatable).
     #[arg(long, value_name = "SMILES")]
     pub smiles: Vec<String>,
-    /// A CSV table of structures (one estimate per row; a `compound` or `name` column is carried through).
+    /// A CSV or Parquet table of structures (one estimate per row; a `compound` or `name` column is carried through).
     #[arg(long, value_name = "FILE")]
     pub input: Option<PathBuf>,
     /// Column of --input that holds the SMILES.
@@ -97,39 +97,23 @@ fn read_jobs(args: &Args) -> anyhow::Result<Vec<Job>> {
         })
         .collect();
     if let Some(path) = &args.input {
-        let mut rdr = csv::ReaderBuilder::new()
-            .flexible(true)
-            .from_path(path)
-            .with_context(|| format!("reading {}", path.display()))?;
-        let headers = rdr
-            .headers()
-            .with_context(|| format!("reading the header line of {}", path.display()))?
-            .clone();
-        let find = |name: &str| {
-            headers
-                .iter()
-                .position(|h| h.trim().eq_ignore_ascii_case(name))
-        };
-        let col = find(&args.smiles_column).ok_or_else(|| {
-            InputError(format!(
-                "{}: line 1: no column '{}' (columns: {}); choose one with --smiles-column",
-                path.display(),
-                args.smiles_column,
-                headers.iter().collect::<Vec<_>>().join(", ")
-            ))
-        })?;
-        let name_col = find("compound").or_else(|| find("name"));
-        for (n, rec) in rdr.records().enumerate() {
-            match rec {
-                Ok(r) => jobs.push(Job {
-                    compound: name_col.and_then(|c| r.get(c)).map(str::to_string),
-                    smiles: Some(r.get(col).unwrap_or("").to_string()),
+        let table = read_text_table(path)?;
+        let col = table.require_column(
+            &args.smiles_column,
+            "choose the structure column with --smiles-column",
+        )?;
+        let name_col = table.column("compound").or_else(|| table.column("name"));
+        for row in table.rows {
+            match row.cells {
+                Ok(cells) => jobs.push(Job {
+                    compound: name_col.and_then(|c| cells.get(c)).cloned(),
+                    smiles: Some(cells.get(col).cloned().unwrap_or_default()),
                     read_error: None,
                 }),
                 Err(e) => jobs.push(Job {
                     compound: None,
                     smiles: None,
-                    read_error: Some(format!("{}: line {}: {e}", path.display(), n + 2)),
+                    read_error: Some(e.to_string()),
                 }),
             }
         }

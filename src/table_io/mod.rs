@@ -15,6 +15,7 @@ pub mod parquet;
 #[cfg(feature = "tables")]
 pub mod property_table;
 pub mod source;
+pub mod text_table;
 
 pub use atomic::{write_atomic, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
@@ -22,3 +23,4 @@ pub use measured::{
     read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
     ReadWarning,
 };
+pub use text_table::{read_text_table, TextRow, TextTable};
