@@ -56,7 +56,8 @@ impl TextTable {
 }
 
 /// Read a CSV or Parquet table (format from the extension or the Parquet magic bytes) as
-/// text cells. `-` reads standard input.
+/// text cells. `-` reads standard input. In CSV, blank lines and lines starting with `#`
+/// are skipped (row numbers still count them).
 ///
 /// ```
 /// use ebullio::table_io::text_table::read_text_table;
@@ -89,6 +90,7 @@ fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
     let mut rdr = csv::ReaderBuilder::new()
         .has_headers(false)
         .flexible(true)
+        .comment(Some(b'#'))
         .from_reader(body);
     let mut headers: Option<Vec<String>> = None;
     let mut rows = Vec::new();
@@ -97,10 +99,20 @@ fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
     // offsets: `line` is the 1-based line at byte `counted`.
     let (mut counted, mut line) = (0usize, 1u64);
     let mut line_at = |byte: usize| {
-        // A record's recorded start can sit before the blank lines skipped ahead of it.
+        // A record's recorded start can sit before the blank and comment lines skipped
+        // ahead of it.
         let mut byte = byte.min(body.len());
-        while body.get(byte).is_some_and(|b| matches!(b, b'\n' | b'\r')) {
-            byte += 1;
+        while let Some(&b) = body.get(byte) {
+            match b {
+                b'\n' | b'\r' => byte += 1,
+                b'#' => {
+                    byte = body[byte..]
+                        .iter()
+                        .position(|&c| c == b'\n')
+                        .map_or(body.len(), |k| byte + k + 1)
+                }
+                _ => break,
+            }
         }
         if byte > counted {
             line += body[counted..byte].iter().filter(|&&b| b == b'\n').count() as u64;
@@ -255,11 +267,11 @@ mod tests {
 
     #[test]
     fn bom_blank_lines_and_case_insensitive_headings() {
-        let t = table(b"\xEF\xBB\xBFName , SMILES\n\nx,C\n");
+        let t = table(b"\xEF\xBB\xBF# a note, with \"commas\"\nName , SMILES\n\n# more\nx,C\n");
         assert_eq!(t.column("smiles"), Some(1));
         assert_eq!(t.column("name"), Some(0));
         assert_eq!(t.rows.len(), 1);
-        assert_eq!(t.rows[0].number, 3);
+        assert_eq!(t.rows[0].number, 5);
         let e = t
             .require_column("structure", "use --smiles-column")
             .unwrap_err();
