@@ -8,6 +8,7 @@
 
 pub mod atomic;
 pub mod error;
+pub mod estimates;
 pub mod headings;
 pub mod measured;
 #[cfg(feature = "tables")]
@@ -18,6 +19,7 @@ pub mod source;
 pub mod text_table;
 
 pub use atomic::{write_atomic, OutputError};
+pub use estimates::estimates_csv;
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use measured::{
     read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,

@@ -398,6 +398,33 @@ impl PropertyTable {
         Self::from_frame(frame, path, line0, opts)
     }
 
+    /// Read a CSV property table held in memory (an embedded file), with
+    /// `path` naming it in messages. Leading lines starting with `#` are
+    /// comments (the demo files' provenance note) and are skipped; line
+    /// numbers in findings still count them.
+    pub fn from_csv_bytes(
+        bytes: &[u8],
+        path: &Path,
+        opts: &PropertyReadOptions,
+    ) -> Result<Self, TableError> {
+        let mut start = 0;
+        let mut comments = 0;
+        while bytes[start..].starts_with(b"#") {
+            match bytes[start..].iter().position(|&b| b == b'\n') {
+                Some(i) => start += i + 1,
+                None => start = bytes.len(),
+            }
+            comments += 1;
+        }
+        let df = CsvReadOptions::default()
+            .with_has_header(true)
+            .with_infer_schema_length(Some(0))
+            .into_reader_with_file_handle(std::io::Cursor::new(bytes[start..].to_vec()))
+            .finish()
+            .map_err(|e| read_err(path, e))?;
+        Self::from_frame(df, path, 2 + comments, opts)
+    }
+
     /// Recognise the columns of an already-read frame. `line0` is the line of
     /// the first data row (2 for CSV with a header, 1 for Parquet).
     pub fn from_frame(
