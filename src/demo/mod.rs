@@ -364,7 +364,6 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
             p.plan.verdict.message
         ));
     }
-    s.findings(run.findings.clone());
     let mut t = Table::new([
         "compound",
         "source",
@@ -402,6 +401,14 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         }
     }
     s.table(t.caption("Boiling points at the planned vacuum (20 mbar)"));
+    s.paragraph("Warnings and errors below, worst first; every finding, information included, is in its section.");
+    s.findings(
+        run.findings
+            .iter()
+            .filter(|f| f.severity >= Severity::Warning)
+            .cloned()
+            .collect(),
+    );
 
     let curves: Vec<FittedCurve> = run.fits.iter().map(FittedCurve::from_report).collect();
     let mut plot = CurvePlot::new("Fitted vapor-pressure curves", (300.0, 480.0))

@@ -3,9 +3,11 @@
 //! Shared by `ebullio estimate --report` and the demo. Formatting only.
 
 use super::fit_section::mbar;
-use super::html::{Finding, Report, Section, Severity, Table};
+use super::curve_plot::{CurvePlot, PlotCurve};
+use super::html::{Figure, Finding, Report, Section, Severity, Table};
 use crate::estimate::batch::EstimateRow;
-use crate::estimate::{calibration, group, Estimate};
+use crate::estimate::{calibration, group, Estimate, LeeKeslerCurve};
+use crate::vapor::Curve;
 
 fn label(r: &EstimateRow, i: usize) -> String {
     r.compound
@@ -172,6 +174,45 @@ pub fn group_table(e: &Estimate) -> Table {
     t
 }
 
+/// The estimated (anchored, where anchored) curves from 1 mbar to 1 atm in one plot.
+fn curves_figure(rows: &[EstimateRow]) -> Option<Figure> {
+    let curves: Vec<(String, LeeKeslerCurve)> = rows
+        .iter()
+        .enumerate()
+        .filter_map(|(i, r)| {
+            let c = match &r.anchored {
+                Some(a) => Some(a.curve.clone()),
+                None => r.estimate.as_ref().and_then(|e| e.curve()),
+            }?;
+            Some((label(r, i), c))
+        })
+        .collect();
+    let lo = curves
+        .iter()
+        .filter_map(|(_, c)| c.t_at(100.0))
+        .fold(f64::INFINITY, f64::min);
+    let hi = curves
+        .iter()
+        .filter_map(|(_, c)| c.t_at(101_325.0))
+        .fold(f64::NEG_INFINITY, f64::max);
+    if !(lo.is_finite() && hi > lo) {
+        return None;
+    }
+    let mut plot = CurvePlot::new("Estimated vapor-pressure curves (Lee–Kesler)", (lo - 5.0, hi + 5.0));
+    for (n, c) in &curves {
+        plot = plot.curve(PlotCurve::new(n.clone(), c));
+    }
+    for p in rows.first().map(|r| r.at.as_slice()).unwrap_or(&[]) {
+        plot = plot.pressure_line(mbar(p.p_pa), p.p_pa);
+    }
+    let svg = plot.render_svg().ok()?;
+    Figure::new(
+        &svg,
+        "Estimated curves from 1 mbar to 1 atm (anchored curves where a measured point was given); estimates, not measurements",
+    )
+    .ok()
+}
+
 /// Add the estimates to `section`: the summary table, the boiling points at
 /// pressures, then per structure its properties, anchoring and group breakdown,
 /// and the dev-set calibration behind the intervals.
@@ -180,6 +221,9 @@ pub fn add_estimates(section: &mut Section, rows: &[EstimateRow]) {
     let at = at_pressure_table(rows);
     if !at.is_empty() {
         section.table(at);
+    }
+    if let Some(fig) = curves_figure(rows) {
+        section.figure(fig);
     }
     let cal = calibration();
     section.paragraph(format!(

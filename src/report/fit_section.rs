@@ -47,6 +47,30 @@ pub fn mbar(p_pa: f64) -> String {
     format!("{s} mbar")
 }
 
+/// `text` without its web addresses: a report links to nothing outside itself
+/// (the full source, with its address, is in the fit JSON and `reference-data/SOURCES.md`).
+pub fn without_urls(text: &str) -> String {
+    let kept: Vec<String> = text
+        .split(' ')
+        .filter_map(|w| {
+            if w.contains("://") || w.starts_with("www.") {
+                // Keep closing punctuation the address carried.
+                let tail: String = w.chars().rev().take_while(|c| matches!(c, ')' | ',' | ';')).collect();
+                (!tail.is_empty()).then_some(tail)
+            } else {
+                Some(w.to_string())
+            }
+        })
+        .collect();
+    kept.join(" ")
+        .replace(" also at )", ")")
+        .replace(" at )", ")")
+        .replace(" )", ")")
+        .replace(" ;", ";")
+        .replace(" ,", ",")
+        .replace(";;", ";")
+}
+
 /// Every fit's flags as report findings, with the compound as subject.
 pub fn fit_findings(fits: &[FitReport]) -> Vec<Finding> {
     fits.iter()
@@ -305,7 +329,7 @@ fn add_reference(sub: &mut Section, f: &FitReport) {
                     .to_string()
             };
             facts.push(("reference compound", s("compound")));
-            facts.push(("reference source", s("reference_source")));
+            facts.push(("reference source", without_urls(&s("reference_source"))));
             facts.push((
                 "max |p fit / p ref − 1|",
                 num(rf.get("max_rel_diff_pct"), "%"),
@@ -373,4 +397,26 @@ pub fn fit_report(
     let fs = r.section("Fits");
     add_fits(fs, fits, pressures_pa);
     r
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn addresses_are_dropped_and_the_citation_kept() {
+        let s = "Smith, App. B; https://example.org/b.pdf (columns A,B also at https://example.org/x.html) (file, line 8)";
+        assert_eq!(
+            without_urls(s),
+            "Smith, App. B; (columns A,B) (file, line 8)"
+        );
+        assert_eq!(without_urls("no address"), "no address");
+    }
+
+    #[test]
+    fn mbar_has_sensible_digits() {
+        assert_eq!(mbar(2000.0), "20 mbar");
+        assert_eq!(mbar(101_325.0), "1013.2 mbar");
+        assert_eq!(mbar(66.66), "0.6666 mbar");
+    }
 }
