@@ -86,8 +86,14 @@ fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
     let o = bin().args(["demo", "--output"]).arg(&out).output().unwrap();
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     let stdout = String::from_utf8_lossy(&o.stdout);
-    assert!(stdout.contains("Supplier table: 12 rows checked"), "{stdout}");
-    assert!(stdout.contains("Plan: 1-butanol / HV-12 ketone at 20 mbar"), "{stdout}");
+    assert!(
+        stdout.contains("Supplier table: 12 rows checked"),
+        "{stdout}"
+    );
+    assert!(
+        stdout.contains("Plan: 1-butanol / HV-12 ketone at 20 mbar"),
+        "{stdout}"
+    );
     assert!(stdout.contains("Ideal solution assumed"), "{stdout}");
 
     // estimates.csv: the columns of `ebullio estimate --format csv`, one row per new structure.
@@ -108,12 +114,22 @@ fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
         "anchored_tb_k",
         "error",
     ] {
-        assert!(head.iter().any(|h| h == col), "estimates.csv lacks {col}: {head:?}");
+        assert!(
+            head.iter().any(|h| h == col),
+            "estimates.csv lacks {col}: {head:?}"
+        );
     }
     let rows: Vec<Vec<String>> = lines.map(fields).collect();
-    assert_eq!(rows.len(), 5, "five new structures (reference-data/demo/new-structures.csv)");
+    assert_eq!(
+        rows.len(),
+        5,
+        "five new structures (reference-data/demo/new-structures.csv)"
+    );
     let col = |n: &str| head.iter().position(|h| h == n).unwrap();
-    let anchored: Vec<&Vec<String>> = rows.iter().filter(|r| !r[col("anchored_tb_k")].is_empty()).collect();
+    let anchored: Vec<&Vec<String>> = rows
+        .iter()
+        .filter(|r| !r[col("anchored_tb_k")].is_empty())
+        .collect();
     assert_eq!(anchored.len(), 1);
     assert_eq!(anchored[0][col("compound")], "HV-36 benzyloxy acetate");
     for r in &rows {
@@ -132,7 +148,10 @@ fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
     assert_eq!(checked_rows.len(), input_rows.len());
     let in_head = fields(input_rows[0]);
     assert_eq!(checked_rows[0][..in_head.len()], in_head[..]);
-    assert_eq!(checked_rows[0][in_head.len()..], ["flags", "severity", "diagnosis"]);
+    assert_eq!(
+        checked_rows[0][in_head.len()..],
+        ["flags", "severity", "diagnosis"]
+    );
     for (a, b) in input_rows.iter().zip(&checked_rows).skip(1) {
         assert_eq!(fields(a)[..], b[..in_head.len()], "row changed");
     }
@@ -149,7 +168,9 @@ fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
     assert!(flags_of("methanol")[0].contains("slip-log-base"));
     assert!(flags_of("1-butanol")[0].contains("slip-tb-temperature-unit"));
     assert!(flags_of("dichloromethane")[0].contains("cas-check-digit"));
-    assert!(flags_of("acetonitrile").iter().all(|f| f.contains("duplicate-disagrees")));
+    assert!(flags_of("acetonitrile")
+        .iter()
+        .all(|f| f.contains("duplicate-disagrees")));
     assert!(flags_of("toluene")[0].is_empty());
 
     // The plan: JSON per the contract, and its section in the report.

@@ -368,8 +368,8 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         "compound",
         "source",
         "t at 20 mbar/°C",
-        "95 % interval/°C",
-        "extrapolated",
+        "interval/°C",
+        "outside the data",
     ]);
     for (name, b) in &run.fit_at_vacuum {
         let ci = match (b.ci95_low_k, b.ci95_high_k) {
@@ -381,26 +381,34 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
             "in-house fit".into(),
             c(b.t_k),
             ci,
-            b.extrapolated.to_string(),
+            if b.extrapolated { "yes" } else { "no" }.to_string(),
         ]);
     }
     for e in &run.estimates {
-        if let Some(tv) = e.at.first().and_then(|a| a.t_k) {
+        if let Some(a) = e.at.first().filter(|a| a.t_k.is_some()) {
             let src = if e.anchored.is_some() {
                 "estimate, anchored"
             } else {
                 "estimate (Joback + Lee–Kesler)"
             };
+            let ci = match (a.pi90_low_k, a.pi90_high_k) {
+                (Some(l), Some(h)) if e.anchored.is_none() => {
+                    format!("{} to {} (90 %)", c(l), c(h))
+                }
+                _ => String::new(),
+            };
             t.row([
                 e.compound.clone().unwrap_or_default(),
                 src.into(),
-                c(tv),
-                String::new(),
+                c(a.t_k.unwrap_or(f64::NAN)),
+                ci,
                 "estimate".into(),
             ]);
         }
     }
-    s.table(t.caption("Boiling points at the planned vacuum (20 mbar)"));
+    s.table(t.caption(
+        "Boiling points at the planned vacuum (20 mbar); intervals 95 % for fits, 90 % for estimates",
+    ));
     s.paragraph("Warnings and errors below, worst first; every finding, information included, is in its section.");
     s.findings(
         run.findings
@@ -433,7 +441,10 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         &run.fits,
         &[VACUUM_PA, 101_325.0],
     );
-    estimate_section::add_estimates(r.section("Estimates for the new structures"), &run.estimates);
+    estimate_section::add_estimates(
+        r.section("Estimates for the new structures"),
+        &run.estimates,
+    );
     #[cfg(feature = "tables")]
     if let Some(ch) = &run.check {
         let sec = r.section("Check of the supplier table");
@@ -472,7 +483,11 @@ pub fn summary(run: &DemoRun) -> String {
                 "  {:<28} {:>7} °C  (estimate{})\n",
                 e.compound.clone().unwrap_or_default(),
                 c(t),
-                if e.anchored.is_some() { ", anchored" } else { "" }
+                if e.anchored.is_some() {
+                    ", anchored"
+                } else {
+                    ""
+                }
             ));
         }
     }

@@ -36,8 +36,8 @@ pub fn add_check(section: &mut Section, table_name: &str, rows: &dyn Rows, repor
             ),
         ),
     ]);
-    let mut counts = Table::new(["code", "severity", "rows", "first diagnosis with this code"])
-        .caption("Rows per finding");
+    let mut counts =
+        Table::new(["code", "rows", "first diagnosis with this code"]).caption("Rows per finding");
     for c in &s.counts {
         let meaning = (0..report.len())
             .flat_map(|i| report.findings(i))
@@ -45,12 +45,7 @@ pub fn add_check(section: &mut Section, table_name: &str, rows: &dyn Rows, repor
             .map(|f| f.message.clone())
             .unwrap_or_default();
         counts.flagged_row(
-            [
-                c.code.to_string(),
-                c.severity.as_str().to_string(),
-                c.rows.to_string(),
-                meaning,
-            ],
+            [c.code.to_string(), c.rows.to_string(), meaning],
             Some(c.severity),
         );
     }

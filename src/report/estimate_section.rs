@@ -2,8 +2,8 @@
 //!
 //! Shared by `ebullio estimate --report` and the demo. Formatting only.
 
-use super::fit_section::mbar;
 use super::curve_plot::{CurvePlot, PlotCurve};
+use super::fit_section::mbar;
 use super::html::{Figure, Finding, Report, Section, Severity, Table};
 use crate::estimate::batch::EstimateRow;
 use crate::estimate::{calibration, group, Estimate, LeeKeslerCurve};
@@ -80,13 +80,17 @@ pub fn estimate_summary_table(rows: &[EstimateRow]) -> Table {
         "ω",
         "anchored Tb/K",
     ])
-    .caption("Estimated normal boiling points and critical constants (estimates are not measurements)");
+    .caption(
+        "Estimated normal boiling points and critical constants (estimates are not measurements)",
+    );
     for (i, r) in rows.iter().enumerate() {
         match &r.estimate {
             Some(e) => {
                 t.row([
                     label(r, i),
-                    e.smiles.clone().unwrap_or_else(|| "(groups by hand)".into()),
+                    e.smiles
+                        .clone()
+                        .unwrap_or_else(|| "(groups by hand)".into()),
                     format!("{:.1}", e.tb_k),
                     format!("{:.1} to {:.1}", e.tb_pi90_low_k, e.tb_pi90_high_k),
                     e.tb_variant.name().to_string(),
@@ -155,8 +159,8 @@ pub fn at_pressure_table(rows: &[EstimateRow]) -> Table {
 /// The Joback group breakdown of one estimate: each group, its count, its
 /// published ΔTb and its share of the Joback boiling point (198 K + Σ n·ΔTb).
 pub fn group_table(e: &Estimate) -> Table {
-    let mut t = Table::new(["group id", "group", "count", "ΔTb/K", "count × ΔTb/K"])
-        .caption(format!(
+    let mut t =
+        Table::new(["group id", "group", "count", "ΔTb/K", "count × ΔTb/K"]).caption(format!(
             "Joback groups: Tb(Joback) = 198 K + Σ count × ΔTb = {:.1} K",
             e.tb_joback_k
         ));
@@ -181,7 +185,7 @@ fn curves_figure(rows: &[EstimateRow]) -> Option<Figure> {
         .enumerate()
         .filter_map(|(i, r)| {
             let c = match &r.anchored {
-                Some(a) => Some(a.curve.clone()),
+                Some(a) => Some(a.curve),
                 None => r.estimate.as_ref().and_then(|e| e.curve()),
             }?;
             Some((label(r, i), c))
@@ -198,7 +202,10 @@ fn curves_figure(rows: &[EstimateRow]) -> Option<Figure> {
     if !(lo.is_finite() && hi > lo) {
         return None;
     }
-    let mut plot = CurvePlot::new("Estimated vapor-pressure curves (Lee–Kesler)", (lo - 5.0, hi + 5.0));
+    let mut plot = CurvePlot::new(
+        "Estimated vapor-pressure curves (Lee–Kesler)",
+        (lo - 5.0, hi + 5.0),
+    );
     for (n, c) in &curves {
         plot = plot.curve(PlotCurve::new(n.clone(), c));
     }

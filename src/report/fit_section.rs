@@ -55,7 +55,11 @@ pub fn without_urls(text: &str) -> String {
         .filter_map(|w| {
             if w.contains("://") || w.starts_with("www.") {
                 // Keep closing punctuation the address carried.
-                let tail: String = w.chars().rev().take_while(|c| matches!(c, ')' | ',' | ';')).collect();
+                let tail: String = w
+                    .chars()
+                    .rev()
+                    .take_while(|c| matches!(c, ')' | ',' | ';'))
+                    .collect();
                 (!tail.is_empty()).then_some(tail)
             } else {
                 Some(w.to_string())
@@ -77,7 +81,12 @@ pub fn fit_findings(fits: &[FitReport]) -> Vec<Finding> {
         .flat_map(|f| {
             let n = name(f);
             f.flags.iter().map(move |x| {
-                Finding::new(sev(x.severity), n.clone(), x.code.clone(), x.message.clone())
+                Finding::new(
+                    sev(x.severity),
+                    n.clone(),
+                    x.code.clone(),
+                    x.message.clone(),
+                )
             })
         })
         .collect()
@@ -109,7 +118,11 @@ pub fn fit_summary_table(fits: &[FitReport]) -> Table {
                     format!(
                         "{:.2}{}",
                         i.value,
-                        if i.extrapolated { " (extrapolated)" } else { "" }
+                        if i.extrapolated {
+                            " (extrapolated)"
+                        } else {
+                            ""
+                        }
                     )
                 })
                 .unwrap_or_else(|| "not reached".into()),
@@ -322,12 +335,7 @@ fn add_reference(sub: &mut Section, f: &FitReport) {
     let mut facts = Vec::new();
     match v.get("reference").filter(|x| !x.is_null()) {
         Some(rf) => {
-            let s = |k: &str| {
-                rf.get(k)
-                    .and_then(|x| x.as_str())
-                    .unwrap_or("")
-                    .to_string()
-            };
+            let s = |k: &str| rf.get(k).and_then(|x| x.as_str()).unwrap_or("").to_string();
             facts.push(("reference compound", s("compound")));
             facts.push(("reference source", without_urls(&s("reference_source"))));
             facts.push((

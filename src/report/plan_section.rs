@@ -68,7 +68,10 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
         ("operating pressure", pressure),
         (
             "key pair",
-            format!("{} / {}, Δt_b = {:.2} K", d.pair.light, d.pair.heavy, d.pair.delta_tb_k),
+            format!(
+                "{} / {}, Δt_b = {:.2} K",
+                d.pair.light, d.pair.heavy, d.pair.delta_tb_k
+            ),
         ),
         (
             "relative volatility (Raoult)",
@@ -101,8 +104,9 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
             ),
         ),
     ]);
-    let mut ct = Table::new(["component", "t_b/°C", "95 % interval/°C", "source"])
-        .caption(format!("Components at {}, lightest first", mbar(plan.pressure_pa)));
+    let mut ct = Table::new(["component", "t_b/°C", "95 % interval/°C", "source"]).caption(
+        format!("Components at {}, lightest first", mbar(plan.pressure_pa)),
+    );
     for k in &plan.components {
         ct.flagged_row(
             [
@@ -115,7 +119,11 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
                 format!(
                     "{}{}",
                     k.source,
-                    if k.extrapolated { " (extrapolated)" } else { "" }
+                    if k.extrapolated {
+                        " (extrapolated)"
+                    } else {
+                        ""
+                    }
                 ),
             ],
             k.extrapolated.then_some(Severity::Warning),
@@ -133,7 +141,8 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
     let mut head = vec!["p".to_string()];
     head.extend(plan.components.iter().map(|k| format!("t_b {}/°C", k.name)));
     head.extend(["Δt_b/K", "α", "N_min"].map(String::from));
-    let mut pt = Table::new(head).caption("The key pair across pressures (operating pressure marked)");
+    let mut pt =
+        Table::new(head).caption("The key pair across pressures (operating pressure marked)");
     for r in &plan.pressure_table {
         let mut row = vec![format!(
             "{}{}",

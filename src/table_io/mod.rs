@@ -19,8 +19,8 @@ pub mod source;
 pub mod text_table;
 
 pub use atomic::{write_atomic, OutputError};
-pub use estimates::estimates_csv;
 pub use error::{Locus, ReadError, ReadErrorKind};
+pub use estimates::estimates_csv;
 pub use measured::{
     read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
     ReadWarning,
