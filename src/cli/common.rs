@@ -179,7 +179,7 @@ pub fn command_line() -> String {
 }
 
 /// Write an HTML report atomically, refusing any of `inputs` and the
-/// command's own output file.
+/// command's own output file. Written after the main output.
 pub fn write_report(
     path: &Path,
     html: &str,
@@ -188,6 +188,10 @@ pub fn write_report(
 ) -> anyhow::Result<()> {
     let mut refuse: Vec<&Path> = inputs.to_vec();
     refuse.extend(output);
-    ebullio::table_io::write_atomic(path, html.as_bytes(), &refuse)
-        .with_context(|| format!("writing the report {}", path.display()))
+    // Like `emit`: an interrupt waits for the rename, so no partial report is left.
+    let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
+    let r = ebullio::table_io::write_atomic(path, html.as_bytes(), &refuse)
+        .with_context(|| format!("writing the report {}", path.display()));
+    *written = r.is_ok();
+    r
 }

@@ -365,6 +365,15 @@ pub struct PropertyTable {
     bad: HashMap<usize, Vec<(String, String)>>,
 }
 
+/// Whether the file's first byte is `#` (a provenance comment line).
+fn starts_with_comment(path: &Path) -> bool {
+    use std::io::Read;
+    let mut b = [0u8; 1];
+    std::fs::File::open(path)
+        .and_then(|mut f| f.read_exact(&mut b))
+        .is_ok_and(|_| b[0] == b'#')
+}
+
 fn read_frame(path: &Path) -> Result<(DataFrame, usize), TableError> {
     let ext = path
         .extension()
@@ -392,8 +401,13 @@ fn read_frame(path: &Path) -> Result<(DataFrame, usize), TableError> {
 
 impl PropertyTable {
     /// Read a CSV or Parquet property table (by extension; anything not
-    /// `.parquet` is read as CSV) and recognise its columns.
+    /// `.parquet` is read as CSV) and recognise its columns. Leading `#`
+    /// lines of a CSV are comments (see [`PropertyTable::from_csv_bytes`]).
     pub fn read(path: &Path, opts: &PropertyReadOptions) -> Result<Self, TableError> {
+        if !is_parquet(path) && starts_with_comment(path) {
+            let bytes = std::fs::read(path).map_err(|e| read_err(path, e))?;
+            return Self::from_csv_bytes(&bytes, path, opts);
+        }
         let (frame, line0) = read_frame(path)?;
         Self::from_frame(frame, path, line0, opts)
     }
