@@ -57,3 +57,143 @@ fn demo_refuses_a_non_empty_folder_without_force() {
         .unwrap();
     assert!(o.status.success());
 }
+
+/// Split one CSV line (quoted fields may hold commas).
+fn fields(line: &str) -> Vec<String> {
+    let mut out = Vec::new();
+    let mut cur = String::new();
+    let mut quoted = false;
+    let mut chars = line.chars().peekable();
+    while let Some(c) = chars.next() {
+        match c {
+            '"' if quoted && chars.peek() == Some(&'"') => {
+                cur.push('"');
+                chars.next();
+            }
+            '"' => quoted = !quoted,
+            ',' if !quoted => out.push(std::mem::take(&mut cur)),
+            c => cur.push(c),
+        }
+    }
+    out.push(cur);
+    out
+}
+
+#[test]
+fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("demo");
+    let o = bin().args(["demo", "--output"]).arg(&out).output().unwrap();
+    assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+    let stdout = String::from_utf8_lossy(&o.stdout);
+    assert!(
+        stdout.contains("Supplier table: 12 rows checked"),
+        "{stdout}"
+    );
+    assert!(
+        stdout.contains("Plan: 1-butanol / HV-12 ketone at 20 mbar"),
+        "{stdout}"
+    );
+    assert!(stdout.contains("Ideal solution assumed"), "{stdout}");
+
+    // estimates.csv: the columns of `ebullio estimate --format csv`, one row per new structure.
+    let est = std::fs::read_to_string(out.join("estimates.csv")).unwrap();
+    let mut lines = est.lines();
+    let head = fields(lines.next().unwrap());
+    for col in [
+        "compound",
+        "smiles",
+        "tb_k",
+        "tb_pi90_low_k",
+        "tb_pi90_high_k",
+        "tb_joback_k",
+        "tc_k",
+        "pc_bar",
+        "groups",
+        "t_k_at_2000_pa",
+        "anchored_tb_k",
+        "error",
+    ] {
+        assert!(
+            head.iter().any(|h| h == col),
+            "estimates.csv lacks {col}: {head:?}"
+        );
+    }
+    let rows: Vec<Vec<String>> = lines.map(fields).collect();
+    assert_eq!(
+        rows.len(),
+        5,
+        "five new structures (reference-data/demo/new-structures.csv)"
+    );
+    let col = |n: &str| head.iter().position(|h| h == n).unwrap();
+    let anchored: Vec<&Vec<String>> = rows
+        .iter()
+        .filter(|r| !r[col("anchored_tb_k")].is_empty())
+        .collect();
+    assert_eq!(anchored.len(), 1);
+    assert_eq!(anchored[0][col("compound")], "HV-36 benzyloxy acetate");
+    for r in &rows {
+        let tb: f64 = r[col("tb_k")].parse().unwrap();
+        let lo: f64 = r[col("tb_pi90_low_k")].parse().unwrap();
+        let hi: f64 = r[col("tb_pi90_high_k")].parse().unwrap();
+        assert!(lo < tb && tb < hi, "{r:?}");
+        assert!(r[col("error")].is_empty());
+    }
+
+    // The checked table keeps every input row and column and adds the three check columns.
+    let input = include_str!("../reference-data/demo/supplier-properties.csv");
+    let input_rows: Vec<&str> = input.lines().filter(|l| !l.starts_with('#')).collect();
+    let checked = std::fs::read_to_string(out.join("supplier-properties-checked.csv")).unwrap();
+    let checked_rows: Vec<Vec<String>> = checked.lines().map(fields).collect();
+    assert_eq!(checked_rows.len(), input_rows.len());
+    let in_head = fields(input_rows[0]);
+    assert_eq!(checked_rows[0][..in_head.len()], in_head[..]);
+    assert_eq!(
+        checked_rows[0][in_head.len()..],
+        ["flags", "severity", "diagnosis"]
+    );
+    for (a, b) in input_rows.iter().zip(&checked_rows).skip(1) {
+        assert_eq!(fields(a)[..], b[..in_head.len()], "row changed");
+    }
+    let flags_of = |name: &str| -> Vec<String> {
+        checked_rows
+            .iter()
+            .filter(|r| r[0] == name)
+            .map(|r| r[in_head.len()].clone())
+            .collect()
+    };
+    // Planted faults (reference-data/demo/README.md).
+    assert!(flags_of("acetone")[0].contains("slip-pressure-unit"));
+    assert!(flags_of("cyclohexane")[0].contains("slip-swapped-a-b"));
+    assert!(flags_of("methanol")[0].contains("slip-log-base"));
+    assert!(flags_of("1-butanol")[0].contains("slip-tb-temperature-unit"));
+    assert!(flags_of("dichloromethane")[0].contains("cas-check-digit"));
+    assert!(flags_of("acetonitrile")
+        .iter()
+        .all(|f| f.contains("duplicate-disagrees")));
+    assert!(flags_of("toluene")[0].is_empty());
+
+    // The plan: JSON per the contract, and its section in the report.
+    let plan: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(out.join("plan-result.json")).unwrap())
+            .unwrap();
+    assert_eq!(plan["pressure_pa"].as_f64(), Some(2000.0));
+    assert!(plan["relative_volatility"].as_f64().unwrap() > 1.0);
+    assert!(plan["verdict"]["code"].is_string());
+    let html = std::fs::read_to_string(out.join("report.html")).unwrap();
+    for h in [
+        "<h2>Summary and findings</h2>",
+        "<h2>Fits of the in-house measurements</h2>",
+        "<h2>Estimates for the new structures</h2>",
+        "<h2>Check of the supplier table</h2>",
+        "<h2>Separation plan</h2>",
+        "<h2>Cautions</h2>",
+    ] {
+        assert!(html.contains(h), "report lacks {h}");
+    }
+    let plan_part = &html[html.find("<h2>Separation plan</h2>").unwrap()..];
+    assert!(plan_part.contains("Verdict:") && plan_part.contains("Fenske"));
+    assert!(plan_part.contains("<svg"), "plan plot inline");
+    assert!(html.contains("Rows per finding") && html.contains("Joback groups"));
+    assert!(html.contains("Ideal solution assumed"));
+}

@@ -37,6 +37,9 @@ pub struct Args {
     /// Rows listed in the summary.
     #[arg(long, value_name = "N", default_value_t = 10)]
     pub worst: usize,
+    /// Also write one self-contained HTML report (counts per finding, flagged rows with diagnoses) to this file.
+    #[arg(long, value_name = "FILE.html")]
+    pub report: Option<PathBuf>,
 }
 
 /// `--fail-on` levels.
@@ -183,6 +186,18 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         None => super::common::print_stdout(&String::from_utf8_lossy(&bytes))?,
     }
     let _ = write!(std::io::stderr(), "{summary}");
+    if let Some(path) = &args.report {
+        let html = ebullio::report::check_section::check_report(
+            &args.table.display().to_string(),
+            &table,
+            &report,
+            &super::common::command_line(),
+        )
+        .render();
+        let mut inputs = vec![args.table.as_path()];
+        inputs.extend(args.reference_table.as_deref());
+        super::common::write_report(path, &html, &inputs, args.output.as_deref())?;
+    }
     let limit = match args.fail_on {
         Some(FailOn::Warning) => Some(Severity::Warning),
         Some(FailOn::Error) => Some(Severity::Error),

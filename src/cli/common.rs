@@ -169,3 +169,29 @@ pub fn batch_started(total: usize) {
 pub fn batch_step() {
     BATCH_DONE.fetch_add(1, Ordering::Relaxed);
 }
+
+/// The exact command line of this run, shell-quoted, for a report's footer.
+pub fn command_line() -> String {
+    let args: Vec<String> = std::env::args_os()
+        .map(|a| a.to_string_lossy().into_owned())
+        .collect();
+    ebullio::report::html::shell_line(&args)
+}
+
+/// Write an HTML report atomically, refusing any of `inputs` and the
+/// command's own output file. Written after the main output.
+pub fn write_report(
+    path: &Path,
+    html: &str,
+    inputs: &[&Path],
+    output: Option<&Path>,
+) -> anyhow::Result<()> {
+    let mut refuse: Vec<&Path> = inputs.to_vec();
+    refuse.extend(output);
+    // Like `emit`: an interrupt waits for the rename, so no partial report is left.
+    let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
+    let r = ebullio::table_io::write_atomic(path, html.as_bytes(), &refuse)
+        .with_context(|| format!("writing the report {}", path.display()));
+    *written = r.is_ok();
+    r
+}

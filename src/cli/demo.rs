@@ -10,7 +10,7 @@ use std::path::PathBuf;
 /// Example: ebullio demo --output ebullio-demo
 #[derive(Debug, clap::Args)]
 pub struct Args {
-    /// Folder to write (report.html, fits.json, estimates.json, the demo data).
+    /// Folder to write (report.html, fits.json, estimates.csv, the checked supplier table, the plan, the demo data).
     #[arg(long, short = 'o', default_value = "ebullio-demo")]
     pub output: PathBuf,
     /// Write into the folder even if it is not empty.
@@ -35,7 +35,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     }
     std::fs::create_dir_all(dir).with_context(|| format!("creating {}", dir.display()))?;
     let run = ebullio::demo::run().map_err(anyhow::Error::msg)?;
-    let cmd = ebullio::report::html::shell_line(&std::env::args().collect::<Vec<_>>());
+    let cmd = super::common::command_line();
     let w = |name: &str, text: &str| -> anyhow::Result<()> {
         let p = dir.join(name);
         ebullio::table_io::write_atomic(&p, text.as_bytes(), &[])
@@ -50,6 +50,23 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         "estimates.json",
         &(serde_json::to_string_pretty(&run.estimates)? + "\n"),
     )?;
+    w(
+        "estimates.csv",
+        &ebullio::table_io::estimates_csv(&run.estimates, &[ebullio::demo::VACUUM_PA])?,
+    )?;
+    if let Some(p) = &run.plan {
+        w(
+            "plan-result.json",
+            &(serde_json::to_string_pretty(&p.plan)? + "\n"),
+        )?;
+    }
+    #[cfg(feature = "tables")]
+    if let Some(c) = &run.check {
+        w(
+            ebullio::demo::CHECKED_TABLE,
+            &String::from_utf8_lossy(&c.checked_csv),
+        )?;
+    }
     std::fs::create_dir_all(dir.join("data"))?;
     for (name, text) in ebullio::demo::FILES {
         w(&format!("data/{name}"), text)?;

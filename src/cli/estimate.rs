@@ -2,13 +2,13 @@
 
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
-use ebullio::estimate::anchor::{anchor, Anchored, MeasuredPoint};
+use ebullio::estimate::anchor::MeasuredPoint;
+use ebullio::estimate::batch::EstimateRow as Row;
 use ebullio::estimate::{
     calibration, estimate_groups, estimate_smiles, group, parse_groups, Estimate, EstimateError,
 };
 use ebullio::table_io::read_text_table;
 use ebullio::units::{parse_pressure, parse_temperature, PressureUnit};
-use ebullio::vapor::Curve;
 use rayon::prelude::*;
 use std::io::IsTerminal;
 use std::path::PathBuf;
@@ -40,6 +40,9 @@ pub struct Args {
     /// A measured boiling point, "95 degC at 0.5 mmHg", to anchor the curve (once or twice).
     #[arg(long, value_name = "T at P")]
     pub measured: Vec<String>,
+    /// Also write one self-contained HTML report (values, intervals, group breakdown) to this file.
+    #[arg(long, value_name = "FILE.html")]
+    pub report: Option<PathBuf>,
     #[command(flatten)]
     pub out: OutputArgs,
 }
@@ -49,27 +52,6 @@ struct Job {
     smiles: Option<String>,
     /// The row could not be read (file, line, reason).
     read_error: Option<String>,
-}
-
-#[derive(serde::Serialize)]
-struct AtPressure {
-    p_pa: f64,
-    t_k: Option<f64>,
-    pi90_low_k: Option<f64>,
-    pi90_high_k: Option<f64>,
-    extrapolated: bool,
-}
-
-#[derive(serde::Serialize)]
-struct Row {
-    compound: Option<String>,
-    #[serde(flatten)]
-    estimate: Option<Estimate>,
-    smiles_given: Option<String>,
-    at: Vec<AtPressure>,
-    anchored: Option<Anchored>,
-    cautions: Vec<&'static str>,
-    error: String,
 }
 
 fn parse_measured(s: &str) -> Result<MeasuredPoint, InputError> {
@@ -121,70 +103,6 @@ fn read_jobs(args: &Args) -> anyhow::Result<Vec<Job>> {
     Ok(jobs)
 }
 
-fn at_pressures(curve: Option<&dyn Curve>, ps: &[f64]) -> Vec<AtPressure> {
-    ps.iter()
-        .map(|&p| {
-            let t = curve.and_then(|c| c.t_at(p));
-            let u = curve.and_then(|c| c.t_uncertainty_k(p));
-            let extrapolated = match (curve.and_then(|c| c.valid_range_k()), t) {
-                (Some((lo, hi)), Some(t)) => t < lo || t > hi,
-                _ => true,
-            };
-            AtPressure {
-                p_pa: p,
-                t_k: t,
-                pi90_low_k: t.zip(u).map(|(t, u)| t - 1.645 * u),
-                pi90_high_k: t.zip(u).map(|(t, u)| t + 1.645 * u),
-                extrapolated,
-            }
-        })
-        .collect()
-}
-
-fn run_one(
-    est: Result<Estimate, EstimateError>,
-    compound: Option<String>,
-    given: Option<String>,
-    ps: &[f64],
-    measured: &[MeasuredPoint],
-) -> Row {
-    let mut row = Row {
-        compound,
-        estimate: None,
-        smiles_given: given,
-        at: Vec::new(),
-        anchored: None,
-        cautions: Estimate::cautions().to_vec(),
-        error: String::new(),
-    };
-    match est {
-        Err(e) => row.error = e.to_string(),
-        Ok(e) => {
-            let pure = e.curve();
-            if !measured.is_empty() {
-                match pure.as_ref() {
-                    None => {
-                        row.error =
-                            "no critical constants for this structure, so no curve to anchor".into()
-                    }
-                    Some(c) => match anchor(c, measured) {
-                        Ok(a) => row.anchored = Some(a),
-                        Err(err) => row.error = err.to_string(),
-                    },
-                }
-            }
-            let curve: Option<&dyn Curve> = match (&row.anchored, &pure) {
-                (Some(a), _) => Some(&a.curve),
-                (None, Some(c)) => Some(c),
-                _ => None,
-            };
-            row.at = at_pressures(curve, ps);
-            row.estimate = Some(e);
-        }
-    }
-    row
-}
-
 fn mbar(p_pa: f64) -> String {
     let v = PressureUnit::MBar.from_pa(p_pa);
     let t = format!("{v:.4}");
@@ -194,90 +112,6 @@ fn mbar(p_pa: f64) -> String {
 
 fn opt(v: Option<f64>, digits: usize) -> String {
     v.map_or(String::new(), |x| format!("{x:.digits$}"))
-}
-
-fn groups_text(e: &Estimate) -> String {
-    e.groups
-        .iter()
-        .map(|(k, v)| format!("{k}={v}"))
-        .collect::<Vec<_>>()
-        .join(";")
-}
-
-fn csv_text(rows: &[Row], ps: &[f64]) -> anyhow::Result<String> {
-    let mut w = csv::Writer::from_writer(Vec::new());
-    let mut head: Vec<String> = [
-        "compound",
-        "smiles",
-        "formula",
-        "tb_k",
-        "tb_pi90_low_k",
-        "tb_pi90_high_k",
-        "tb_typical_error_k",
-        "tb_joback_k",
-        "tb_stein_brown_k",
-        "tb_variant",
-        "tm_k",
-        "tc_k",
-        "pc_bar",
-        "vc_cm3_mol",
-        "hf_kj_mol",
-        "gf_kj_mol",
-        "hvap_tb_kj_mol",
-        "hfus_kj_mol",
-        "omega",
-        "groups",
-    ]
-    .iter()
-    .map(|s| s.to_string())
-    .collect();
-    for p in ps {
-        head.push(format!("t_k_at_{}_pa", p));
-    }
-    head.push("anchored_tb_k".into());
-    head.push("error".into());
-    w.write_record(&head)?;
-    for r in rows {
-        let mut rec: Vec<String> = vec![r.compound.clone().unwrap_or_default()];
-        match &r.estimate {
-            Some(e) => {
-                rec.push(e.smiles.clone().unwrap_or_default());
-                rec.push(e.formula.clone().unwrap_or_default());
-                for v in [
-                    Some(e.tb_k),
-                    Some(e.tb_pi90_low_k),
-                    Some(e.tb_pi90_high_k),
-                    Some(e.tb_typical_error_k),
-                    Some(e.tb_joback_k),
-                    Some(e.tb_stein_brown_k),
-                ] {
-                    rec.push(opt(v, 2));
-                }
-                rec.push(e.tb_variant.name().into());
-                rec.push(opt(e.tm_k, 2));
-                rec.push(opt(e.tc_k, 2));
-                rec.push(opt(e.pc_bar, 3));
-                rec.push(opt(e.vc_cm3_mol, 1));
-                rec.push(opt(e.hf_kj_mol, 2));
-                rec.push(opt(e.gf_kj_mol, 2));
-                rec.push(opt(e.hvap_tb_kj_mol, 3));
-                rec.push(opt(e.hfus_kj_mol, 3));
-                rec.push(opt(e.omega, 4));
-                rec.push(groups_text(e));
-            }
-            None => {
-                rec.push(r.smiles_given.clone().unwrap_or_default());
-                rec.extend(std::iter::repeat_n(String::new(), 18));
-            }
-        }
-        for k in 0..ps.len() {
-            rec.push(opt(r.at.get(k).and_then(|a| a.t_k), 2));
-        }
-        rec.push(opt(r.anchored.as_ref().map(|a| a.tb_k), 2));
-        rec.push(r.error.clone());
-        w.write_record(&rec)?;
-    }
-    Ok(String::from_utf8(w.into_inner()?)?)
 }
 
 fn table_text(rows: &[Row]) -> String {
@@ -413,7 +247,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let mut rows: Vec<Row> = Vec::new();
     if let Some(g) = &args.groups {
         let g = parse_groups(g).map_err(|e| InputError(format!("--groups: {e}")))?;
-        rows.push(run_one(estimate_groups(&g), None, None, &ps, &measured));
+        rows.push(Row::new(estimate_groups(&g), None, None, &ps, &measured));
     }
     let jobs = read_jobs(&args)?;
     if jobs.is_empty() && rows.is_empty() {
@@ -432,14 +266,14 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .into_par_iter()
         .map(|j| {
             let mut r = match &j.smiles {
-                Some(s) => run_one(
+                Some(s) => Row::new(
                     estimate_smiles(s),
                     j.compound,
                     j.smiles.clone(),
                     &ps,
                     &measured,
                 ),
-                None => run_one(
+                None => Row::new(
                     Err(EstimateError::NoGroups),
                     j.compound,
                     None,
@@ -479,9 +313,17 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
                 serde_json::to_string_pretty(&rows)? + "\n"
             }
         }
-        Format::Csv => csv_text(&rows, &ps)?,
+        Format::Csv => ebullio::table_io::estimates_csv(&rows, &ps)?,
         Format::Table => table_text(&rows),
     };
     args.out.emit(&text, &inputs)?;
+    if let Some(path) = &args.report {
+        let html = ebullio::report::estimate_section::estimate_report(
+            &rows,
+            &super::common::command_line(),
+        )
+        .render();
+        super::common::write_report(path, &html, &inputs, args.out.output.as_deref())?;
+    }
     Ok(Outcome::Success)
 }

@@ -70,6 +70,9 @@ pub struct Args {
     /// Allowed difference in normal boiling point from the reference, in K.
     #[arg(long, default_value_t = 0.5)]
     pub ref_tb_tolerance_k: f64,
+    /// Also write one self-contained HTML report (plots, constants, points, findings) to this file.
+    #[arg(long, value_name = "FILE.html")]
+    pub report: Option<PathBuf>,
     #[command(flatten)]
     pub out: OutputArgs,
 }
@@ -218,6 +221,48 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         Format::Table => rows.iter().map(table).collect::<Vec<_>>().join("\n"),
     };
     args.out.emit(&text, &[args.data.as_path()])?;
+    if let Some(path) = &args.report {
+        let fits: Vec<FitReport> = rows
+            .iter()
+            .filter_map(|r| match r {
+                Row::Ok(rep) => Some((**rep).clone()),
+                _ => None,
+            })
+            .collect();
+        let failed: Vec<(Option<String>, String)> = rows
+            .iter()
+            .filter_map(|r| match r {
+                Row::Failed { compound, error } => Some((compound.clone(), error.clone())),
+                _ => None,
+            })
+            .collect();
+        let mut pressures: Vec<f64> = r
+            .fit
+            .at
+            .iter()
+            .filter_map(|a| match a {
+                At::PressurePa(p) => Some(*p),
+                At::TemperatureK(_) => None,
+            })
+            .collect();
+        if pressures.is_empty() {
+            pressures = ebullio::report::fit_section::DEFAULT_PRESSURES_PA.to_vec();
+        }
+        let html = ebullio::report::fit_section::fit_report(
+            &data.source.to_string(),
+            &fits,
+            &failed,
+            &pressures,
+            &super::common::command_line(),
+        )
+        .render();
+        super::common::write_report(
+            path,
+            &html,
+            &[args.data.as_path()],
+            args.out.output.as_deref(),
+        )?;
+    }
     if rows.iter().all(|r| matches!(r, Row::Failed { .. })) {
         let why = rows
             .iter()

@@ -2,22 +2,25 @@
 //!
 //! [`run`] fits the in-house measurements, compares them with the reference
 //! library, estimates the new structures (anchoring the one with a reported
-//! reduced-pressure boiling point), gives boiling points at the planned vacuum,
-//! and builds the HTML report. All data are INVENTED (see
-//! `reference-data/demo/README.md`).
+//! reduced-pressure boiling point), checks the supplier table, gives boiling
+//! points at the planned vacuum, plans the separation in `plan.json`, and
+//! [`html`] builds the HTML report from the same sections the commands'
+//! `--report` use. All data are INVENTED (see `reference-data/demo/README.md`).
 
 use crate::boiling::{boiling_points, BoilResult};
-use crate::estimate::anchor::{anchor, MeasuredPoint};
-use crate::estimate::{estimate_smiles, Estimate};
+use crate::estimate::anchor::MeasuredPoint;
+use crate::estimate::batch::EstimateRow;
+use crate::estimate::estimate_smiles;
 use crate::fit::{fit_set, FitOptions, FitReport, FittedCurve};
+use crate::plan::{Component, Plan, PlanOptions, PressureRequest};
 use crate::reference::compare::Tolerances;
 use crate::reference::fit_check::check_fit;
 use crate::reference::Library;
 use crate::report::curve_plot::{CurvePlot, PlotCurve};
 use crate::report::html::{Figure, Finding, Report, Severity, Table};
+use crate::report::{estimate_section, fit_section, plan_section};
 use crate::table_io::{read_measured_bytes, ReadOptions};
-use crate::units::parse_quantity;
-use crate::units::Quantity;
+use crate::units::{parse_pressure, parse_quantity, parse_temperature, Quantity};
 use std::path::Path;
 
 /// The embedded files: (name, text).
@@ -51,30 +54,48 @@ pub const FILES: [(&str, &str); 6] = [
 /// The planned vacuum of the scenario, Pa (20 mbar).
 pub const VACUUM_PA: f64 = 2000.0;
 
-/// One estimated structure.
-#[derive(Debug, Clone, serde::Serialize)]
-pub struct DemoEstimate {
-    /// Name.
-    pub compound: String,
-    /// The estimate (None when the structure could not be handled).
-    pub estimate: Option<Estimate>,
-    /// Why not, when it could not.
-    pub error: String,
-    /// Anchored normal boiling point, K, when a reduced-pressure point was given.
-    pub anchored_tb_k: Option<f64>,
-    /// Boiling point at the vacuum, K (anchored curve when anchored).
-    pub t_at_vacuum_k: Option<f64>,
+/// Name of the checked supplier table written into the demo folder.
+pub const CHECKED_TABLE: &str = "supplier-properties-checked.csv";
+
+/// The check of the supplier table.
+#[cfg(feature = "tables")]
+pub struct DemoCheck {
+    /// The table as read.
+    pub table: crate::table_io::property_table::PropertyTable,
+    /// Findings per row.
+    pub report: crate::screen::ScreenReport,
+    /// The table with the `flags`, `severity` and `diagnosis` columns, as CSV.
+    pub checked_csv: Vec<u8>,
+}
+
+/// The check of the supplier table (needs the `tables` feature; never built without it).
+#[cfg(not(feature = "tables"))]
+pub struct DemoCheck {
+    _never: std::convert::Infallible,
+}
+
+/// The separation planned in `plan.json`.
+pub struct DemoPlan {
+    /// The plan.
+    pub plan: Plan,
+    /// Its components (curves from the fits), for the plot.
+    pub components: Vec<Component>,
+    /// The pot-temperature limit of the scenario, K.
+    pub max_pot_k: Option<f64>,
 }
 
 /// Everything the demo computed.
-#[derive(Debug, Clone)]
 pub struct DemoRun {
     /// Fit reports, one per measured compound.
     pub fits: Vec<FitReport>,
     /// Boiling points at the vacuum from each fit.
     pub fit_at_vacuum: Vec<(String, BoilResult)>,
-    /// Estimates for the new structures.
-    pub estimates: Vec<DemoEstimate>,
+    /// Estimates for the new structures (boiling point at the vacuum; anchored where a point was reported).
+    pub estimates: Vec<EstimateRow>,
+    /// The supplier-table check (None without the `tables` feature).
+    pub check: Option<DemoCheck>,
+    /// The plan (None with the reason in `findings` when it could not be made).
+    pub plan: Option<DemoPlan>,
     /// Findings for the summary.
     pub findings: Vec<Finding>,
 }
@@ -106,76 +127,185 @@ pub fn run() -> Result<DemoRun, String> {
             }
         }
     }
+    findings.extend(fit_section::fit_findings(&fits));
     let mut fit_at_vacuum = Vec::new();
     for r in &fits {
-        let name = r.compound.clone().unwrap_or_default();
-        for f in &r.flags {
-            let sev = match f.severity {
-                crate::fit::Severity::Error => Severity::Error,
-                crate::fit::Severity::Warning => Severity::Warning,
-                crate::fit::Severity::Info => Severity::Info,
-            };
-            findings.push(Finding::new(
-                sev,
-                name.clone(),
-                f.code.clone(),
-                f.message.clone(),
-            ));
-        }
         let curve = FittedCurve::from_report(r);
         if let Some(b) = boiling_points(&curve, &[VACUUM_PA], 1.96)
             .into_iter()
             .next()
         {
-            fit_at_vacuum.push((name, b));
+            fit_at_vacuum.push((r.compound.clone().unwrap_or_default(), b));
         }
     }
+
     let mut estimates = Vec::new();
-    let text = FILES[3].1;
-    for line in text.lines().filter(|l| !l.starts_with('#')).skip(1) {
+    for line in FILES[3].1.lines().filter(|l| !l.starts_with('#')).skip(1) {
         let cells: Vec<&str> = line.splitn(3, ',').collect();
         let (Some(name), Some(smiles)) = (cells.first(), cells.get(1)) else {
             continue;
         };
         let reported = cells.get(2).copied().unwrap_or("").trim();
-        let mut d = DemoEstimate {
-            compound: name.to_string(),
-            estimate: None,
-            error: String::new(),
-            anchored_tb_k: None,
-            t_at_vacuum_k: None,
-        };
-        match estimate_smiles(smiles) {
-            Ok(e) => {
-                if let Some(curve) = e.curve() {
-                    d.t_at_vacuum_k = crate::vapor::Curve::t_at(&curve, VACUUM_PA);
-                    if let Some(point) = parse_reported(reported) {
-                        if let Ok(a) = anchor(&curve, &[point]) {
-                            d.anchored_tb_k = Some(a.tb_k);
-                            d.t_at_vacuum_k = crate::vapor::Curve::t_at(&a.curve, VACUUM_PA);
-                            findings.push(Finding::new(
-                                Severity::Info,
-                                name.to_string(),
-                                "estimate-anchored",
-                                format!(
-                                    "The estimated curve was anchored to the reported {reported}; its normal boiling point moved by {:+.1} K to {:.1} K.",
-                                    a.tb_shift_k, a.tb_k
-                                ),
-                            ));
-                        }
-                    }
-                }
-                d.estimate = Some(e);
-            }
-            Err(e) => d.error = e.to_string(),
-        }
-        estimates.push(d);
+        let measured: Vec<MeasuredPoint> = parse_reported(reported).into_iter().collect();
+        estimates.push(EstimateRow::new(
+            estimate_smiles(smiles),
+            Some(name.to_string()),
+            Some(smiles.to_string()),
+            &[VACUUM_PA],
+            &measured,
+        ));
     }
+    findings.extend(estimate_section::estimate_findings(&estimates));
+
+    let check = check_supplier_table()?;
+    #[cfg(feature = "tables")]
+    if let Some(c) = &check {
+        findings.extend(crate::report::check_section::check_findings(
+            &c.table, &c.report, 10,
+        ));
+    }
+
+    let plan = match plan_from_json(&fits) {
+        Ok(p) => {
+            findings.extend(plan_section::plan_findings(&p.plan));
+            if let Some(t) = p.max_pot_k {
+                if let Some(h) = p.plan.components.last().filter(|h| h.tb_k > t) {
+                    findings.push(Finding::new(
+                        Severity::Warning,
+                        h.name.clone(),
+                        "above-pot-limit",
+                        format!(
+                            "{} boils at {:.1} °C at the planned pressure, above the pot limit of {:.1} °C: lower the pressure.",
+                            h.name,
+                            h.tb_k - 273.15,
+                            t - 273.15
+                        ),
+                    ));
+                }
+            }
+            Some(p)
+        }
+        Err(e) => {
+            findings.push(Finding::new(Severity::Error, "plan.json", "plan-failed", e));
+            None
+        }
+    };
     Ok(DemoRun {
         fits,
         fit_at_vacuum,
         estimates,
+        check,
+        plan,
         findings,
+    })
+}
+
+/// Screen the embedded supplier table as `ebullio check` does (structure
+/// estimate on, no reference table) and write it back with the three columns.
+#[cfg(feature = "tables")]
+fn check_supplier_table() -> Result<Option<DemoCheck>, String> {
+    use crate::screen::{screen, JobackEstimator, ScreenContext};
+    use crate::table_io::property_table::{table_bytes, PropertyReadOptions, PropertyTable};
+    let (name, text) = FILES[2];
+    let table = PropertyTable::from_csv_bytes(
+        text.as_bytes(),
+        Path::new(name),
+        &PropertyReadOptions::default(),
+    )
+    .map_err(|e| e.to_string())?;
+    let ctx = ScreenContext {
+        estimator: &JobackEstimator,
+        ..ScreenContext::default()
+    };
+    let implied = table.implied_tb_k();
+    let report = screen(&table, implied.as_deref(), &ctx);
+    let n = report.len();
+    let columns = vec![
+        ("flags", (0..n).map(|i| report.flags(i)).collect()),
+        (
+            "severity",
+            (0..n)
+                .map(|i| {
+                    report
+                        .severity(i)
+                        .map(|s| s.as_str().to_string())
+                        .unwrap_or_default()
+                })
+                .collect(),
+        ),
+        ("diagnosis", (0..n).map(|i| report.diagnosis(i)).collect()),
+    ];
+    let checked_csv = table_bytes(&table.frame, columns, false, Path::new(CHECKED_TABLE))
+        .map_err(|e| e.to_string())?;
+    Ok(Some(DemoCheck {
+        table,
+        report,
+        checked_csv,
+    }))
+}
+
+#[cfg(not(feature = "tables"))]
+fn check_supplier_table() -> Result<Option<DemoCheck>, String> {
+    Ok(None)
+}
+
+/// The separation in `plan.json`, with the components' curves from the fits
+/// (or the bundled reference when a name was not measured).
+fn plan_from_json(fits: &[FitReport]) -> Result<DemoPlan, String> {
+    let v: serde_json::Value = serde_json::from_str(FILES[4].1).map_err(|e| e.to_string())?;
+    let sep = v
+        .get("separation")
+        .ok_or("plan.json has no \"separation\"")?;
+    let names: Vec<&str> = sep
+        .get("components")
+        .and_then(|c| c.as_array())
+        .ok_or("plan.json: separation has no \"components\" list")?
+        .iter()
+        .filter_map(|x| x.as_str())
+        .collect();
+    let p_text = sep
+        .get("pressure")
+        .or_else(|| v.get("vacuum"))
+        .and_then(|x| x.as_str())
+        .ok_or("plan.json: no pressure")?;
+    let p = parse_pressure(p_text)
+        .map_err(|e| format!("plan.json: pressure '{p_text}': {e}"))?
+        .pa();
+    let max_pot_k = v
+        .get("max_pot_temperature")
+        .and_then(|x| x.as_str())
+        .map(|t| parse_temperature(t).map(|t| t.kelvin()))
+        .transpose()
+        .map_err(|e| format!("plan.json: max_pot_temperature: {e}"))?;
+    let mut components = Vec::new();
+    for n in names {
+        if let Some(r) = fits.iter().find(|f| f.compound.as_deref() == Some(n)) {
+            components.push(Component::new(
+                n,
+                Box::new(FittedCurve::from_report(r)),
+                format!(
+                    "in-house {} fit of {} measured points (uncertainty from the fit covariance)",
+                    r.model, r.n_points
+                ),
+            ));
+        } else {
+            let c = Library::bundled().find(n).map_err(|e| e.to_string())?;
+            let curve = c
+                .best_curve()
+                .ok_or_else(|| format!("no vapor-pressure curve for {n}"))?;
+            let source = format!("reference: {}", curve.source);
+            components.push(Component::new(n, Box::new(curve), source));
+        }
+    }
+    let opts = PlanOptions {
+        pressure: PressureRequest::Given(p),
+        ..PlanOptions::default()
+    };
+    let plan = crate::plan::plan(&components, &opts).map_err(|e| e.to_string())?;
+    Ok(DemoPlan {
+        plan,
+        components,
+        max_pot_k,
     })
 }
 
@@ -197,25 +327,49 @@ fn c(t_k: f64) -> String {
     format!("{:.1}", t_k - 273.15)
 }
 
+/// The cautions of the demo: the standard ones and the plan's ideal-solution limits.
+pub fn cautions() -> Vec<String> {
+    let mut v = crate::report::html::standard_cautions();
+    v.push(crate::plan::limits::IDEAL_SOLUTION.to_string());
+    v
+}
+
 /// Build the self-contained HTML report of a run.
 pub fn html(run: &DemoRun, command_line: &str) -> String {
     let mut r =
         Report::new("Harrow Vale Fine Chemicals — vapor pressures and boiling points (demo)");
     r.subtitle("INVENTED demo scenario: the site, compounds and measurements are fictional. Planned vacuum 20 mbar.");
     r.command_line(command_line);
+    r.cautions(cautions());
     let s = r.section("Summary and findings");
     s.paragraph(format!(
-        "{} measured compounds fitted, {} new structures estimated; boiling points at the planned 20 mbar below.",
+        "{} measured compounds fitted, {} new structures estimated{}{}; boiling points at the planned 20 mbar below.",
         run.fits.len(),
-        run.estimates.len()
+        run.estimates.len(),
+        match &run.check {
+            Some(_) => ", the supplier table checked",
+            None => "",
+        },
+        match &run.plan {
+            Some(_) => ", one separation planned",
+            None => "",
+        }
     ));
-    s.findings(run.findings.clone());
+    if let Some(p) = &run.plan {
+        s.paragraph(format!(
+            "Plan ({} / {} at {}): {}",
+            p.plan.key_pair[0],
+            p.plan.key_pair[1],
+            fit_section::mbar(p.plan.pressure_pa),
+            p.plan.verdict.message
+        ));
+    }
     let mut t = Table::new([
         "compound",
         "source",
         "t at 20 mbar/°C",
-        "95 % interval/°C",
-        "extrapolated",
+        "interval/°C",
+        "outside the data",
     ]);
     for (name, b) in &run.fit_at_vacuum {
         let ci = match (b.ci95_low_k, b.ci95_high_k) {
@@ -227,26 +381,42 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
             "in-house fit".into(),
             c(b.t_k),
             ci,
-            b.extrapolated.to_string(),
+            if b.extrapolated { "yes" } else { "no" }.to_string(),
         ]);
     }
     for e in &run.estimates {
-        if let Some(tv) = e.t_at_vacuum_k {
-            let src = if e.anchored_tb_k.is_some() {
+        if let Some(a) = e.at.first().filter(|a| a.t_k.is_some()) {
+            let src = if e.anchored.is_some() {
                 "estimate, anchored"
             } else {
                 "estimate (Joback + Lee–Kesler)"
             };
+            let ci = match (a.pi90_low_k, a.pi90_high_k) {
+                (Some(l), Some(h)) if e.anchored.is_none() => {
+                    format!("{} to {} (90 %)", c(l), c(h))
+                }
+                _ => String::new(),
+            };
             t.row([
-                e.compound.clone(),
+                e.compound.clone().unwrap_or_default(),
                 src.into(),
-                c(tv),
-                String::new(),
+                c(a.t_k.unwrap_or(f64::NAN)),
+                ci,
                 "estimate".into(),
             ]);
         }
     }
-    s.table(t.caption("Boiling points at the planned vacuum (20 mbar)"));
+    s.table(t.caption(
+        "Boiling points at the planned vacuum (20 mbar); intervals 95 % for fits, 90 % for estimates",
+    ));
+    s.paragraph("Warnings and errors below, worst first; every finding, information included, is in its section.");
+    s.findings(
+        run.findings
+            .iter()
+            .filter(|f| f.severity >= Severity::Warning)
+            .cloned()
+            .collect(),
+    );
 
     let curves: Vec<FittedCurve> = run.fits.iter().map(FittedCurve::from_report).collect();
     let mut plot = CurvePlot::new("Fitted vapor-pressure curves", (300.0, 480.0))
@@ -266,148 +436,34 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         }
     }
 
-    let fs = r.section("Fits of the in-house measurements");
-    for f in &run.fits {
-        let name = f.compound.clone().unwrap_or_default();
-        let sub = fs.subsection(name.clone());
-        let tb = f.normal_boiling_point_k.as_ref();
-        sub.facts([
-            ("model", f.model.clone()),
-            ("points", f.n_points.to_string()),
-            ("RMS deviation of p", format!("{:.2} %", f.rms_rel_dev_pct)),
-            (
-                "measured range",
-                format!("{:.1} to {:.1} K", f.t_range_k[0], f.t_range_k[1]),
-            ),
-            (
-                "normal boiling point",
-                tb.map(|i| {
-                    format!(
-                        "{:.2} K (95 %: {:.2} to {:.2}){}",
-                        i.value,
-                        i.ci95_low,
-                        i.ci95_high,
-                        if i.extrapolated { ", extrapolated" } else { "" }
-                    )
-                })
-                .unwrap_or_else(|| "not reached".into()),
-            ),
-            ("weighting", f.weighting.clone()),
-        ]);
-        if let Ok(fig) = Figure::new(
-            &crate::report::fit_plot::svg(f),
-            format!("{name}: ln p against 1/T with the 95 % band, flagged points and residuals"),
-        ) {
-            sub.figure(fig);
-        }
-        let mut pt = Table::new([
-            "parameter",
-            "value",
-            "standard error",
-            "95 % low",
-            "95 % high",
-        ])
-        .caption(format!("Constants, convention {}", f.convention));
-        for p in &f.parameters {
-            pt.row([
-                p.name.clone(),
-                format!("{:.6}", p.value),
-                format!("{:.3e}", p.std_error),
-                format!("{:.6}", p.ci95_low),
-                format!("{:.6}", p.ci95_high),
-            ]);
-        }
-        sub.table(pt);
-        let mut pts = Table::new(["T/K", "p/kPa", "deviation/%", "studentized"])
-            .caption("Points (flagged rows are outliers)");
-        for p in &f.points {
-            pts.flagged_row(
-                [
-                    format!("{:.2}", p.t_k),
-                    format!("{:.4}", p.p_pa / 1000.0),
-                    format!("{:+.2}", p.rel_dev_pct),
-                    format!("{:+.2}", p.studentized),
-                ],
-                p.outlier.then_some(Severity::Warning),
-            );
-        }
-        sub.table(pts);
-        if let Some(v) = &f.reference_comparison {
-            if let Some(rf) = v.get("reference").filter(|x| !x.is_null()) {
-                let g = |k: &str| {
-                    rf.get(k)
-                        .and_then(|x| x.as_f64())
-                        .map(|x| format!("{x:.3}"))
-                        .unwrap_or_default()
-                };
-                sub.facts([
-                    (
-                        "reference compound",
-                        rf.get("compound")
-                            .and_then(|x| x.as_str())
-                            .unwrap_or("")
-                            .to_string(),
-                    ),
-                    (
-                        "reference source",
-                        rf.get("reference_source")
-                            .and_then(|x| x.as_str())
-                            .unwrap_or("")
-                            .to_string(),
-                    ),
-                    (
-                        "max |p fit / p ref − 1|",
-                        format!("{} %", g("max_rel_diff_pct")),
-                    ),
-                    ("Tb fit − Tb reference", format!("{} K", g("tb_diff_k"))),
-                ]);
-            }
-        }
+    fit_section::add_fits(
+        r.section("Fits of the in-house measurements"),
+        &run.fits,
+        &[VACUUM_PA, 101_325.0],
+    );
+    estimate_section::add_estimates(
+        r.section("Estimates for the new structures"),
+        &run.estimates,
+    );
+    #[cfg(feature = "tables")]
+    if let Some(ch) = &run.check {
+        let sec = r.section("Check of the supplier table");
+        sec.paragraph(format!(
+            "The checked table, with the flags, severity and diagnosis columns, is {CHECKED_TABLE}."
+        ));
+        crate::report::check_section::add_check(sec, FILES[2].0, &ch.table, &ch.report);
     }
-
-    let es = r.section("Estimates for the new structures");
-    let mut et = Table::new([
-        "compound",
-        "SMILES",
-        "Tb/K",
-        "90 % interval/K",
-        "Joback Tb/K",
-        "Tc/K",
-        "pc/bar",
-        "anchored Tb/K",
-        "groups",
-    ]);
-    for e in &run.estimates {
-        match &e.estimate {
-            Some(x) => {
-                let groups = x
-                    .groups
-                    .iter()
-                    .map(|(k, v)| format!("{k}×{v}"))
-                    .collect::<Vec<_>>()
-                    .join(", ");
-                et.row([
-                    e.compound.clone(),
-                    x.smiles.clone().unwrap_or_default(),
-                    format!("{:.1}", x.tb_k),
-                    format!("{:.1} to {:.1}", x.tb_pi90_low_k, x.tb_pi90_high_k),
-                    format!("{:.1}", x.tb_joback_k),
-                    x.tc_k.map(|v| format!("{v:.1}")).unwrap_or_default(),
-                    x.pc_bar.map(|v| format!("{v:.2}")).unwrap_or_default(),
-                    e.anchored_tb_k
-                        .map(|v| format!("{v:.1}"))
-                        .unwrap_or_default(),
-                    groups,
-                ]);
-            }
-            None => {
-                et.flagged_row([e.compound.clone(), e.error.clone()], Some(Severity::Error));
-            }
-        }
+    if let Some(p) = &run.plan {
+        let sec = r.section("Separation plan");
+        sec.paragraph(format!(
+            "From plan.json: separate {} at the planned vacuum; pot limit {}.",
+            p.plan.key_pair.join(" and "),
+            p.max_pot_k
+                .map(|t| format!("{} °C", c(t)))
+                .unwrap_or_else(|| "not given".into())
+        ));
+        plan_section::add_plan(sec, &p.plan, &p.components);
     }
-    es.table(et.caption(
-        "Joback group contributions with the published corrections; estimates are not measurements",
-    ));
     r.render()
 }
 
@@ -422,12 +478,12 @@ pub fn summary(run: &DemoRun) -> String {
         ));
     }
     for e in &run.estimates {
-        if let Some(t) = e.t_at_vacuum_k {
+        if let Some(t) = e.at.first().and_then(|a| a.t_k) {
             s.push_str(&format!(
                 "  {:<28} {:>7} °C  (estimate{})\n",
-                e.compound,
+                e.compound.clone().unwrap_or_default(),
                 c(t),
-                if e.anchored_tb_k.is_some() {
+                if e.anchored.is_some() {
                     ", anchored"
                 } else {
                     ""
@@ -435,10 +491,11 @@ pub fn summary(run: &DemoRun) -> String {
             ));
         }
     }
-    s.push_str("\nMain findings:\n");
-    let mut f = run.findings.clone();
+    s.push_str("\nMain findings of the fits and estimates:\n");
+    let mut f: Vec<Finding> = fit_section::fit_findings(&run.fits);
+    f.extend(estimate_section::estimate_findings(&run.estimates));
     f.sort_by_key(|x| std::cmp::Reverse(x.severity));
-    for x in f.iter().filter(|x| x.severity >= Severity::Warning).take(8) {
+    for x in f.iter().filter(|x| x.severity >= Severity::Warning).take(6) {
         s.push_str(&format!(
             "  [{}] {}: {}\n",
             x.severity.as_str(),
@@ -446,8 +503,35 @@ pub fn summary(run: &DemoRun) -> String {
             x.message
         ));
     }
+    #[cfg(feature = "tables")]
+    if let Some(ch) = &run.check {
+        let sum = ch.report.summary(&ch.table, 8);
+        s.push_str(&format!(
+            "\nSupplier table: {} rows checked, {} flagged ({} error, {} warning):\n",
+            sum.rows, sum.rows_flagged, sum.errors, sum.warnings
+        ));
+        for w in &sum.worst {
+            s.push_str(&format!("  [{}] {}: {}\n", w.severity, w.label, w.flags));
+        }
+    }
+    if let Some(p) = &run.plan {
+        s.push_str(&format!(
+            "\nPlan: {} / {} at {}: {}\n",
+            p.plan.key_pair[0],
+            p.plan.key_pair[1],
+            fit_section::mbar(p.plan.pressure_pa),
+            p.plan.verdict.message
+        ));
+    }
+    for x in run
+        .findings
+        .iter()
+        .filter(|x| x.code == "plan-failed" || x.code == "above-pot-limit")
+    {
+        s.push_str(&format!("  [{}] {}\n", x.severity.as_str(), x.message));
+    }
     s.push_str("\nCautions:\n");
-    for c in crate::report::html::standard_cautions() {
+    for c in cautions() {
         s.push_str(&format!("  - {c}\n"));
     }
     s

@@ -26,6 +26,7 @@
 //! ```
 
 pub mod anchor;
+pub mod batch;
 mod groups;
 pub mod interval;
 pub mod joback;

@@ -8,6 +8,7 @@
 
 pub mod atomic;
 pub mod error;
+pub mod estimates;
 pub mod headings;
 pub mod measured;
 #[cfg(feature = "tables")]
@@ -19,6 +20,7 @@ pub mod text_table;
 
 pub use atomic::{write_atomic, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
+pub use estimates::estimates_csv;
 pub use measured::{
     read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
     ReadWarning,

@@ -365,6 +365,15 @@ pub struct PropertyTable {
     bad: HashMap<usize, Vec<(String, String)>>,
 }
 
+/// Whether the file's first byte is `#` (a provenance comment line).
+fn starts_with_comment(path: &Path) -> bool {
+    use std::io::Read;
+    let mut b = [0u8; 1];
+    std::fs::File::open(path)
+        .and_then(|mut f| f.read_exact(&mut b))
+        .is_ok_and(|_| b[0] == b'#')
+}
+
 fn read_frame(path: &Path) -> Result<(DataFrame, usize), TableError> {
     let ext = path
         .extension()
@@ -392,10 +401,42 @@ fn read_frame(path: &Path) -> Result<(DataFrame, usize), TableError> {
 
 impl PropertyTable {
     /// Read a CSV or Parquet property table (by extension; anything not
-    /// `.parquet` is read as CSV) and recognise its columns.
+    /// `.parquet` is read as CSV) and recognise its columns. Leading `#`
+    /// lines of a CSV are comments (see [`PropertyTable::from_csv_bytes`]).
     pub fn read(path: &Path, opts: &PropertyReadOptions) -> Result<Self, TableError> {
+        if !is_parquet(path) && starts_with_comment(path) {
+            let bytes = std::fs::read(path).map_err(|e| read_err(path, e))?;
+            return Self::from_csv_bytes(&bytes, path, opts);
+        }
         let (frame, line0) = read_frame(path)?;
         Self::from_frame(frame, path, line0, opts)
+    }
+
+    /// Read a CSV property table held in memory (an embedded file), with
+    /// `path` naming it in messages. Leading lines starting with `#` are
+    /// comments (the demo files' provenance note) and are skipped; line
+    /// numbers in findings still count them.
+    pub fn from_csv_bytes(
+        bytes: &[u8],
+        path: &Path,
+        opts: &PropertyReadOptions,
+    ) -> Result<Self, TableError> {
+        let mut start = 0;
+        let mut comments = 0;
+        while bytes[start..].starts_with(b"#") {
+            match bytes[start..].iter().position(|&b| b == b'\n') {
+                Some(i) => start += i + 1,
+                None => start = bytes.len(),
+            }
+            comments += 1;
+        }
+        let df = CsvReadOptions::default()
+            .with_has_header(true)
+            .with_infer_schema_length(Some(0))
+            .into_reader_with_file_handle(std::io::Cursor::new(bytes[start..].to_vec()))
+            .finish()
+            .map_err(|e| read_err(path, e))?;
+        Self::from_frame(df, path, 2 + comments, opts)
     }
 
     /// Recognise the columns of an already-read frame. `line0` is the line of
