@@ -103,3 +103,46 @@ fn bad_input_is_exit_2_with_a_clear_message() {
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("not a fit result"));
 }
+
+/// A multi-compound fit file (`fit --format json` on a table with a compound column):
+/// `--compound` picks one; without it, or with a name not in the file, exit 2 naming the
+/// compounds there are. The picked fit gives the same boiling point as a file holding it alone.
+#[test]
+fn from_a_multi_compound_fit_file_picks_by_compound() {
+    let dir = tempfile::tempdir().unwrap();
+    let data = dir.path().join("runs.csv");
+    let mut text = String::from("compound,T/K,p/kPa\n");
+    // Invented points on two smooth curves (test data only).
+    for i in 0..8 {
+        let t = 320.0 + 8.0 * i as f64;
+        let pa = (16.0 - 3800.0 / t).exp();
+        let pb = (17.0 - 4600.0 / t).exp();
+        text.push_str(&format!("light,{t},{pa:.6}\nheavy,{t},{pb:.6}\n"));
+    }
+    std::fs::write(&data, text).unwrap();
+    let fits = dir.path().join("fits.json");
+    let st = ebullio()
+        .arg("fit")
+        .arg(&data)
+        .args(["--format", "json", "--output"])
+        .arg(&fits)
+        .status()
+        .unwrap();
+    assert!(st.success());
+    let f = fits.to_str().unwrap();
+    let v = json(&["boil", "--from", f, "--compound", "Heavy", "-p", "20 kPa"]);
+    assert!(v["source"].as_str().unwrap().contains("heavy"), "{v}");
+    let t = v["results"][0]["t_k"].as_f64().unwrap();
+    // ln p = 17 - 4600/T with p in kPa: T = 4600 / (17 - ln 20).
+    assert!((t - 4600.0 / (17.0 - 20f64.ln())).abs() < 0.05, "{t}");
+    for extra in [&[][..], &["--compound", "nope"][..]] {
+        let out = ebullio()
+            .args(["boil", "--from", f, "-p", "20 kPa"])
+            .args(extra)
+            .output()
+            .unwrap();
+        assert_eq!(out.status.code(), Some(2));
+        let err = String::from_utf8_lossy(&out.stderr);
+        assert!(err.contains("light, heavy"), "{err}");
+    }
+}

@@ -261,7 +261,7 @@ fn bad_input_exits_2_with_a_clear_message() {
                 "--constants",
                 "ln,kPa,degC",
             ],
-            "cannot read",
+            "no such file",
         ),
     ] {
         let out = ebullio().args(&args).output().unwrap();

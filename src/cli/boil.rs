@@ -5,7 +5,6 @@ use super::convert::parse_abc;
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::boiling::{self, BoilResult, VACUUM_CAUTIONS};
-use ebullio::fit::report::FitReport;
 use ebullio::fit::FittedCurve;
 use ebullio::reference::Library;
 use ebullio::units::{parse_pressure, parse_temperature, ATM_PA};
@@ -29,7 +28,8 @@ pub struct Args {
     /// Validity range of --antoine, e.g. "20 degC..110 degC".
     #[arg(long, allow_hyphen_values = true)]
     pub range: Option<String>,
-    /// A reference compound (name, synonym or CAS number).
+    /// A reference compound (name, synonym or CAS number); with --from, the compound to
+    /// take from a fit file that holds several.
     #[arg(long)]
     pub compound: Option<String>,
     /// A fit result written by `ebullio fit --format json`.
@@ -123,9 +123,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         return Err(InputError("give pressures (--pressure, --pressure-range) or temperatures (--temperature, --temperature-range), not both or neither".into()).into());
     }
     // 2. Resolve the source into one curve.
+    // With --from, --compound picks one fit of a multi-compound fit file.
     let n_sources = [
         args.antoine.is_some(),
-        args.compound.is_some(),
+        args.compound.is_some() && args.from.is_none(),
         args.from.is_some(),
         args.smiles.is_some(),
     ]
@@ -171,7 +172,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             format!("Antoine constants {a}, {b}, {c} ({conv})"),
             1.96,
         )
-    } else if let Some(name) = &args.compound {
+    } else if let (Some(name), None) = (&args.compound, &args.from) {
         let lib_owned;
         let lib = match &args.reference_table {
             Some(p) => {
@@ -208,15 +209,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             1.96,
         )
     } else if let Some(path) = &args.from {
-        let text = read_text(path)?;
         inputs.push(path);
-        let report: FitReport = serde_json::from_str(&text).map_err(|e| {
-            InputError(format!(
-                "{}: not a fit result ({e}); write one with `ebullio fit DATA --format json`",
-                path.display()
-            ))
-        })?;
-        let fc = FittedCurve::from_report(&report);
+        let reports = ebullio::table_io::read_fit_reports(path)?;
+        let report = ebullio::table_io::pick_fit(path, &reports, args.compound.as_deref())?;
+        let fc = FittedCurve::from_report(report);
         let k = fc.t95();
         let name = report.compound.clone().unwrap_or_else(|| "unnamed".into());
         (

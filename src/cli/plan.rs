@@ -167,23 +167,9 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
 
 /// The components in one fit result file.
 fn fit_components(path: &std::path::Path) -> Result<Vec<Component>, InputError> {
-    use ebullio::fit::{FitReport, FittedCurve};
-    let text = std::fs::read_to_string(path)
-        .map_err(|e| InputError(format!("--from {}: cannot read: {e}", path.display())))?;
-    let bad = |e: serde_json::Error| {
-        InputError(format!(
-            "--from {}: line {}, column {}: not a fit result (expected the JSON of `ebullio fit`): {e}",
-            path.display(),
-            e.line(),
-            e.column()
-        ))
-    };
-    let value: serde_json::Value = serde_json::from_str(&text).map_err(bad)?;
-    let reports: Vec<FitReport> = if value.is_array() {
-        serde_json::from_value(value).map_err(bad)?
-    } else {
-        vec![serde_json::from_value(value).map_err(bad)?]
-    };
+    use ebullio::fit::FittedCurve;
+    let reports =
+        ebullio::table_io::read_fit_reports(path).map_err(|e| InputError(format!("--from {e}")))?;
     let stem = path
         .file_stem()
         .and_then(|s| s.to_str())

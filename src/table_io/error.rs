@@ -51,6 +51,8 @@ pub enum ReadErrorKind {
     ColumnType,
     /// A Parquet file that cannot be decoded, or Parquet support not built in.
     Parquet,
+    /// A file that should hold `ebullio fit` JSON does not.
+    FitFile,
 }
 
 impl ReadErrorKind {
@@ -78,6 +80,7 @@ impl ReadErrorKind {
             Self::NegativeUncertainty => "negative-uncertainty",
             Self::ColumnType => "column-type",
             Self::Parquet => "parquet",
+            Self::FitFile => "fit-file",
         }
     }
 }

@@ -9,6 +9,7 @@
 pub mod atomic;
 pub mod error;
 pub mod estimates;
+pub mod fit_file;
 pub mod headings;
 pub mod measured;
 #[cfg(feature = "tables")]
@@ -21,6 +22,7 @@ pub mod text_table;
 pub use atomic::{write_atomic, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::estimates_csv;
+pub use fit_file::{pick_fit, read_fit_reports};
 pub use measured::{
     read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
     ReadWarning,
