@@ -177,7 +177,7 @@ fn estimate_report_has_group_breakdown_intervals_and_curves() {
         "Joback groups: Tb(Joback) = 198 K",
         "count × ΔTb/K",
         "Boiling points at chosen pressures",
-        "Intervals are calibrated on the bundled dev set",
+        "Calibrated on the bundled dev set",
         "Estimates are not measurements",
     ] {
         assert!(html.contains(needle), "report lacks {needle}");

@@ -209,16 +209,8 @@ fn table_text(rows: &[Row]) -> String {
         }
         s.push('\n');
     }
-    s.push_str(&format!(
-        "Dev-set calibration: {} of {} compounds, MAE {:.1} K ({}), Joback {:.1} K; {:.0} % inside their 90 % interval ({:.0} % leave-one-out).\n",
-        cal.n_estimated,
-        cal.n_total,
-        cal.mae_recommended_k,
-        cal.variant.name(),
-        cal.mae_joback_k,
-        100.0 * cal.coverage_in_sample,
-        100.0 * cal.coverage_leave_one_out
-    ));
+    s.push_str(&cal.summary());
+    s.push('\n');
     for c in Estimate::cautions() {
         s.push_str(c);
         s.push('\n');

@@ -141,6 +141,22 @@ pub struct Calibration {
     pub rows: Vec<DevRow>,
 }
 
+impl Calibration {
+    /// One sentence on the measured calibration, for reports and the terminal.
+    pub fn summary(&self) -> String {
+        format!(
+            "Calibrated on the bundled dev set: {} of {} compounds estimated, mean absolute error {:.1} K ({}), Joback alone {:.1} K; {:.0} % of the dev set lie inside their 90 % interval ({:.0} % leave-one-out).",
+            self.n_estimated,
+            self.n_total,
+            self.mae_recommended_k,
+            self.variant.name(),
+            self.mae_joback_k,
+            100.0 * self.coverage_in_sample,
+            100.0 * self.coverage_leave_one_out
+        )
+    }
+}
+
 fn quantile90(mut v: Vec<f64>) -> f64 {
     if v.is_empty() {
         return f64::NAN;

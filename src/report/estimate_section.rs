@@ -233,16 +233,7 @@ pub fn add_estimates(section: &mut Section, rows: &[EstimateRow]) {
         section.figure(fig);
     }
     let cal = calibration();
-    section.paragraph(format!(
-        "Intervals are calibrated on the bundled dev set: {} of {} compounds estimated, mean absolute error {:.1} K ({}), Joback alone {:.1} K; {:.0} % of the dev set lie inside their 90 % interval ({:.0} % leave-one-out).",
-        cal.n_estimated,
-        cal.n_total,
-        cal.mae_recommended_k,
-        cal.variant.name(),
-        cal.mae_joback_k,
-        100.0 * cal.coverage_in_sample,
-        100.0 * cal.coverage_leave_one_out
-    ));
+    section.paragraph(cal.summary());
     for (i, r) in rows.iter().enumerate() {
         let Some(e) = &r.estimate else { continue };
         let sub = section.subsection(label(r, i));

@@ -132,6 +132,21 @@ impl ReadError {
         }
     }
 
+    /// A text row with a different number of fields than the header, at `line`.
+    pub fn ragged(
+        file: impl Into<PathBuf>,
+        line: u64,
+        fields: usize,
+        header_fields: usize,
+    ) -> Self {
+        Self::file(
+            file,
+            ReadErrorKind::RaggedRow,
+            format!("this row has {fields} fields but the header has {header_fields}"),
+        )
+        .at_line(line, Locus::Line)
+    }
+
     /// Attach a line (or row).
     pub fn at_line(mut self, line: u64, locus: Locus) -> Self {
         self.line = Some(line);

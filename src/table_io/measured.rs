@@ -156,16 +156,7 @@ fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, Re
             None => headers = Some(cells),
             Some(h) => {
                 if cells.len() != h.len() {
-                    return Err(ReadError::file(
-                        path,
-                        ReadErrorKind::RaggedRow,
-                        format!(
-                            "this row has {} fields but the header has {}",
-                            cells.len(),
-                            h.len()
-                        ),
-                    )
-                    .at_line(line, Locus::Line));
+                    return Err(ReadError::ragged(path, line, cells.len(), h.len()));
                 }
                 let cells = if opts.decimal_comma {
                     cells.into_iter().map(|c| c.replace(',', ".")).collect()

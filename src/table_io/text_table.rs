@@ -198,16 +198,7 @@ fn decode_record(
     }
     if let Some(h) = headers {
         if cells.len() != h.len() {
-            return Err(ReadError::file(
-                path,
-                ReadErrorKind::RaggedRow,
-                format!(
-                    "this row has {} fields but the header has {}",
-                    cells.len(),
-                    h.len()
-                ),
-            )
-            .at_line(line, Locus::Line));
+            return Err(ReadError::ragged(path, line, cells.len(), h.len()));
         }
     }
     Ok(cells)
