@@ -11,7 +11,7 @@
 //! tuning constant 1.345 (95 % efficiency at the normal), scale by the
 //! normalized median absolute deviation.
 
-use super::linear::solve_weighted;
+use super::linear::solve_weighted_columns;
 use super::lsq::{self, LsqResult, Problem, Settings, Termination};
 use crate::vapor::{Antoine, Clapeyron, Equation, VaporEquation};
 use nalgebra::DMatrix;
@@ -95,18 +95,26 @@ pub struct EquationFit {
 }
 
 fn linear_fit(eq: &Equation, t: &[f64], y: &[f64], sigma: &[f64]) -> Option<Vec<f64>> {
-    let n = eq.n_params();
-    let mut design = DMatrix::zeros(t.len(), n);
-    let mut rhs = vec![0.0; t.len()];
-    let mut phi = vec![0.0; n];
-    for i in 0..t.len() {
-        let off = eq.linear_basis(t[i], &mut phi)?;
+    let (m, n) = (t.len(), eq.n_params());
+    let (mut stack, mut heap) = ([0.0; 8], Vec::new());
+    let phi: &mut [f64] = if n <= stack.len() {
+        &mut stack[..n]
+    } else {
+        heap.resize(n, 0.0);
+        &mut heap
+    };
+    // Nonlinear equations say so at the first point, before any allocation.
+    eq.linear_basis(*t.first()?, phi)?;
+    let mut design = vec![0.0; m * n]; // column-major
+    let mut rhs = vec![0.0; m];
+    for i in 0..m {
+        let off = eq.linear_basis(t[i], phi)?;
         for k in 0..n {
-            design[(i, k)] = phi[k];
+            design[k * m + i] = phi[k];
         }
         rhs[i] = y[i] - off;
     }
-    solve_weighted(&design, &rhs, sigma)
+    solve_weighted_columns(design, m, n, &rhs, sigma)
 }
 
 /// Start values for Antoine from its linearized form; falls back to the
@@ -114,13 +122,13 @@ fn linear_fit(eq: &Equation, t: &[f64], y: &[f64], sigma: &[f64]) -> Option<Vec<
 pub fn antoine_start(t: &[f64], y: &[f64], sigma: &[f64]) -> Option<Vec<f64>> {
     let m = t.len();
     let tmin = t.iter().copied().fold(f64::INFINITY, f64::min);
-    let design = DMatrix::from_fn(m, 3, |i, k| match k {
-        0 => t[i],
-        1 => 1.0,
-        _ => -y[i],
-    });
+    // Columns T, 1, −ln p (column-major).
+    let mut design = Vec::with_capacity(3 * m);
+    design.extend_from_slice(t);
+    design.extend(std::iter::repeat_n(1.0, m));
+    design.extend(y.iter().map(|v| -v));
     let rhs: Vec<f64> = (0..m).map(|i| t[i] * y[i]).collect();
-    if let Some(s) = solve_weighted(&design, &rhs, sigma) {
+    if let Some(s) = solve_weighted_columns(design, m, 3, &rhs, sigma) {
         let (a, k2, c) = (s[0], s[1], s[2]);
         let b = a * c - k2;
         if b > 0.0 && tmin + c > 0.05 * tmin && c.is_finite() {

@@ -7,41 +7,57 @@
 //! Reference: G. H. Golub & C. F. Van Loan, *Matrix Computations*, 4th ed.,
 //! section 5.5 (least squares by SVD).
 
-use nalgebra::{DMatrix, DVector};
+use super::svd::thin_svd;
+use nalgebra::DMatrix;
 
 /// Solve the weighted linear problem; `design` is m×n (rows φ_i), `rhs` the
 /// targets y_i − o_i. Returns `None` when the design is rank deficient.
 pub fn solve_weighted(design: &DMatrix<f64>, rhs: &[f64], sigma: &[f64]) -> Option<Vec<f64>> {
     let (m, n) = design.shape();
-    if m < n || rhs.len() != m || sigma.len() != m {
+    solve_weighted_columns(design.as_slice().to_vec(), m, n, rhs, sigma)
+}
+
+/// As [`solve_weighted`], with the design given column-major in `a` (m×n),
+/// which is used as the work buffer.
+pub fn solve_weighted_columns(
+    mut a: Vec<f64>,
+    m: usize,
+    n: usize,
+    rhs: &[f64],
+    sigma: &[f64],
+) -> Option<Vec<f64>> {
+    if m < n || a.len() != m * n || rhs.len() != m || sigma.len() != m {
         return None;
     }
-    let mut a = design.clone();
-    let mut b = DVector::from_column_slice(rhs);
-    for i in 0..m {
-        a.row_mut(i).unscale_mut(sigma[i]);
-        b[i] /= sigma[i];
+    for k in 0..n {
+        for i in 0..m {
+            a[k * m + i] /= sigma[i];
+        }
     }
     let mut scale = vec![1.0; n];
     for k in 0..n {
-        let norm = a.column(k).norm();
+        let col = &mut a[k * m..(k + 1) * m];
+        let norm = col.iter().map(|x| x * x).sum::<f64>().sqrt();
         if !(norm > 0.0 && norm.is_finite()) {
             return None;
         }
         scale[k] = norm;
-        a.column_mut(k).unscale_mut(norm);
+        col.iter_mut().for_each(|x| *x /= norm);
     }
-    let svd = a.svd(true, true);
-    let smax = svd.singular_values.max();
-    if svd
-        .singular_values
-        .iter()
-        .any(|&s| s.is_nan() || s <= smax * 1e-13)
-    {
+    let svd = thin_svd(a, m, n)?;
+    let smax = svd.s_max();
+    if svd.s.iter().any(|&s| s.is_nan() || s <= smax * 1e-13) {
         return None;
     }
-    let x = svd.solve(&b, 0.0).ok()?;
-    let theta: Vec<f64> = (0..n).map(|k| x[k] / scale[k]).collect();
+    // x = V Σ⁻¹ Uᵀ b, then undo the column scaling.
+    let mut c = vec![0.0; n];
+    for k in 0..n {
+        let utb: f64 = (0..m).map(|i| svd.u(i, k) * rhs[i] / sigma[i]).sum();
+        c[k] = utb / svd.s[k];
+    }
+    let theta: Vec<f64> = (0..n)
+        .map(|j| (0..n).map(|k| svd.v(j, k) * c[k]).sum::<f64>() / scale[j])
+        .collect();
     theta.iter().all(|v| v.is_finite()).then_some(theta)
 }
 

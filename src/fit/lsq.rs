@@ -10,8 +10,13 @@
 //! and theory", Lecture Notes in Mathematics 630 (1978); covariance definition
 //! as on the NIST StRD nonlinear regression certification page.
 
-use levenberg_marquardt::{LeastSquaresProblem, LevenbergMarquardt};
-use nalgebra::{DMatrix, DVector, Dyn, Owned};
+use super::svd::thin_svd;
+use levenberg_marquardt::{LeastSquaresProblem, LevenbergMarquardt, MinimizationReport};
+use nalgebra::allocator::{Allocator, Reallocator};
+use nalgebra::{
+    Const, DMatrix, DVector, DefaultAllocator, Dim, DimMax, DimMaximum, DimMin, Dyn, OMatrix,
+    OVector, Owned,
+};
 use serde::{Deserialize, Serialize};
 
 /// A least-squares model: observations y_i and model values f_i(θ) with gradients.
@@ -76,48 +81,84 @@ impl LsqResult {
     }
 }
 
-struct Wrapped<'a, P: Problem> {
+struct Wrapped<'a, P: Problem, N: Dim>
+where
+    DefaultAllocator: Allocator<N>,
+{
     p: &'a P,
     sigma: &'a [f64],
-    theta: DVector<f64>,
+    theta: OVector<f64, N>,
 }
 
-impl<P: Problem> LeastSquaresProblem<f64, Dyn, Dyn> for Wrapped<'_, P> {
-    type ResidualStorage = Owned<f64, Dyn>;
-    type JacobianStorage = Owned<f64, Dyn, Dyn>;
-    type ParameterStorage = Owned<f64, Dyn>;
+/// Up to this many parameters the per-point gradient lives on the stack.
+const STACK_PARAMS: usize = 16;
 
-    fn set_params(&mut self, x: &DVector<f64>) {
+/// Calls `f` with a zeroed scratch gradient of length `n` (stack for small n).
+fn with_grad<R>(n: usize, f: impl FnOnce(&mut [f64]) -> R) -> R {
+    if n <= STACK_PARAMS {
+        let mut buf = [0.0; STACK_PARAMS];
+        f(&mut buf[..n])
+    } else {
+        f(&mut vec![0.0; n])
+    }
+}
+
+impl<P: Problem, N: Dim> LeastSquaresProblem<f64, Dyn, N> for Wrapped<'_, P, N>
+where
+    DefaultAllocator: Allocator<N> + Allocator<Dyn> + Allocator<Dyn, N>,
+{
+    type ResidualStorage = Owned<f64, Dyn>;
+    type JacobianStorage = Owned<f64, Dyn, N>;
+    type ParameterStorage = Owned<f64, N>;
+
+    fn set_params(&mut self, x: &OVector<f64, N>) {
         self.theta.copy_from(x);
     }
-    fn params(&self) -> DVector<f64> {
+    fn params(&self) -> OVector<f64, N> {
         self.theta.clone()
     }
     fn residuals(&self) -> Option<DVector<f64>> {
-        let (m, n) = (self.p.n_obs(), self.p.n_params());
-        let mut g = vec![0.0; n];
+        let m = self.p.n_obs();
         let th = self.theta.as_slice();
-        let r = DVector::from_fn(m, |i, _| {
-            (self.p.observed(i) - self.p.model(i, th, &mut g)) / self.sigma[i]
+        let r = with_grad(th.len(), |g| {
+            DVector::<f64>::from_fn(m, |i, _| {
+                (self.p.observed(i) - self.p.model(i, th, g)) / self.sigma[i]
+            })
         });
         r.iter().all(|v| v.is_finite()).then_some(r)
     }
-    fn jacobian(&self) -> Option<DMatrix<f64>> {
-        Some(weighted_jacobian(self.p, self.sigma, self.theta.as_slice()))
+    fn jacobian(&self) -> Option<OMatrix<f64, Dyn, N>> {
+        let (rows, cols) = (Dyn(self.p.n_obs()), self.theta.shape_generic().0);
+        let mut j = OMatrix::<f64, Dyn, N>::zeros_generic(rows, cols);
+        fill_weighted_jacobian(self.p, self.sigma, self.theta.as_slice(), |i, k, v| {
+            j[(i, k)] = v
+        });
+        Some(j)
     }
 }
 
-/// Jacobian of the weighted residuals: J_ij = −(∂f_i/∂θ_j)/σ_i.
-fn weighted_jacobian<P: Problem>(p: &P, sigma: &[f64], theta: &[f64]) -> DMatrix<f64> {
-    let (m, n) = (p.n_obs(), p.n_params());
-    let mut j = DMatrix::zeros(m, n);
-    let mut g = vec![0.0; n];
-    for i in 0..m {
-        p.model(i, theta, &mut g);
-        for k in 0..n {
-            j[(i, k)] = -g[k] / sigma[i];
+/// Jacobian of the weighted residuals: J_ij = −(∂f_i/∂θ_j)/σ_i, written through `set`.
+fn fill_weighted_jacobian<P: Problem>(
+    p: &P,
+    sigma: &[f64],
+    theta: &[f64],
+    mut set: impl FnMut(usize, usize, f64),
+) {
+    let n = theta.len();
+    with_grad(n, |g| {
+        for i in 0..p.n_obs() {
+            p.model(i, theta, g);
+            for k in 0..n {
+                set(i, k, -g[k] / sigma[i]);
+            }
         }
-    }
+    })
+}
+
+/// Jacobian of the weighted residuals as a dynamic matrix.
+fn weighted_jacobian<P: Problem>(p: &P, sigma: &[f64], theta: &[f64]) -> DMatrix<f64> {
+    let mut j = DMatrix::zeros(p.n_obs(), theta.len());
+    fill_weighted_jacobian(p, sigma, theta, |i, k, v| j[(i, k)] = v);
     j
 }
 
@@ -141,17 +182,14 @@ impl Default for Settings {
 
 /// Minimise from `start` with standard uncertainties `sigma` (one per observation).
 pub fn solve<P: Problem>(p: &P, sigma: &[f64], start: &[f64], s: Settings) -> LsqResult {
-    let w = Wrapped {
-        p,
-        sigma,
-        theta: DVector::from_column_slice(start),
+    // Fixed-size parameter vectors keep the solver's n-sized work off the heap
+    // for the vapor-pressure equations (2–4 constants); the arithmetic is the same.
+    let (theta, report) = match start.len() {
+        2 => minimize(p, sigma, start, s, Const::<2>),
+        3 => minimize(p, sigma, start, s, Const::<3>),
+        4 => minimize(p, sigma, start, s, Const::<4>),
+        n => minimize(p, sigma, start, s, Dyn(n)),
     };
-    let lm = LevenbergMarquardt::new()
-        .with_ftol(s.tol)
-        .with_xtol(s.tol)
-        .with_patience(s.patience);
-    let (w, report) = lm.minimize(w);
-    let theta: Vec<f64> = w.theta.iter().copied().collect();
     let finite = theta.iter().all(|v| v.is_finite());
     let termination = Termination {
         converged: report.termination.was_successful() && finite,
@@ -159,6 +197,33 @@ pub fn solve<P: Problem>(p: &P, sigma: &[f64], start: &[f64], s: Settings) -> Ls
         evaluations: report.number_of_evaluations,
     };
     finish(p, sigma, theta, termination)
+}
+
+fn minimize<P: Problem, N: Dim>(
+    p: &P,
+    sigma: &[f64],
+    start: &[f64],
+    s: Settings,
+    n: N,
+) -> (Vec<f64>, MinimizationReport<f64>)
+where
+    Dyn: DimMin<N> + DimMax<N>,
+    DefaultAllocator: Allocator<N>
+        + Allocator<Dyn, N>
+        + Allocator<DimMaximum<Dyn, N>, N>
+        + Reallocator<f64, Dyn, N, DimMaximum<Dyn, N>, N>,
+{
+    let w = Wrapped {
+        p,
+        sigma,
+        theta: OVector::<f64, N>::from_iterator_generic(n, Const::<1>, start.iter().copied()),
+    };
+    let lm = LevenbergMarquardt::new()
+        .with_ftol(s.tol)
+        .with_xtol(s.tol)
+        .with_patience(s.patience);
+    let (w, report) = lm.minimize(w);
+    (w.theta.iter().copied().collect(), report)
 }
 
 /// Residuals, covariance and leverages at `theta` (no iteration).
@@ -169,10 +234,11 @@ pub fn finish<P: Problem>(
     termination: Termination,
 ) -> LsqResult {
     let (m, n) = (p.n_obs(), p.n_params());
-    let mut g = vec![0.0; n];
-    let residuals: Vec<f64> = (0..m)
-        .map(|i| (p.observed(i) - p.model(i, &theta, &mut g)) / sigma[i])
-        .collect();
+    let residuals: Vec<f64> = with_grad(n, |g| {
+        (0..m)
+            .map(|i| (p.observed(i) - p.model(i, &theta, g)) / sigma[i])
+            .collect()
+    });
     let rss = residuals.iter().map(|r| r * r).sum();
     let j = weighted_jacobian(p, sigma, &theta);
     let (jtj_inv, leverage) = inverse_and_leverage(j);
@@ -188,31 +254,29 @@ pub fn finish<P: Problem>(
 }
 
 /// (JᵀJ)⁻¹ and the hat-matrix diagonal of J, by SVD of the column-scaled J.
-pub fn inverse_and_leverage(mut j: DMatrix<f64>) -> (Option<DMatrix<f64>>, Vec<f64>) {
+pub fn inverse_and_leverage(j: DMatrix<f64>) -> (Option<DMatrix<f64>>, Vec<f64>) {
     let (m, n) = j.shape();
+    let mut a: Vec<f64> = j.data.into();
     let mut scale = vec![1.0; n];
     for k in 0..n {
-        let norm = j.column(k).norm();
+        let col = &mut a[k * m..(k + 1) * m];
+        let norm = col.iter().map(|x| x * x).sum::<f64>().sqrt();
         if norm > 0.0 && norm.is_finite() {
             scale[k] = norm;
-            j.column_mut(k).unscale_mut(norm);
+            col.iter_mut().for_each(|x| *x /= norm);
         }
     }
-    if !j.iter().all(|v| v.is_finite()) {
-        return (None, vec![f64::NAN; m]);
-    }
-    let svd = j.svd(true, true);
-    let (Some(u), Some(vt)) = (svd.u, svd.v_t) else {
+    let Some(svd) = thin_svd(a, m, n) else {
         return (None, vec![f64::NAN; m]);
     };
-    let sv = svd.singular_values;
-    let smax = sv.max();
+    let sv = &svd.s;
+    let smax = svd.s_max();
     let rank_ok = sv.iter().all(|&s| s > smax * 1e-15 && s > 0.0);
     let leverage = (0..m)
         .map(|i| {
-            (0..sv.len())
+            (0..n)
                 .filter(|&k| sv[k] > smax * 1e-15)
-                .map(|k| u[(i, k)].powi(2))
+                .map(|k| svd.u(i, k).powi(2))
                 .sum()
         })
         .collect();
@@ -224,7 +288,7 @@ pub fn inverse_and_leverage(mut j: DMatrix<f64>) -> (Option<DMatrix<f64>>, Vec<f
         for b in 0..n {
             let mut s = 0.0;
             for k in 0..n {
-                s += vt[(k, a)] * vt[(k, b)] / (sv[k] * sv[k]);
+                s += svd.v(a, k) * svd.v(b, k) / (sv[k] * sv[k]);
             }
             inv[(a, b)] = s / (scale[a] * scale[b]);
         }

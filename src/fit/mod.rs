@@ -1,7 +1,8 @@
 //! Fitting vapor-pressure equations to measured data, with honest uncertainties.
 //!
 //! Layers, one concern per file: [`lsq`] (generic weighted Levenberg–Marquardt
-//! and covariance), [`linear`] (exact linear least squares), [`equation_fit`]
+//! and covariance), [`linear`] (exact linear least squares), [`svd`] (thin
+//! one-sided Jacobi SVD used by both), [`equation_fit`]
 //! (one equation to points: starts, effective-variance weights, robust loss),
 //! [`vapor_fit`] (statistics, diagnostics, predictions, findings, model
 //! choice), [`report`] (the serialisable result) and [`curve`] (a fitted curve
@@ -31,6 +32,7 @@ pub mod lsq;
 pub mod options;
 pub mod report;
 pub mod stats;
+pub mod svd;
 pub mod vapor_fit;
 
 pub use curve::FittedCurve;
