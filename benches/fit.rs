@@ -45,3 +45,16 @@ fn batch_10000_compounds_one_core(b: divan::Bencher) {
             .count()
     });
 }
+
+/// As the CLI runs a batch (rayon over compounds); set RAYON_NUM_THREADS=1 or 2.
+#[divan::bench(sample_count = 3)]
+fn batch_10000_compounds_rayon(b: divan::Bencher) {
+    use rayon::prelude::*;
+    let sets: Vec<Vec<Point>> = (0..10_000).map(set).collect();
+    let opts = FitOptions::default();
+    b.bench(|| {
+        sets.par_iter()
+            .filter_map(|s| fit_points(None, s, &opts).ok())
+            .count()
+    });
+}

@@ -2,7 +2,9 @@
 //!
 //! Run: `cargo build --release --no-default-features --example fit_profile`, then
 //! `valgrind --tool=callgrind target/release/examples/fit_profile 1000 [same]`; the
-//! count minus that of `fit_profile 0`, over 1000, is instructions per fit. Same invented data as `benches/fit.rs`.
+//! count minus that of `fit_profile 0`, over 1000, is instructions per fit.
+//! `perf stat -e task-clock` on it gives CPU time per fit on a shared machine.
+//! Same invented data as `benches/fit.rs`.
 
 use ebullio::fit::{fit_points, FitOptions, Point};
 

@@ -74,6 +74,9 @@ impl Problem for VaporProblem<'_> {
     fn model(&self, i: usize, theta: &[f64], grad: &mut [f64]) -> f64 {
         self.eq.gradient(theta, self.t[i], grad)
     }
+    fn value(&self, i: usize, theta: &[f64]) -> f64 {
+        self.eq.ln_p(theta, self.t[i])
+    }
 }
 
 /// An equation fitted to points, before reporting.

@@ -11,7 +11,9 @@
 //! as on the NIST StRD nonlinear regression certification page.
 
 use super::svd::thin_svd;
-use levenberg_marquardt::{LeastSquaresProblem, LevenbergMarquardt, MinimizationReport};
+use levenberg_marquardt::{
+    LeastSquaresProblem, LevenbergMarquardt, MinimizationReport, TerminationReason,
+};
 use nalgebra::allocator::{Allocator, Reallocator};
 use nalgebra::{
     Const, DMatrix, DVector, DefaultAllocator, Dim, DimMax, DimMaximum, DimMin, Dyn, OMatrix,
@@ -29,6 +31,10 @@ pub trait Problem {
     fn observed(&self, i: usize) -> f64;
     /// Model value f_i(θ), writing ∂f_i/∂θ into `grad`.
     fn model(&self, i: usize, theta: &[f64], grad: &mut [f64]) -> f64;
+    /// Model value f_i(θ) alone; override when it is cheaper than [`Problem::model`].
+    fn value(&self, i: usize, theta: &[f64]) -> f64 {
+        with_grad(theta.len(), |g| self.model(i, theta, g))
+    }
 }
 
 /// How the solver stopped.
@@ -118,14 +124,13 @@ where
         self.theta.clone()
     }
     fn residuals(&self) -> Option<DVector<f64>> {
-        let m = self.p.n_obs();
         let th = self.theta.as_slice();
-        let r = with_grad(th.len(), |g| {
-            DVector::<f64>::from_fn(m, |i, _| {
-                (self.p.observed(i) - self.p.model(i, th, g)) / self.sigma[i]
-            })
-        });
-        r.iter().all(|v| v.is_finite()).then_some(r)
+        let r: Vec<f64> = (0..self.p.n_obs())
+            .map(|i| (self.p.observed(i) - self.p.value(i, th)) / self.sigma[i])
+            .collect();
+        r.iter()
+            .all(|v| v.is_finite())
+            .then(|| DVector::from_vec(r))
     }
     fn jacobian(&self) -> Option<OMatrix<f64, Dyn, N>> {
         let (rows, cols) = (Dyn(self.p.n_obs()), self.theta.shape_generic().0);
@@ -193,10 +198,28 @@ pub fn solve<P: Problem>(p: &P, sigma: &[f64], start: &[f64], s: Settings) -> Ls
     let finite = theta.iter().all(|v| v.is_finite());
     let termination = Termination {
         converged: report.termination.was_successful() && finite,
-        reason: format!("{:?}", report.termination),
+        reason: reason_text(&report.termination),
         evaluations: report.number_of_evaluations,
     };
     finish(p, sigma, theta, termination)
+}
+
+/// The solver's reason in words: the crate's own variant name and fields, as
+/// `Debug` would print them, without formatting on the common paths.
+fn reason_text(t: &TerminationReason) -> String {
+    match t {
+        TerminationReason::Converged { ftol, xtol } => match (ftol, xtol) {
+            (true, true) => "Converged { ftol: true, xtol: true }",
+            (true, false) => "Converged { ftol: true, xtol: false }",
+            (false, true) => "Converged { ftol: false, xtol: true }",
+            (false, false) => "Converged { ftol: false, xtol: false }",
+        }
+        .into(),
+        TerminationReason::Orthogonal => "Orthogonal".into(),
+        TerminationReason::ResidualsZero => "ResidualsZero".into(),
+        TerminationReason::LostPatience => "LostPatience".into(),
+        other => format!("{other:?}"),
+    }
 }
 
 fn minimize<P: Problem, N: Dim>(
@@ -234,11 +257,9 @@ pub fn finish<P: Problem>(
     termination: Termination,
 ) -> LsqResult {
     let (m, n) = (p.n_obs(), p.n_params());
-    let residuals: Vec<f64> = with_grad(n, |g| {
-        (0..m)
-            .map(|i| (p.observed(i) - p.model(i, &theta, g)) / sigma[i])
-            .collect()
-    });
+    let residuals: Vec<f64> = (0..m)
+        .map(|i| (p.observed(i) - p.value(i, &theta)) / sigma[i])
+        .collect();
     let rss = residuals.iter().map(|r| r * r).sum();
     let j = weighted_jacobian(p, sigma, &theta);
     let (jtj_inv, leverage) = inverse_and_leverage(j);
@@ -336,6 +357,25 @@ mod tests {
             (lev - 2.0).abs() < 1e-9,
             "trace of the hat matrix is n: {lev}"
         );
+    }
+
+    #[test]
+    fn reason_text_matches_debug() {
+        for t in [
+            TerminationReason::Converged {
+                ftol: false,
+                xtol: true,
+            },
+            TerminationReason::Converged {
+                ftol: true,
+                xtol: false,
+            },
+            TerminationReason::Orthogonal,
+            TerminationReason::LostPatience,
+            TerminationReason::User("residuals"),
+        ] {
+            assert_eq!(reason_text(&t), format!("{t:?}"));
+        }
     }
 
     #[test]

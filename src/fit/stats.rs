@@ -9,10 +9,14 @@
 use serde::{Deserialize, Serialize};
 use statrs::distribution::{ContinuousCDF, StudentsT};
 use std::cell::RefCell;
-use std::collections::HashMap;
+
+/// Direct-mapped per-thread cache of quantiles: a batch meets only a few
+/// (q, dof) pairs, and a cache slot costs far less than a hash map lookup.
+const CACHE_SLOTS: usize = 256;
 
 thread_local! {
-    static T_CACHE: RefCell<HashMap<(u64, usize), f64>> = RefCell::new(HashMap::new());
+    static T_CACHE: RefCell<[(u64, usize, f64); CACHE_SLOTS]> =
+        const { RefCell::new([(0, 0, f64::NAN); CACHE_SLOTS]) };
 }
 
 /// Upper quantile t_{q, dof} of Student's t (q in (0,1)); cached per thread.
@@ -21,14 +25,21 @@ pub fn t_quantile(q: f64, dof: usize) -> f64 {
     if dof == 0 || !(q > 0.0 && q < 1.0) {
         return f64::NAN;
     }
-    let key = (q.to_bits(), dof);
-    if let Some(v) = T_CACHE.with(|c| c.borrow().get(&key).copied()) {
+    let bits = q.to_bits();
+    let slot = ((bits ^ (bits >> 29) ^ (dof as u64).wrapping_mul(0x9E37_79B9_7F4A_7C15)) >> 7)
+        as usize
+        % CACHE_SLOTS;
+    // dof ≥ 1, so an empty slot (dof 0) never matches.
+    if let Some(v) = T_CACHE.with(|c| {
+        let (b, d, v) = c.borrow()[slot];
+        (b == bits && d == dof).then_some(v)
+    }) {
         return v;
     }
     let v = StudentsT::new(0.0, 1.0, dof as f64)
         .map(|d| d.inverse_cdf(q))
         .unwrap_or(f64::NAN);
-    T_CACHE.with(|c| c.borrow_mut().insert(key, v));
+    T_CACHE.with(|c| c.borrow_mut()[slot] = (bits, dof, v));
     v
 }
 
@@ -105,6 +116,14 @@ mod tests {
         // Student t table (any statistics text): t_{0.975, 10} = 2.228.
         assert!((t_quantile(0.975, 10) - 2.228).abs() < 1e-3);
         assert!(t_quantile(0.975, 0).is_nan());
+        // Cached values are the computed ones, also when slots collide.
+        for dof in 1..600 {
+            let fresh = StudentsT::new(0.0, 1.0, dof as f64)
+                .unwrap()
+                .inverse_cdf(0.99);
+            assert_eq!(t_quantile(0.99, dof), fresh);
+            assert_eq!(t_quantile(0.99, dof), fresh);
+        }
     }
 
     #[test]

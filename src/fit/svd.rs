@@ -53,21 +53,23 @@ pub fn thin_svd(mut a: Vec<f64>, m: usize, n: usize) -> Option<ThinSvd> {
     }
     // Columns p, q are orthogonal enough when |w_p·w_q| ≤ tol·‖w_p‖‖w_q‖.
     let tol = f64::EPSILON * (m as f64).sqrt();
+    let mut norm2 = vec![0.0; n];
     let mut converged = n < 2;
     for _ in 0..MAX_SWEEPS {
         if converged {
             break;
         }
+        // Squared column norms, refreshed every sweep and updated exactly
+        // (in exact arithmetic) after each rotation in between.
+        for k in 0..n {
+            norm2[k] = a[k * m..(k + 1) * m].iter().map(|x| x * x).sum();
+        }
         let mut rotated = false;
         for p in 0..n {
             for q in p + 1..n {
-                let (mut alpha, mut beta, mut gamma) = (0.0, 0.0, 0.0);
-                for i in 0..m {
-                    let (x, y) = (a[p * m + i], a[q * m + i]);
-                    alpha += x * x;
-                    beta += y * y;
-                    gamma += x * y;
-                }
+                let (alpha, beta) = (norm2[p], norm2[q]);
+                let (cp, cq) = columns(&mut a, m, p, q);
+                let gamma: f64 = cp.iter().zip(cq.iter()).map(|(x, y)| x * y).sum();
                 if alpha == 0.0 || beta == 0.0 || gamma.abs() <= tol * (alpha * beta).sqrt() {
                     continue;
                 }
@@ -77,8 +79,11 @@ pub fn thin_svd(mut a: Vec<f64>, m: usize, n: usize) -> Option<ThinSvd> {
                 let t = zeta.signum() / (zeta.abs() + (1.0 + zeta * zeta).sqrt());
                 let c = 1.0 / (1.0 + t * t).sqrt();
                 let s = c * t;
-                rotate(&mut a, m, p, q, c, s);
-                rotate(&mut v, n, p, q, c, s);
+                rotate(cp, cq, c, s);
+                let (vp, vq) = columns(&mut v, n, p, q);
+                rotate(vp, vq, c, s);
+                norm2[p] = (alpha - t * gamma).max(0.0);
+                norm2[q] = beta + t * gamma;
             }
         }
         converged = !rotated;
@@ -98,11 +103,17 @@ pub fn thin_svd(mut a: Vec<f64>, m: usize, n: usize) -> Option<ThinSvd> {
     Some(ThinSvd { m, n, u: a, s, v })
 }
 
-fn rotate(w: &mut [f64], rows: usize, p: usize, q: usize, c: f64, s: f64) {
-    for i in 0..rows {
-        let (x, y) = (w[p * rows + i], w[q * rows + i]);
-        w[p * rows + i] = c * x - s * y;
-        w[q * rows + i] = s * x + c * y;
+/// Columns p < q of a column-major matrix with `rows` rows, both mutable.
+fn columns(w: &mut [f64], rows: usize, p: usize, q: usize) -> (&mut [f64], &mut [f64]) {
+    let (left, right) = w.split_at_mut(q * rows);
+    (&mut left[p * rows..(p + 1) * rows], &mut right[..rows])
+}
+
+fn rotate(wp: &mut [f64], wq: &mut [f64], c: f64, s: f64) {
+    for (x, y) in wp.iter_mut().zip(wq.iter_mut()) {
+        let (a, b) = (*x, *y);
+        *x = c * a - s * b;
+        *y = s * a + c * b;
     }
 }
 
