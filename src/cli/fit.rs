@@ -214,6 +214,27 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
                 .with_context(|| format!("writing {}", path.display()))?;
         }
     }
+    // Nothing could be fitted: an error (exit 2) and no output file, as for bad input.
+    if rows.iter().all(|r| matches!(r, Row::Failed { .. })) {
+        let why = rows
+            .iter()
+            .filter_map(|r| match r {
+                Row::Failed { error, .. } => Some(error.as_str()),
+                _ => None,
+            })
+            .next()
+            .unwrap_or("no fit");
+        return Err(InputError(if rows.len() > 1 {
+            format!(
+                "{}: none of the {} compounds could be fitted; the first: {why}",
+                data.source,
+                rows.len()
+            )
+        } else {
+            format!("{}: {why}", data.source)
+        })
+        .into());
+    }
     let text = match args.out.format() {
         Format::Json if rows.len() == 1 => serde_json::to_string_pretty(&rows[0])? + "\n",
         Format::Json => serde_json::to_string_pretty(&rows)? + "\n",
@@ -262,17 +283,6 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             &[args.data.as_path()],
             args.out.output.as_deref(),
         )?;
-    }
-    if rows.iter().all(|r| matches!(r, Row::Failed { .. })) {
-        let why = rows
-            .iter()
-            .filter_map(|r| match r {
-                Row::Failed { error, .. } => Some(error.as_str()),
-                _ => None,
-            })
-            .next()
-            .unwrap_or("no fit");
-        return Err(InputError(format!("{}: {why}", data.source)).into());
     }
     Ok(Outcome::Success)
 }

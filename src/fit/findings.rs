@@ -4,7 +4,7 @@
 //! `too-few-points`, `narrow-range`, `extrapolated-prediction`, `outlier-point`,
 //! `systematic-residuals`, `parameters-highly-correlated`, `poor-fit`,
 //! `antoine-pole-near-range`, `trouton-implausible`, `not-converged`,
-//! `hvap-near-critical`, `model-choice`, `without-flagged-points`.
+//! `hvap-near-critical`, `model-choice`, `without-flagged-points`, `duplicate-points`.
 
 use serde::{Deserialize, Serialize};
 

@@ -43,7 +43,8 @@ pub fn t_quantile(q: f64, dof: usize) -> f64 {
     v
 }
 
-/// Runs test on the signs of residuals ordered by temperature.
+/// Runs test on the signs of residuals ordered by temperature (the fitter
+/// passes one mean residual per distinct temperature).
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct RunsTest {
     /// Number of runs of equal sign.

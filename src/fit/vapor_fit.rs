@@ -47,9 +47,14 @@ pub enum FitError {
         need: usize,
     },
     /// A point is not a physical (T, p) pair.
-    #[error("invalid-point: point {index} (line {line}) has T = {t_k} K, p = {p_pa} Pa; both must be finite and positive")]
+    #[error(
+        "invalid-point: point {}{} has T = {t_k} K, p = {p_pa} Pa; both must be finite and positive{}",
+        index + 1,
+        line_note(*line),
+        gauge_hint(*p_pa)
+    )]
     InvalidPoint {
-        /// 0-based index.
+        /// 0-based index (the message counts from 1).
         index: usize,
         /// Source line (0 if unknown).
         line: u64,
@@ -72,6 +77,22 @@ pub enum FitError {
     /// The start values could not be formed (degenerate data).
     #[error("no-start: the data are degenerate for the {0} equation (no start values)")]
     NoStart(String),
+}
+
+fn line_note(line: u64) -> String {
+    if line > 0 {
+        format!(" (line {line})")
+    } else {
+        String::new()
+    }
+}
+
+fn gauge_hint(p_pa: f64) -> &'static str {
+    if p_pa < 0.0 {
+        " (a negative pressure looks like a gauge reading; vapor pressure must be absolute: add the atmospheric pressure at the time of measurement)"
+    } else {
+        ""
+    }
 }
 
 fn equation_for(sel: ModelSelection, opts: &FitOptions) -> Result<Equation, FitError> {
@@ -122,7 +143,7 @@ fn validate(points: &[Point], lines: &[u64], k: usize, model: &str) -> Result<()
     }
     let mut ts: Vec<f64> = points.iter().map(|p| p.t_k).collect();
     ts.sort_by(f64::total_cmp);
-    ts.dedup_by(|a, b| (*a - *b).abs() <= 1e-9 * b.abs());
+    ts.dedup_by(|a, b| (*a - *b).abs() <= SAME_T_REL * b.abs());
     if ts.len() < k {
         return Err(FitError::TooFewTemperatures {
             distinct: ts.len(),
@@ -400,14 +421,7 @@ fn build_report(
             robust_weight: rw.map(|w| w[i]),
         });
     }
-    let mut order: Vec<usize> = (0..n).collect();
-    order.sort_by(|a, b| points[*a].t_k.total_cmp(&points[*b].t_k));
-    let runs = runs_test(
-        &order
-            .iter()
-            .map(|&i| f.lsq.residuals[i])
-            .collect::<Vec<_>>(),
-    );
+    let runs = runs_test(&residuals_by_temperature(points, &f.lsq.residuals));
     let nbp = if converged {
         interval_t(&curve, P_ATM_PA)
     } else {
@@ -490,6 +504,42 @@ fn build_report(
     r
 }
 
+/// Two temperatures closer than this (relative) are the same setting.
+const SAME_T_REL: f64 = 1e-9;
+
+/// Residuals ordered by temperature, one per distinct temperature (replicates
+/// averaged), for the runs test: the order among replicates is arbitrary, and
+/// a repeated point would otherwise make a run of its own.
+fn residuals_by_temperature(points: &[Point], residuals: &[f64]) -> Vec<f64> {
+    let mut order: Vec<usize> = (0..points.len()).collect();
+    order.sort_by(|a, b| points[*a].t_k.total_cmp(&points[*b].t_k));
+    let mut out = Vec::with_capacity(order.len());
+    let (mut sum, mut count, mut t_group) = (0.0, 0usize, f64::NAN);
+    for &i in &order {
+        let t = points[i].t_k;
+        if count > 0 && (t - t_group).abs() > SAME_T_REL * t_group.abs() {
+            out.push(sum / count as f64);
+            (sum, count) = (0.0, 0);
+        }
+        if count == 0 {
+            t_group = t;
+        }
+        sum += residuals[i];
+        count += 1;
+    }
+    if count > 0 {
+        out.push(sum / count as f64);
+    }
+    out
+}
+
+/// Points that repeat an earlier point exactly (same T and p).
+fn exact_repeats(points: &[PointReport]) -> usize {
+    let mut tp: Vec<(f64, f64)> = points.iter().map(|p| (p.t_k, p.p_pa)).collect();
+    tp.sort_by(|a, b| a.0.total_cmp(&b.0).then(a.1.total_cmp(&b.1)));
+    tp.windows(2).filter(|w| w[0] == w[1]).count()
+}
+
 fn hvap_at(curve: &FittedCurve, t: f64, t95: f64) -> HvapEstimate {
     let h = slope::hvap_j_mol(curve, t);
     // Delta method on the slope: gradient of d ln p/dT by central differences in θ.
@@ -534,6 +584,14 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
             ),
         ));
         return v;
+    }
+    let repeats = exact_repeats(&r.points);
+    if repeats > 0 {
+        v.push(Finding::new(
+            "duplicate-points",
+            w,
+            format!("{repeats} point(s) repeat another point exactly (same T and p); each copy counts as an independent measurement and narrows the intervals, so remove copies that are not genuine repeat measurements."),
+        ));
     }
     let span = r.t_range_k[1] - r.t_range_k[0];
     if span < 20.0 {
