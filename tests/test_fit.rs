@@ -207,3 +207,97 @@ fn bom_stdin_decimal_comma_and_duplicate_rows_are_accepted() {
         .unwrap();
     assert!(child.wait_with_output().unwrap().status.success());
 }
+
+/// Writes a Parquet file with the given columns (polars, as a user's pipeline would).
+#[cfg(feature = "tables")]
+fn write_parquet(path: &Path, columns: Vec<polars::prelude::Column>) {
+    use polars::prelude::*;
+    use polars_io::prelude::*;
+    let n = columns[0].len();
+    let mut df = DataFrame::new(n, columns).unwrap();
+    let mut f = std::fs::File::create(path).unwrap();
+    ParquetWriter::new(&mut f).finish(&mut df).unwrap();
+}
+
+/// The toluene points of [`toluene_csv`] as numbers, parsed from the same text.
+#[cfg(feature = "tables")]
+fn toluene_columns() -> (Vec<String>, Vec<f64>, Vec<f64>) {
+    let text = toluene_csv(1.0);
+    let rows: Vec<Vec<&str>> = text
+        .lines()
+        .skip(1)
+        .map(|l| l.split(',').collect())
+        .collect();
+    (
+        rows.iter().map(|r| r[0].to_string()).collect(),
+        rows.iter().map(|r| r[1].parse().unwrap()).collect(),
+        rows.iter().map(|r| r[2].parse().unwrap()).collect(),
+    )
+}
+
+// Smith, Van Ness & Abbott App. B toluene row: the same points as a Parquet file
+// (float columns, as polars writes them) give exactly the CSV fit.
+#[cfg(feature = "tables")]
+#[test]
+fn svna_toluene_parquet_gives_the_csv_fit() {
+    use polars::prelude::Column;
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("d.csv"), toluene_csv(1.0)).unwrap();
+    let (names, t, p) = toluene_columns();
+    write_parquet(
+        &dir.path().join("d.parquet"),
+        vec![
+            Column::new("compound".into(), names),
+            Column::new("t/degC".into(), t),
+            Column::new("p/kPa".into(), p),
+        ],
+    );
+    let run = |file: &str| -> serde_json::Value {
+        let out = ebullio(dir.path(), &["fit", file, "--format", "json"]);
+        assert!(
+            out.status.success(),
+            "{file}: {}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        serde_json::from_slice(&out.stdout).unwrap()
+    };
+    let (c, q) = (run("d.csv"), run("d.parquet"));
+    assert_eq!(q["compound"], "toluene");
+    assert_eq!(q["n_points"], 10);
+    for key in [
+        "si_parameters",
+        "parameters",
+        "normal_boiling_point_k",
+        "covariance_si",
+        "points",
+        "flags",
+    ] {
+        assert_eq!(c[key], q[key], "{key} differs between CSV and Parquet");
+    }
+}
+
+// A Parquet file whose pressure column holds text is refused: exit 2, the file and
+// the column named, the type expected, no output written.
+#[cfg(feature = "tables")]
+#[test]
+fn parquet_with_a_text_pressure_column_exits_2_naming_the_column() {
+    use polars::prelude::Column;
+    let dir = tempfile::tempdir().unwrap();
+    let (_, t, p) = toluene_columns();
+    let p_text: Vec<String> = p.iter().map(|v| format!("{v} kPa")).collect();
+    write_parquet(
+        &dir.path().join("bad.parquet"),
+        vec![
+            Column::new("t/degC".into(), t),
+            Column::new("p/kPa".into(), p_text),
+        ],
+    );
+    let out = ebullio(dir.path(), &["fit", "bad.parquet", "--output", "out.json"]);
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(2), "{err}");
+    for needle in ["bad.parquet", "p/kPa", "numeric"] {
+        assert!(err.contains(needle), "expected '{needle}' in: {err}");
+    }
+    assert!(!err.contains("panicked"), "{err}");
+    assert!(!dir.path().join("out.json").exists());
+}
