@@ -39,9 +39,15 @@ impl FittedCurve {
     /// ln(p/Pa) and its standard uncertainty at `t_k`.
     pub fn ln_p_with_se(&self, t_k: f64) -> (f64, f64) {
         let n = self.theta.len();
-        let mut g = vec![0.0; n];
-        let v = self.equation.gradient(&self.theta, t_k, &mut g);
-        (v, self.quad(&g).sqrt())
+        let (mut stack, mut heap) = ([0.0; 8], Vec::new());
+        let g: &mut [f64] = if n <= stack.len() {
+            &mut stack[..n]
+        } else {
+            heap.resize(n, 0.0);
+            &mut heap
+        };
+        let v = self.equation.gradient(&self.theta, t_k, g);
+        (v, self.quad(g).sqrt())
     }
 
     fn quad(&self, g: &[f64]) -> f64 {

@@ -353,15 +353,15 @@ fn build_report(
     let n = points.len();
     let k = f.eq.n_params();
     let th = &f.lsq.theta;
-    let cov = f.covariance.clone();
+    let cov = &f.covariance;
     let dof = f.lsq.dof;
     let t95 = t_quantile(0.975, dof);
-    let se: Vec<f64> = match &cov {
+    let se: Vec<f64> = match cov {
         Some(c) => (0..k).map(|i| c[(i, i)].max(0.0).sqrt()).collect(),
         None => vec![f64::NAN; k],
     };
     let (parameters, convention) = report_parameters(f, &se, t95, opts.convention);
-    let covariance_si: Vec<Vec<f64>> = match &cov {
+    let covariance_si: Vec<Vec<f64>> = match cov {
         Some(c) => (0..k)
             .map(|i| (0..k).map(|j| c[(i, j)]).collect())
             .collect(),
@@ -545,13 +545,14 @@ fn hvap_at(curve: &FittedCurve, t: f64, t95: f64) -> HvapEstimate {
     // Delta method on the slope: gradient of d ln p/dT by central differences in θ.
     let n = curve.theta.len();
     let mut g = vec![0.0; n];
+    let mut th = curve.theta.clone();
     for i in 0..n {
-        let mut th = curve.theta.clone();
         let step = 1e-6 * th[i].abs().max(1e-12);
-        th[i] += step;
+        th[i] = curve.theta[i] + step;
         let up = curve.equation.d_ln_p_dt(&th, t);
-        th[i] -= 2.0 * step;
+        th[i] = curve.theta[i] - step;
         let dn = curve.equation.d_ln_p_dt(&th, t);
+        th[i] = curve.theta[i];
         g[i] = slope::R_J_MOL_K * t * t * (up - dn) / (2.0 * step);
     }
     let mut var = 0.0;
