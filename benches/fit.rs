@@ -2,9 +2,14 @@
 //!
 //! Run: `cargo bench --no-default-features --bench fit`. Data are invented
 //! (ln(p/Pa) = 22.0 − 3500/(T − 45) with a deterministic ±0.2 % wiggle).
-//! Measured 2026-12-02 on the shared 2-core machine: one fit median 11.25 µs
-//! (~89,000 fits/s); batch of 10,000 on one core 212 ms (~47,000 fits/s).
-//! Short of the 100,000/s target: the hot path still allocates (dynamic nalgebra).
+//! Measured 2026-12-02 on the shared 2-core machine (load average about 7, so
+//! wall-clock figures are high): one fit median 6.74 µs (~148,000 fits/s, was
+//! 11.26 µs); batch of 10,000 on one core 178 ms wall-clock, but 9.1 µs of CPU
+//! time per fit (~110,000 fits/s/core: `perf stat -e task-clock` on
+//! `examples/fit_profile.rs`); the batch loses CPU to other processes over its
+//! length, a single 7 µs sample rarely does. Instructions per fit (callgrind,
+//! `examples/fit_profile.rs`): 98k over varied sets, 88k for this one (were 149k, 146k).
+//! Rayon batch: CPU time per fit is the same with 1 and 2 threads (no contention).
 
 use divan::black_box;
 use ebullio::fit::{fit_points, FitOptions, Point};

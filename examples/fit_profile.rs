@@ -28,18 +28,26 @@ fn main() {
         .nth(1)
         .and_then(|s| s.parse().ok())
         .unwrap_or(1000);
-    // `same`: the one set of the single-fit benchmark, n times; default n different sets.
-    let same = std::env::args().nth(2).as_deref() == Some("same");
+    // `same`: the one set of the single-fit benchmark, n times; default n different
+    // sets; `par`: the different sets through rayon, as the CLI batch runs them
+    // (RAYON_NUM_THREADS=1 or 2).
+    let mode = std::env::args().nth(2);
+    let same = mode.as_deref() == Some("same");
     let sets: Vec<Vec<Point>> = (0..n).map(|i| set(if same { 0 } else { i })).collect();
     let opts = FitOptions::default();
-    let mut ok = 0usize;
-    let mut sum = 0.0;
-    for s in &sets {
-        if let Ok(r) = fit_points(None, s, &opts) {
-            ok += 1;
-            sum += r.normal_boiling_point_k.map_or(0.0, |i| i.value);
-        }
-    }
+    let tb = |s: &Vec<Point>| {
+        fit_points(None, s, &opts)
+            .ok()
+            .map(|r| r.normal_boiling_point_k.map_or(0.0, |i| i.value))
+    };
+    let tbs: Vec<Option<f64>> = if mode.as_deref() == Some("par") {
+        use rayon::prelude::*;
+        sets.par_iter().map(tb).collect()
+    } else {
+        sets.iter().map(tb).collect()
+    };
+    let ok = tbs.iter().flatten().count();
+    let sum: f64 = tbs.iter().flatten().sum();
     println!(
         "{ok} of {n} fits converged; mean Tb {:.6} K",
         sum / ok.max(1) as f64
