@@ -450,7 +450,8 @@ fn if97_duplicated_points_keep_the_constants_and_are_warned() {
 
 // IAPWS-IF97 readings written as gauge pressures (p − 101.325 kPa, negative below
 // one atmosphere): refused by the library with the point and a gauge hint, and by
-// the command with file, line, column and the same word.
+// the command with file, line, column and the same word. Positive gauge readings
+// are caught by the Trouton check (band marked common practice in `vapor::slope`).
 #[test]
 fn if97_gauge_pressures_are_refused_with_a_clear_message() {
     let abs = if97(&linspace(320.0, 365.0, 8), 0.0);
@@ -471,4 +472,24 @@ fn if97_gauge_pressures_are_refused_with_a_clear_message() {
         text.push_str(&format!("{:.2},{:.3}\n", p.t_k - 273.15, p.p_pa / 1000.0));
     }
     cli_refuses(&text, &["line 2", "column 2 (p/kPa)", "gauge"]);
+    // Gauge readings above one atmosphere are positive and cannot be refused by
+    // sign; the curve they make fails Trouton's rule at its "boiling point", so
+    // they do not pass silently either (or the fit does not converge).
+    for (lo, hi) in [
+        (380.0, 450.0),
+        (400.0, 480.0),
+        (430.0, 520.0),
+        (376.0, 400.0),
+    ] {
+        let high: Vec<Point> = if97(&linspace(lo, hi, 10), 0.0)
+            .iter()
+            .map(|p| pt(p.t_k, p.p_pa - 101_325.0))
+            .collect();
+        let r = fit_points(None, &high, &FitOptions::default()).unwrap();
+        let c = codes(&r);
+        assert!(
+            c.contains(&"trouton-implausible") || c.contains(&"not-converged"),
+            "{lo}–{hi} K: {c:?}"
+        );
+    }
 }
