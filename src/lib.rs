@@ -31,6 +31,7 @@ pub mod reference;
 pub mod refit;
 pub mod report;
 pub mod screen;
+pub mod severity;
 pub mod table_io;
 pub mod units;
 pub mod vapor;

@@ -3,9 +3,7 @@
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::fit::{
-    fit_set, At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss, Severity,
-};
+use ebullio::fit::{fit_set, At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
 use ebullio::table_io::{read_measured, ReadOptions};
 use ebullio::units::{
     parse_pressure, parse_quantity, parse_temperature, PressureUnit, Quantity, TemperatureUnit,
@@ -449,12 +447,7 @@ fn table(r: &Row) -> String {
         );
     }
     for f in &rep.flags {
-        let sev = match f.severity {
-            Severity::Info => "info",
-            Severity::Warning => "warning",
-            Severity::Error => "error",
-        };
-        s += &format!("  [{sev}] {}: {}\n", f.code, f.message);
+        s += &format!("  [{}] {}: {}\n", f.severity, f.code, f.message);
     }
     s += "  Fitted constants are not measurements; review before any distillation (local codes, process-safety review).\n";
     s

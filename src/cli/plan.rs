@@ -468,11 +468,7 @@ fn table(p: &Plan) -> String {
     if !p.findings.is_empty() {
         let _ = writeln!(s, "\nFindings:");
         for f in &p.findings {
-            let sev = serde_json::to_value(f.severity)
-                .ok()
-                .and_then(|v| v.as_str().map(String::from))
-                .unwrap_or_default();
-            let _ = writeln!(s, "  [{sev}] {}: {}", f.code, f.message);
+            let _ = writeln!(s, "  [{}] {}: {}", f.severity, f.code, f.message);
         }
     }
     let _ = writeln!(s, "\nLimits: {}", p.limits);

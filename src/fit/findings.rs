@@ -8,17 +8,7 @@
 
 use serde::{Deserialize, Serialize};
 
-/// How serious a finding is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Severity {
-    /// Worth knowing.
-    Info,
-    /// Check before relying on the result.
-    Warning,
-    /// The result should not be used as it stands.
-    Error,
-}
+pub use crate::severity::Severity;
 
 /// One finding.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]

@@ -165,17 +165,7 @@ pub struct RayleighSummary {
     pub cut_to_bottoms_target: Option<RayleighPoint>,
 }
 
-/// Severity of a finding.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Severity {
-    /// For information.
-    Info,
-    /// Look at this before relying on the plan.
-    Warning,
-    /// The plan is not usable as it stands.
-    Error,
-}
+pub use crate::severity::Severity;
 
 /// A finding about the plan.
 #[derive(Debug, Clone, PartialEq, Serialize)]

@@ -36,8 +36,8 @@ impl Default for Tolerances {
 pub struct Finding {
     /// Stable kebab-case code.
     pub code: String,
-    /// info, warning or error.
-    pub severity: String,
+    /// How serious.
+    pub severity: crate::severity::Severity,
     /// One sentence.
     pub message: String,
 }
@@ -65,10 +65,10 @@ pub struct Comparison {
     pub findings: Vec<Finding>,
 }
 
-fn finding(code: &str, severity: &str, message: String) -> Finding {
+fn finding(code: &str, severity: crate::severity::Severity, message: String) -> Finding {
     Finding {
         code: code.into(),
-        severity: severity.into(),
+        severity,
         message,
     }
 }
@@ -108,7 +108,7 @@ pub fn compare_with(
         let tb = reference.t_at(ATM_PA)?;
         out.findings.push(finding(
             "reference-range-unstated",
-            "info",
+            crate::severity::Severity::Info,
             format!("The reference row for {} states no temperature range; it was compared within 30 K of its boiling point.", compound.name),
         ));
         Some((tb - 30.0, tb + 30.0))
@@ -145,7 +145,7 @@ pub fn compare_with(
             if let Some((d, t, allow)) = worst {
                 out.findings.push(finding(
                     "reference-pressure-disagrees",
-                    "warning",
+                    crate::severity::Severity::Warning,
                     format!(
                         "The fitted vapor pressure differs from the reference for {} by {:+.1} % at {:.1} K, more than the {:.1} % the fit's 95 % interval and the reference's uncertainty allow.",
                         compound.name, 100.0 * d, t, 100.0 * allow
@@ -161,7 +161,7 @@ pub fn compare_with(
             out.gap_k = Some(gap);
             out.findings.push(finding(
                 "reference-no-overlap",
-                "info",
+                crate::severity::Severity::Info,
                 format!(
                     "The fitted range {:.1}-{:.1} K and the reference range {:.1}-{:.1} K for {} do not overlap (gap {:.1} K), so the curves were not compared point by point.",
                     fit_range_k.0, fit_range_k.1, rlo, rhi, compound.name, gap
@@ -182,7 +182,7 @@ pub fn compare_with(
         if d.abs() > allow {
             out.findings.push(finding(
                 "reference-tb-disagrees",
-                "warning",
+                crate::severity::Severity::Warning,
                 format!(
                     "The fitted normal boiling point {:.2} K differs from the reference {:.2} K for {} by {:+.2} K, more than the {:.2} K allowed.",
                     tf, tr, compound.name, d, allow
@@ -205,7 +205,7 @@ pub fn compare_structure(
     (d.abs() > 3.0 * typical_error_k).then(|| {
         finding(
             "structure-tb-disagrees",
-            "warning",
+            crate::severity::Severity::Warning,
             format!(
                 "The fitted normal boiling point {fitted_tb_k:.1} K differs from the structure estimate {estimate_tb_k:.1} K for {smiles} by {d:+.1} K, more than three times the method's typical error ({typical_error_k:.1} K)."
             ),

@@ -26,12 +26,7 @@ pub struct FitCheck {
 }
 
 fn to_fit(f: &Finding) -> FitFinding {
-    let sev = match f.severity.as_str() {
-        "error" => Severity::Error,
-        "warning" => Severity::Warning,
-        _ => Severity::Info,
-    };
-    FitFinding::new(&f.code, sev, f.message.clone())
+    FitFinding::new(&f.code, f.severity, f.message.clone())
 }
 
 /// Compare `report` with the reference (by `name`, else the report's
@@ -69,7 +64,7 @@ pub fn check_fit(
         }
         None if name.is_some() || smiles.is_some() => out.findings.push(Finding {
             code: "reference-not-found".into(),
-            severity: "info".into(),
+            severity: Severity::Info,
             message: format!(
                 "No reference compound matches {}, so the fit was not compared with reference data.",
                 name.or(smiles).unwrap_or_default()

@@ -13,14 +13,6 @@ pub const DEFAULT_PRESSURES_PA: [f64; 7] = [
     1_000.0, 2_000.0, 5_000.0, 10_000.0, 20_000.0, 50_000.0, 101_325.0,
 ];
 
-fn sev(s: crate::fit::Severity) -> Severity {
-    match s {
-        crate::fit::Severity::Error => Severity::Error,
-        crate::fit::Severity::Warning => Severity::Warning,
-        crate::fit::Severity::Info => Severity::Info,
-    }
-}
-
 fn name(f: &FitReport) -> String {
     f.compound.clone().unwrap_or_else(|| "data".into())
 }
@@ -81,12 +73,7 @@ pub fn fit_findings(fits: &[FitReport]) -> Vec<Finding> {
         .flat_map(|f| {
             let n = name(f);
             f.flags.iter().map(move |x| {
-                Finding::new(
-                    sev(x.severity),
-                    n.clone(),
-                    x.code.clone(),
-                    x.message.clone(),
-                )
+                Finding::new(x.severity, n.clone(), x.code.clone(), x.message.clone())
             })
         })
         .collect()
@@ -106,7 +93,7 @@ pub fn fit_summary_table(fits: &[FitReport]) -> Table {
     .caption("Fits at a glance");
     for f in fits {
         let tb = f.normal_boiling_point_k.as_ref();
-        let worst = f.flags.iter().map(|x| sev(x.severity)).max();
+        let worst = f.flags.iter().map(|x| x.severity).max();
         t.flagged_row(
             [
                 name(f),

@@ -6,14 +6,6 @@ use super::fit_section::mbar;
 use super::html::{Figure, Finding, Section, Severity, Table};
 use crate::plan::{Component, Plan};
 
-fn sev(s: crate::plan::Severity) -> Severity {
-    match s {
-        crate::plan::Severity::Error => Severity::Error,
-        crate::plan::Severity::Warning => Severity::Warning,
-        crate::plan::Severity::Info => Severity::Info,
-    }
-}
-
 fn c(t_k: f64) -> String {
     format!("{:.1}", t_k - 273.15)
 }
@@ -38,7 +30,7 @@ pub fn plan_findings(plan: &Plan) -> Vec<Finding> {
     out.extend(
         plan.findings
             .iter()
-            .map(|f| Finding::new(sev(f.severity), subject.clone(), f.code, f.message.clone())),
+            .map(|f| Finding::new(f.severity, subject.clone(), f.code, f.message.clone())),
     );
     out
 }
@@ -192,7 +184,7 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
             .iter()
             .map(|f| {
                 Finding::new(
-                    sev(f.severity),
+                    f.severity,
                     format!("{} / {}", plan.key_pair[0], plan.key_pair[1]),
                     f.code,
                     f.message.clone(),
