@@ -25,6 +25,9 @@ pub struct Args {
     /// A table of reference boiling points (same column rules; Tb listed or implied by A, B, C).
     #[arg(long, value_name = "FILE")]
     pub reference_table: Option<PathBuf>,
+    /// Do not compare with the bundled reference boiling points (reference-data/).
+    #[arg(long)]
+    pub no_bundled_reference: bool,
     /// Skip the structure estimate (Joback) for rows with a SMILES.
     #[arg(long)]
     pub no_structure: bool,
@@ -63,7 +66,7 @@ pub fn run(_args: Args) -> anyhow::Result<Outcome> {
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
     use anyhow::Context;
     use ebullio::screen::{
-        screen, Identity, JobackEstimator, NoStructure, ReferenceEntry, ReferenceLookup, Rows,
+        screen, BundledReference, Chain, JobackEstimator, NoStructure, ReferenceLookup,
         ScreenContext, ScreenOptions, Severity, TableReference,
     };
     use ebullio::table_io::property_table::{
@@ -97,45 +100,19 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         &joback
     };
 
-    let mut reference = TableReference::new();
-    if let Some(p) = &args.reference_table {
-        let rt = PropertyTable::read(p, &read_opts).map_err(|e| InputError(e.to_string()))?;
-        let implied = rt.implied_tb_k();
-        for i in 0..rt.n_rows() {
-            let r = rt.row(i);
-            let tb = r.tb_k.or_else(|| {
-                implied
-                    .as_ref()
-                    .and_then(|v| v.get(i).copied())
-                    .filter(|t| t.is_finite())
-            });
-            if let Some(tb) = tb {
-                let cas = r
-                    .cas
-                    .filter(|c| ebullio::reference::cas::validate(c).is_ok());
-                let key = r
-                    .smiles
-                    .and_then(|s| ebullio::molecule::parse_smiles(s).ok())
-                    .map(|m| m.structure_key());
-                let name = r
-                    .compound
-                    .map(str::to_string)
-                    .unwrap_or_else(|| format!("line {}", r.line));
-                reference.add(
-                    &Identity {
-                        name: r.compound,
-                        cas,
-                        structure_key: key.as_deref(),
-                    },
-                    ReferenceEntry {
-                        name,
-                        tb_k: tb,
-                        source: format!("{} line {}", p.display(), r.line),
-                    },
-                );
-            }
+    let user_reference = match &args.reference_table {
+        Some(p) => {
+            let rt = PropertyTable::read(p, &read_opts).map_err(|e| InputError(e.to_string()))?;
+            let implied = rt.implied_tb_k();
+            TableReference::from_rows(&rt, implied.as_deref(), &p.display().to_string())
         }
+        None => TableReference::new(),
+    };
+    let mut references: Vec<&dyn ReferenceLookup> = vec![&user_reference];
+    if !args.no_bundled_reference {
+        references.push(BundledReference::bundled());
     }
+    let reference = Chain(references);
     let ctx = ScreenContext {
         options: ScreenOptions {
             tolerance_k: args.tolerance,

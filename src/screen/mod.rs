@@ -28,6 +28,7 @@
 //! ```
 
 pub mod antoine_tb;
+pub mod bundled;
 pub mod constants;
 pub mod critical;
 pub mod duplicates;
@@ -43,11 +44,12 @@ pub mod slip;
 pub mod sources;
 pub mod structure;
 
+pub use bundled::BundledReference;
 pub use finding::{Code, Finding, Severity};
 pub use report::{ScreenReport, Summary, WorstRow};
 pub use row::{row_label, AntoineCell, RowInput};
 pub use sources::{
-    Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
+    Chain, Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
     StructureEstimator, StructureOutcome, TableReference,
 };
 

@@ -116,7 +116,7 @@ pub struct Identity<'a> {
 /// Something that knows reference boiling points.
 pub trait ReferenceLookup: Sync {
     /// The reference entry for this identity, CAS first, then structure, then name.
-    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry>;
+    fn find(&self, id: &Identity<'_>) -> Option<&ReferenceEntry>;
 }
 
 /// No reference: reference checks are skipped.
@@ -124,7 +124,7 @@ pub trait ReferenceLookup: Sync {
 pub struct NoReference;
 
 impl ReferenceLookup for NoReference {
-    fn find(&self, _id: &Identity<'_>) -> Option<ReferenceEntry> {
+    fn find(&self, _id: &Identity<'_>) -> Option<&ReferenceEntry> {
         None
     }
 }
@@ -135,6 +135,31 @@ pub fn name_key(name: &str) -> String {
         .collect::<Vec<_>>()
         .join(" ")
         .to_lowercase()
+}
+
+/// Call `f` with [`name_key`] of `name`; short ASCII names are normalised on
+/// the stack, so the per-row lookups of a large table do not allocate.
+pub fn with_name_key<R>(name: &str, f: impl FnOnce(&str) -> R) -> R {
+    let mut buf = [0u8; 128];
+    if name.is_ascii() && name.len() <= buf.len() {
+        let mut n = 0;
+        // ASCII: split_whitespace and to_lowercase reduce to these, except
+        // that a vertical tab (0x0B) is kept here.
+        for w in name.split_ascii_whitespace() {
+            if n > 0 {
+                buf[n] = b' ';
+                n += 1;
+            }
+            for b in w.bytes() {
+                buf[n] = b.to_ascii_lowercase();
+                n += 1;
+            }
+        }
+        if let Ok(k) = std::str::from_utf8(&buf[..n]) {
+            return f(k);
+        }
+    }
+    f(&name_key(name))
 }
 
 /// A reference built from rows of a table (e.g. `--reference-table`).
@@ -169,6 +194,45 @@ impl TableReference {
         }
     }
 
+    /// A reference from the rows of a property table (`--reference-table`):
+    /// each row's listed boiling point, else the one implied by its Antoine
+    /// constants (`implied_tb_k`, NaN where none). Rows are found by valid
+    /// CAS, SMILES structure key and name; `file` names them in findings.
+    pub fn from_rows(rows: &dyn super::Rows, implied_tb_k: Option<&[f64]>, file: &str) -> Self {
+        let mut reference = TableReference::new();
+        for i in 0..rows.n_rows() {
+            let r = rows.row(i);
+            let tb = r.tb_k.or_else(|| {
+                implied_tb_k
+                    .and_then(|v| v.get(i).copied())
+                    .filter(|t| t.is_finite())
+            });
+            let Some(tb) = tb else { continue };
+            let cas = r.cas.filter(|c| crate::reference::cas::validate(c).is_ok());
+            let key = r
+                .smiles
+                .and_then(|s| crate::molecule::parse_smiles(s).ok())
+                .map(|m| m.structure_key());
+            let name = r
+                .compound
+                .map(str::to_string)
+                .unwrap_or_else(|| format!("line {}", r.line));
+            reference.add(
+                &Identity {
+                    name: r.compound,
+                    cas,
+                    structure_key: key.as_deref(),
+                },
+                ReferenceEntry {
+                    name,
+                    tb_k: tb,
+                    source: format!("{file} line {}", r.line),
+                },
+            );
+        }
+        reference
+    }
+
     /// Number of distinct entries by name, CAS or structure.
     pub fn len(&self) -> usize {
         self.by_name
@@ -184,15 +248,17 @@ impl TableReference {
 }
 
 impl ReferenceLookup for TableReference {
-    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry> {
+    fn find(&self, id: &Identity<'_>) -> Option<&ReferenceEntry> {
         if self.is_empty() {
             return None;
         }
         id.cas
             .and_then(|c| self.by_cas.get(c.trim()))
             .or_else(|| id.structure_key.and_then(|k| self.by_key.get(k)))
-            .or_else(|| id.name.and_then(|n| self.by_name.get(&name_key(n))))
-            .cloned()
+            .or_else(|| {
+                id.name
+                    .and_then(|n| with_name_key(n, |k| self.by_name.get(k)))
+            })
     }
 }
 
@@ -200,7 +266,7 @@ impl ReferenceLookup for TableReference {
 pub struct Chain<'a>(pub Vec<&'a dyn ReferenceLookup>);
 
 impl ReferenceLookup for Chain<'_> {
-    fn find(&self, id: &Identity<'_>) -> Option<ReferenceEntry> {
+    fn find(&self, id: &Identity<'_>) -> Option<&ReferenceEntry> {
         self.0.iter().find_map(|r| r.find(id))
     }
 }
@@ -229,12 +295,15 @@ mod tests {
             cas: Some("67-64-1"),
             ..Default::default()
         };
-        assert_eq!(r.find(&by_cas), Some(e.clone()));
+        assert_eq!(r.find(&by_cas), Some(&e));
         let by_name = Identity {
             name: Some("  acetone "),
             ..Default::default()
         };
-        assert_eq!(r.find(&by_name), Some(e));
+        assert_eq!(r.find(&by_name), Some(&e));
+        assert_eq!(name_key("  Ethyl   Acetate "), "ethyl acetate");
+        with_name_key("  Ethyl \t Acetate ", |k| assert_eq!(k, "ethyl acetate"));
+        with_name_key("Éthanol  X", |k| assert_eq!(k, "éthanol x"));
         assert!(r.find(&Identity::default()).is_none());
     }
 }
