@@ -120,6 +120,8 @@ fn bundled_boiling_point_set_sources_md_section_4_has_no_errors() {
 /// normal boiling points from reference-data/normal-boiling-points-dev.csv;
 /// acetone in the ln(mmHg)/K form from Himmelblau App. H). Each planted row
 /// names its fault and the codes it must get in the last column `planted`.
+/// The `slip-digit` rows (methyl acetate, n-pentane, 2-propanol, 1-propanol)
+/// are Smith, Van Ness & Abbott B.2 rows with one digit or decimal point mistyped.
 const PLANTED: &str = "\
 compound,cas,smiles,Tb/K,A,B,C,convention,Tmin/°C,Tmax/°C,Tc/K,pc/bar,supplier,planted
 benzene,,,353.15,13.7819,2726.81,217.572,\"ln,kPa,degC\",6,104,,,Aldwick,clean
@@ -146,6 +148,10 @@ propanone-b,78-93-3,,362.75,,,,,,,,,Fenwick,duplicate-disagrees (same CAS as pre
 ethanol,64-17-6,,351.35,,,,,,,,,Fenwick,cas-check-digit (64-17-5 mistyped)
 nitromethane,,,384.35,,,,,,,,,Fenwick,reference-mismatch (reference table says 374.35 K)
 ethylbenzene,,,419.35,,,,,,,,,Fenwick,reference-mismatch (bundled table says 409.35 K)
+methyl acetate,,,330.15,14.2456,266.278,219.690,\"ln,kPa,degC\",,,,,Glasson,tb-antoine-mismatch slip-digit (B 2662.78 typed 266.278)
+n-pentane,,,309.25,13.7667,251.88,232.014,\"ln,kPa,degC\",,,,,Glasson,tb-antoine-mismatch slip-digit (B 2451.88 typed 251.88: the 4 dropped)
+2-propanol,,,355.4,16.6796,36402,219.610,\"ln,kPa,degC\",,,,,Glasson,tb-antoine-mismatch slip-digit (B 3640.2 typed 36402)
+1-propanol,,,3703,16.1154,3483.67,205.807,\"ln,kPa,degC\",,,,,Glasson,tb-antoine-mismatch slip-digit (Tb 370.3 typed 3703)
 ";
 
 const REFERENCE: &str = "compound,Tb/K\nnitromethane,374.35\n";
@@ -200,6 +206,10 @@ fn planted_faults_are_found_and_clean_rows_pass() {
     assert!(diag("acetone").contains("for t in K, not °C"));
     assert!(diag("n-hexane").contains("looks like °C written as K"));
     assert!(diag("n-heptane").contains("A and B look swapped"));
+    assert!(diag("methyl acetate").contains("with B = 2662.78 instead of 266.278"));
+    assert!(diag("n-pentane").contains("dropped digit): with B = 2451.88 instead of 251.88"));
+    assert!(diag("2-propanol").contains("with B = 3640.2 instead of 36402"));
+    assert!(diag("1-propanol").contains("370.3 K instead of 3703 K"));
     // the reference finding names the reference row and the difference
     assert!(
         diag("nitromethane").contains("differs by 10.0 K")

@@ -61,11 +61,13 @@ pub enum Code {
     UnreadableCell,
     /// Tmin is not below Tmax.
     RangeInverted,
+    /// The mismatch disappears when one digit or the decimal point of A, B, C or Tb is corrected.
+    SlipDigit,
 }
 
 impl Code {
     /// Every code, in report order.
-    pub const ALL: [Code; 26] = [
+    pub const ALL: [Code; 27] = [
         Code::TbAntoineMismatch,
         Code::SlipPressureUnit,
         Code::SlipLogBase,
@@ -73,6 +75,7 @@ impl Code {
         Code::SlipConvention,
         Code::SlipTbTemperatureUnit,
         Code::SlipSwappedAB,
+        Code::SlipDigit,
         Code::TbOutsideRange,
         Code::AntoineBNotPositive,
         Code::AntoineDenominatorNotPositive,
@@ -123,6 +126,7 @@ impl Code {
             Code::CasMalformed => "cas-malformed",
             Code::UnreadableCell => "unreadable-cell",
             Code::RangeInverted => "range-inverted",
+            Code::SlipDigit => "slip-digit",
         }
     }
 
@@ -137,6 +141,7 @@ impl Code {
             | SlipConvention
             | SlipTbTemperatureUnit
             | SlipSwappedAB
+            | SlipDigit
             | AntoineBNotPositive
             | AntoineDenominatorNotPositive
             | AntoineNoBoilingPoint

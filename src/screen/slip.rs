@@ -77,22 +77,7 @@ pub fn diagnose(
     tol_k: f64,
 ) -> Option<Slip> {
     let declared = k.convention;
-    // (changes, residual, slip)
-    let mut best: Option<(u8, f64, Slip)> = None;
-    let mut offer = |changes: u8, residual: f64, curve: &AntoineConstants, slip: Slip| {
-        if !(residual.is_finite() && residual <= tol_k) {
-            return;
-        }
-        let plausible = trouton_plausible(svap_j_mol_k(curve, slip.corrected_tb_k));
-        let changes = changes + u8::from(!plausible);
-        let better = match &best {
-            None => true,
-            Some((c, r, _)) => changes < *c || (changes == *c && residual < *r),
-        };
-        if better {
-            best = Some((changes, residual, slip));
-        }
-    };
+    let mut best: Option<Best> = None;
 
     // 1. Another convention (pressure unit, log base, K vs °C), alone or combined.
     let t_units: Vec<TemperatureUnit> = match declared.t_unit {
@@ -159,7 +144,8 @@ pub fn diagnose(
                     ),
                 };
                 offer(
-                    changes,
+                    &mut best,
+                    (changes, 0),
                     (t - listed_tb_k).abs(),
                     &alt,
                     Slip {
@@ -168,6 +154,7 @@ pub fn diagnose(
                         matches_k: listed_tb_k,
                         message,
                     },
+                    tol_k,
                 );
             }
         }
@@ -181,7 +168,8 @@ pub fn diagnose(
     };
     if let Some(t) = implied(&swapped) {
         offer(
-            1,
+            &mut best,
+            (1, 0),
             (t - listed_tb_k).abs(),
             &swapped,
             Slip {
@@ -193,6 +181,7 @@ pub fn diagnose(
                     k.b, k.a
                 ),
             },
+            tol_k,
         );
     }
 
@@ -206,7 +195,8 @@ pub fn diagnose(
         };
         for &(was, as_k) in alternatives {
             offer(
-                1,
+                &mut best,
+                (1, 0),
                 (as_k - t_impl).abs(),
                 k,
                 Slip {
@@ -220,10 +210,231 @@ pub fn diagnose(
                         t_unit_word(was)
                     ),
                 },
+                tol_k,
             );
         }
     }
+    // 4. One digit dropped, doubled or the decimal point misplaced, in A, B,
+    // C or the listed Tb. Many variants exist, so these rank after any
+    // plausible one-change label slip, and are only tried when none exists.
+    if best.as_ref().is_none_or(|b| b.0 .0 > 1) {
+        digit_slips(k, listed_tb_k, tb_unit, tol_k, &mut best);
+    }
     best.map(|(_, _, s)| s)
+}
+
+/// (changes, family) with residual and slip: the best candidate so far.
+/// Family 0 is a label slip (unit, base, swap), 1–3 a typing slip ([`DigitSlip`]).
+type Best = ((u8, u8), f64, Slip);
+
+/// Keep `slip` if it explains the row (residual within `tol_k`) better than
+/// the best so far: fewer changes, then the lower family, then the smaller
+/// residual. A corrected curve outside the Trouton band counts as one more change.
+fn offer(
+    best: &mut Option<Best>,
+    (changes, family): (u8, u8),
+    residual: f64,
+    curve: &AntoineConstants,
+    slip: Slip,
+    tol_k: f64,
+) {
+    if !(residual.is_finite() && residual <= tol_k) {
+        return;
+    }
+    let plausible = trouton_plausible(svap_j_mol_k(curve, slip.corrected_tb_k));
+    let rank = (changes + u8::from(!plausible), family);
+    let better = match best {
+        None => true,
+        Some((r, res, _)) => rank < *r || (rank == *r && residual < *res),
+    };
+    if better {
+        *best = Some((rank, residual, slip));
+    }
+}
+
+/// How a number was mistyped, read from the typed value to the intended one.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum DigitSlip {
+    /// The decimal point is in the wrong place, or missing.
+    DecimalPoint,
+    /// A digit was left out (the intended value has one more).
+    Dropped,
+    /// A digit too many was typed (the intended value has one fewer).
+    Extra,
+}
+
+impl DigitSlip {
+    /// Rank among typing slips: a moved decimal point has few variants, so it
+    /// is the least likely to fit by chance and is preferred.
+    fn family(self) -> u8 {
+        match self {
+            DigitSlip::DecimalPoint => 1,
+            DigitSlip::Extra => 2,
+            DigitSlip::Dropped => 3,
+        }
+    }
+
+    fn words(self) -> &'static str {
+        match self {
+            DigitSlip::DecimalPoint => "a misplaced decimal point",
+            DigitSlip::Dropped => "a dropped digit",
+            DigitSlip::Extra => "a digit too many",
+        }
+    }
+}
+
+/// The number as it was most likely written: the shortest round-trip form,
+/// rounded to 9 significant figures when arithmetic (a unit conversion) has
+/// left noise in the last places.
+fn written(x: f64) -> String {
+    let s = format!("{}", x.abs());
+    if s.len() <= 10 || s.contains('e') {
+        return s;
+    }
+    let digits = 9i32 - (x.abs().log10().floor() as i32 + 1);
+    let r = format!("{:.*}", digits.clamp(0, 15) as usize, x.abs());
+    if r.contains('.') {
+        r.trim_end_matches('0').trim_end_matches('.').to_string()
+    } else {
+        r
+    }
+}
+
+/// Every value one typing slip away from `x` as written: the decimal point
+/// moved (or dropped), one digit removed, one digit inserted. Sign kept;
+/// `x` itself excluded.
+pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
+    let s = written(x);
+    if !x.is_finite() || s.contains('e') {
+        return Vec::new();
+    }
+    let sign = if x < 0.0 { -1.0 } else { 1.0 };
+    let digits: Vec<u8> = s.bytes().filter(u8::is_ascii_digit).collect();
+    let point = s.find('.').unwrap_or(s.len());
+    let mut out: Vec<(f64, DigitSlip)> = Vec::new();
+    let mut buf = String::with_capacity(digits.len() + 2);
+    let mut push = |d: &[u8], point: usize, kind: DigitSlip, out: &mut Vec<(f64, DigitSlip)>| {
+        buf.clear();
+        for (i, &c) in d.iter().enumerate() {
+            if i == point {
+                buf.push('.');
+            }
+            buf.push(c as char);
+        }
+        if let Ok(v) = buf.parse::<f64>() {
+            let v = sign * v;
+            if v != x && !out.iter().any(|(w, _)| *w == v) {
+                out.push((v, kind));
+            }
+        }
+    };
+    for p in 1..=digits.len() {
+        if p != point {
+            push(&digits, p, DigitSlip::DecimalPoint, &mut out);
+        }
+    }
+    let mut d = digits.clone();
+    for i in 0..digits.len() {
+        let c = d.remove(i);
+        let p = if i < point { point - 1 } else { point };
+        if !d.is_empty() && p >= 1 {
+            push(&d, p, DigitSlip::Extra, &mut out);
+        }
+        d.insert(i, c);
+    }
+    for i in 0..=digits.len() {
+        let p = if i <= point { point + 1 } else { point };
+        for c in b'0'..=b'9' {
+            d.insert(i, c);
+            if !(i == 0 && c == b'0') {
+                push(&d, p, DigitSlip::Dropped, &mut out);
+            }
+            d.remove(i);
+        }
+    }
+    out
+}
+
+fn digit_slips(
+    k: &AntoineConstants,
+    listed_tb_k: f64,
+    tb_unit: TemperatureUnit,
+    tol_k: f64,
+    best: &mut Option<Best>,
+) {
+    for which in ["A", "B", "C"] {
+        let typed = match which {
+            "A" => k.a,
+            "B" => k.b,
+            _ => k.c,
+        };
+        for (v, kind) in digit_variants(typed) {
+            let mut alt = *k;
+            match which {
+                "A" => alt.a = v,
+                "B" => alt.b = v,
+                _ => alt.c = v,
+            }
+            let Some(t) = implied(&alt) else { continue };
+            let residual = (t - listed_tb_k).abs();
+            if residual > tol_k {
+                continue;
+            }
+            offer(
+                best,
+                (1, kind.family()),
+                residual,
+                &alt,
+                Slip {
+                    code: Code::SlipDigit,
+                    corrected_tb_k: t,
+                    matches_k: listed_tb_k,
+                    message: format!(
+                        "{which} looks mistyped ({}): with {which} = {} instead of {} the implied Tb is {t:.1} K, matching the listed {listed_tb_k:.1} K.",
+                        kind.words(),
+                        written_signed(v),
+                        written_signed(typed)
+                    ),
+                },
+                tol_k,
+            );
+        }
+    }
+    let Some(t_impl) = implied(k) else { return };
+    let number = tb_unit.from_kelvin(listed_tb_k);
+    for (v, kind) in digit_variants(number) {
+        let as_k = tb_unit.to_kelvin(v);
+        if !(as_k > 0.0) {
+            continue;
+        }
+        let u = t_unit_word(tb_unit);
+        offer(
+            best,
+            (1, kind.family()),
+            (as_k - t_impl).abs(),
+            k,
+            Slip {
+                code: Code::SlipDigit,
+                corrected_tb_k: as_k,
+                matches_k: t_impl,
+                message: format!(
+                    "The listed boiling point looks mistyped ({}): {} {u} instead of {} {u} matches the implied {t_impl:.1} K.",
+                    kind.words(),
+                    written_signed(v),
+                    written_signed(number)
+                ),
+            },
+            tol_k,
+        );
+    }
+}
+
+fn written_signed(x: f64) -> String {
+    if x < 0.0 {
+        format!("-{}", written(x))
+    } else {
+        written(x)
+    }
 }
 
 #[cfg(test)]
@@ -306,14 +517,59 @@ mod tests {
     }
 
     #[test]
-    fn a_dropped_digit_is_not_explained() {
-        // B with a digit dropped: 305.96 instead of 3056.96.
+    fn svna_toluene_digit_slips_in_b_and_tb_are_named() {
+        // B = 3056.96 typed with its decimal point one place left.
         let k = AntoineConstants::new(
             TOLUENE.0,
             305.696,
             TOLUENE.2,
             "ln,kPa,degC".parse().unwrap(),
         );
+        let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
+        assert_eq!(s.code, Code::SlipDigit);
+        assert!(
+            s.message.contains("B = 3056.96 instead of 305.696"),
+            "{}",
+            s.message
+        );
+        // B with its 5 dropped: 306.96.
+        let k = AntoineConstants::new(TOLUENE.0, 306.96, TOLUENE.2, "ln,kPa,degC".parse().unwrap());
+        let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
+        assert_eq!(s.code, Code::SlipDigit);
+        assert!(s.message.contains("dropped digit"), "{}", s.message);
+        // Tb 383.75 typed without its decimal point.
+        let s = diagnose(
+            &toluene("ln,kPa,degC"),
+            38375.0,
+            TemperatureUnit::Kelvin,
+            1.0,
+        )
+        .unwrap();
+        assert_eq!(s.code, Code::SlipDigit);
+        assert!(
+            s.message.contains("383.75 K instead of 38375 K"),
+            "{}",
+            s.message
+        );
+        // A row no single slip explains stays unexplained: B halved.
+        let k = AntoineConstants::new(
+            TOLUENE.0,
+            1528.48,
+            TOLUENE.2,
+            "ln,kPa,degC".parse().unwrap(),
+        );
         assert!(diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).is_none());
+    }
+
+    #[test]
+    fn digit_variants_cover_point_dropped_and_extra_digits() {
+        let v: Vec<f64> = digit_variants(134.48).into_iter().map(|x| x.0).collect();
+        for want in [1344.8, 13448.0, 13.448, 14.48, 1344.48, 1134.48] {
+            assert!(v.contains(&want), "{want} missing");
+        }
+        assert!(!v.contains(&134.48));
+        let c: Vec<f64> = digit_variants(-53.67).into_iter().map(|x| x.0).collect();
+        assert!(c.contains(&-536.7) && c.contains(&-5.67));
+        assert_eq!(written(110.60000000000002), "110.6");
     }
 }
