@@ -404,7 +404,7 @@ fn digit_slips(
     let number = tb_unit.from_kelvin(listed_tb_k);
     for (v, kind) in digit_variants(number) {
         let as_k = tb_unit.to_kelvin(v);
-        if !(as_k > 0.0) {
+        if as_k.is_nan() || as_k <= 0.0 {
             continue;
         }
         let u = t_unit_word(tb_unit);
