@@ -81,3 +81,89 @@ fn sigint_during_estimate_batch_leaves_no_output_and_reports_progress() {
         .collect();
     assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
 }
+
+/// One `check` run interrupted `after`; returns the stderr message.
+fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Duration) -> String {
+    let mut child = Command::new(bin())
+        .arg("check")
+        .arg(input)
+        .arg("-o")
+        .arg(output)
+        .stdin(Stdio::null())
+        .stdout(Stdio::null())
+        .stderr(Stdio::piped())
+        .spawn()
+        .unwrap();
+    std::thread::sleep(after);
+    assert!(
+        child.try_wait().unwrap().is_none(),
+        "the check finished before the signal; make the input larger"
+    );
+    let pid = child.id().to_string();
+    assert!(Command::new("kill")
+        .args(["-INT", &pid])
+        .status()
+        .unwrap()
+        .success());
+    let status = wait_with_deadline(&mut child, Duration::from_secs(30));
+    let mut stderr = String::new();
+    std::io::Read::read_to_string(&mut child.stderr.take().unwrap(), &mut stderr).unwrap();
+    assert_eq!(status.code(), Some(130), "stderr: {stderr}");
+    stderr
+}
+
+#[test]
+fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
+    let dir = tempfile::tempdir().unwrap();
+    let input = dir.path().join("sheet.csv");
+    const ROWS: usize = 1_000_000;
+    {
+        // Invented lot rows on the Smith, Van Ness & Abbott B.2 benzene and
+        // toluene rows; enough that the check is still running at the signal.
+        let mut f = std::io::BufWriter::new(std::fs::File::create(&input).unwrap());
+        writeln!(f, "compound,Tb/K,A,B,C,convention").unwrap();
+        for i in 0..ROWS {
+            if i % 2 == 0 {
+                writeln!(
+                    f,
+                    "lot {i} benzene,353.2,13.7819,2726.81,217.572,\"ln,kPa,degC\""
+                )
+                .unwrap();
+            } else {
+                writeln!(
+                    f,
+                    "lot {i} toluene,383.8,13.9320,3056.96,217.625,\"ln,kPa,degC\""
+                )
+                .unwrap();
+            }
+        }
+    }
+    let output = dir.path().join("checked.csv");
+    // The rows are read before they are checked; wait longer each time until
+    // the signal lands while rows are being checked.
+    let mut after = Duration::from_millis(1500);
+    let mut messages = Vec::new();
+    for _ in 0..4 {
+        let stderr = interrupt_check(&input, &output, after);
+        assert!(stderr.contains("no output was written"), "stderr: {stderr}");
+        assert!(!output.exists(), "a partial output file was left");
+        let leftovers: Vec<_> = std::fs::read_dir(dir.path())
+            .unwrap()
+            .filter_map(|e| e.ok())
+            .map(|e| e.file_name().to_string_lossy().into_owned())
+            .filter(|n| n != "sheet.csv")
+            .collect();
+        assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
+        if stderr.contains(&format!(" of {ROWS} items")) {
+            assert!(stderr.contains("interrupted after "), "stderr: {stderr}");
+            return;
+        }
+        assert!(
+            stderr.contains("before the batch started"),
+            "stderr: {stderr}"
+        );
+        messages.push(stderr);
+        after *= 2;
+    }
+    panic!("never interrupted while checking rows: {messages:?}");
+}

@@ -64,13 +64,12 @@ pub fn run(_args: Args) -> anyhow::Result<Outcome> {
 
 #[cfg(feature = "tables")]
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
-    use anyhow::Context;
     use ebullio::screen::{
         screen, BundledReference, Chain, JobackEstimator, NoStructure, ReferenceLookup,
         ScreenContext, ScreenOptions, Severity, TableReference,
     };
     use ebullio::table_io::property_table::{
-        is_parquet, table_bytes, PropertyReadOptions, PropertyTable,
+        is_parquet, with_added, write_frame, PropertyReadOptions, PropertyTable,
     };
     use ebullio::vapor::AntoineConvention;
     use std::io::Write;
@@ -119,7 +118,9 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         },
         estimator,
         reference: &reference as &dyn ReferenceLookup,
+        progress: Some(&super::common::batch_steps),
     };
+    super::common::batch_started(table.height());
     let implied = table.implied_tb_k();
     let report = screen(&table, implied.as_deref(), &ctx);
 
@@ -139,14 +140,13 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .output
         .clone()
         .unwrap_or_else(|| PathBuf::from("<stdout>"));
-    let bytes = table_bytes(
+    let checked = with_added(
         &table.frame,
         vec![
             ("flags", flags),
             ("severity", severity),
             ("diagnosis", diagnosis),
         ],
-        parquet,
         &out_name,
     )
     .map_err(|e| InputError(e.to_string()))?;
@@ -157,10 +157,16 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             if let Some(r) = &args.reference_table {
                 inputs.push(r.as_path());
             }
-            ebullio::table_io::write_atomic(p, &bytes, &inputs)
-                .with_context(|| format!("writing {}", p.display()))?;
+            super::common::write_file_atomic(p, &inputs, |w| {
+                write_frame(checked, parquet, w, p).map_err(std::io::Error::other)
+            })?;
         }
-        None => super::common::print_stdout(&String::from_utf8_lossy(&bytes))?,
+        None => {
+            let mut bytes = Vec::new();
+            write_frame(checked, false, &mut bytes, &out_name)
+                .map_err(|e| InputError(e.to_string()))?;
+            super::common::print_stdout(&String::from_utf8_lossy(&bytes))?
+        }
     }
     let _ = write!(std::io::stderr(), "{summary}");
     if let Some(path) = &args.report {

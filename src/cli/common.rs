@@ -83,6 +83,20 @@ impl OutputArgs {
     }
 }
 
+/// Write `path` atomically by streaming into `write`, holding off an
+/// interrupt until the rename is done (as [`OutputArgs::emit`] does).
+pub fn write_file_atomic(
+    path: &Path,
+    inputs: &[&Path],
+    write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
+) -> anyhow::Result<()> {
+    let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
+    let r = ebullio::table_io::write_atomic_with(path, inputs, write)
+        .with_context(|| format!("writing {}", path.display()));
+    *written = r.is_ok();
+    r
+}
+
 /// Whether colour may be used (never when NO_COLOR is set or not a terminal).
 #[allow(dead_code)]
 pub fn colour_allowed() -> bool {
@@ -162,6 +176,12 @@ pub fn install_interrupt_handler() {
 pub fn batch_started(total: usize) {
     BATCH_DONE.store(0, Ordering::Relaxed);
     BATCH_TOTAL.store(total as u64, Ordering::Relaxed);
+}
+
+/// Tell the interrupt handler that `n` more batch items are finished.
+#[allow(dead_code)] // used by the batch commands
+pub fn batch_steps(n: usize) {
+    BATCH_DONE.fetch_add(n as u64, Ordering::Relaxed);
 }
 
 /// Tell the interrupt handler that one more batch item is finished.

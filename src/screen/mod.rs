@@ -82,6 +82,9 @@ pub struct ScreenContext<'a> {
     pub estimator: &'a dyn StructureEstimator,
     /// Reference boiling points ([`NoReference`] to skip).
     pub reference: &'a dyn ReferenceLookup,
+    /// Told how many more rows are checked, chunk by chunk (for an
+    /// interrupted run to say how far it got).
+    pub progress: Option<&'a (dyn Fn(usize) + Sync)>,
 }
 
 impl Default for ScreenContext<'_> {
@@ -90,6 +93,7 @@ impl Default for ScreenContext<'_> {
             options: ScreenOptions::default(),
             estimator: &NoStructure,
             reference: &NoReference,
+            progress: None,
         }
     }
 }
@@ -142,6 +146,84 @@ fn estimate_all<'r>(
         .collect()
 }
 
+/// All row-level checks of row `i`.
+fn check_row<'r>(
+    rows: &'r dyn Rows,
+    i: usize,
+    implied_tb_k: Option<&[f64]>,
+    estimates: &'r HashMap<&'r str, StructureOutcome>,
+    ctx: &ScreenContext<'_>,
+) -> (Vec<Finding>, Facts<'r>) {
+    let tol = ctx.options.tolerance_k;
+    let row = rows.row(i);
+    let mut out = Vec::new();
+    identity::check_unreadable(&row.unreadable, row.line, &mut out);
+    let cas = row.cas.and_then(|c| identity::check_cas(c, &mut out));
+
+    let mut implied = None;
+    match &row.antoine {
+        AntoineCell::Absent => {}
+        AntoineCell::Incomplete => out.push(Finding::new(
+            Code::AntoineIncomplete,
+            "Only some of the Antoine constants A, B, C are given, so the row's curve cannot be checked.",
+        )),
+        AntoineCell::NoConvention => {}
+        AntoineCell::Given(k) => {
+            implied = match implied_tb_k {
+                Some(v) => v.get(i).copied().filter(|t| t.is_finite()),
+                None => k.t_at(ATM_PA),
+            };
+            constants::check_constants(k, implied, row.tb_k, &mut out);
+            match (implied, row.tb_k) {
+                (Some(t), Some(listed)) => {
+                    antoine_tb::check_implied_vs_listed(
+                        k, t, listed, row.tb_unit, tol, &mut out,
+                    );
+                    constants::check_range(k, listed, true, &mut out);
+                }
+                (Some(t), None) => constants::check_range(k, t, false, &mut out),
+                _ => {}
+            }
+        }
+    }
+    let (tb, listed) = match (row.tb_k, implied) {
+        (Some(t), _) => (Some(t), true),
+        (None, Some(t)) => (Some(t), false),
+        _ => (None, false),
+    };
+    critical::check_critical(tb, listed, row.tc_k, row.pc_pa, &mut out);
+
+    let mut residual = f64::NAN;
+    let mut structure_key = None;
+    if let Some(s) = row.smiles.map(str::trim).filter(|s| !s.is_empty()) {
+        if let Some(o) = estimates.get(s) {
+            structure_key = o.structure_key();
+            if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {
+                residual = r;
+            }
+        }
+    }
+    let id = Identity {
+        name: row.compound,
+        cas,
+        structure_key,
+    };
+    if let Some(t) = tb {
+        reference::check_reference(ctx.reference, &id, t, listed, tol, &mut out);
+    }
+    (
+        out,
+        Facts {
+            line: row.line,
+            tb_k: tb.unwrap_or(f64::NAN),
+            residual,
+            cas,
+            structure: structure_key,
+            name: row.compound,
+        },
+    )
+}
+
 /// Run every check on every row. `implied_tb_k`, when given, holds the
 /// Antoine-implied boiling point per row (NaN where none), computed in bulk
 /// (see `frame`); otherwise it is computed row by row.
@@ -154,78 +236,23 @@ pub fn screen(
     let tol = ctx.options.tolerance_k;
     let estimates = estimate_all(rows, ctx.estimator);
 
-    let per_row: Vec<(Vec<Finding>, Facts<'_>)> = (0..n)
+    // Chunks keep the parallel overhead per row small and let the caller
+    // follow progress.
+    const CHUNK: usize = 8192;
+    let per_chunk: Vec<Vec<(Vec<Finding>, Facts<'_>)>> = (0..n.div_ceil(CHUNK))
         .into_par_iter()
-        .map(|i| {
-            let row = rows.row(i);
-            let mut out = Vec::new();
-            identity::check_unreadable(&row.unreadable, row.line, &mut out);
-            let cas = row.cas.and_then(|c| identity::check_cas(c, &mut out));
-
-            let mut implied = None;
-            match &row.antoine {
-                AntoineCell::Absent => {}
-                AntoineCell::Incomplete => out.push(Finding::new(
-                    Code::AntoineIncomplete,
-                    "Only some of the Antoine constants A, B, C are given, so the row's curve cannot be checked.",
-                )),
-                AntoineCell::NoConvention => {}
-                AntoineCell::Given(k) => {
-                    implied = match implied_tb_k {
-                        Some(v) => v.get(i).copied().filter(|t| t.is_finite()),
-                        None => k.t_at(ATM_PA),
-                    };
-                    constants::check_constants(k, implied, row.tb_k, &mut out);
-                    match (implied, row.tb_k) {
-                        (Some(t), Some(listed)) => {
-                            antoine_tb::check_implied_vs_listed(
-                                k, t, listed, row.tb_unit, tol, &mut out,
-                            );
-                            constants::check_range(k, listed, true, &mut out);
-                        }
-                        (Some(t), None) => constants::check_range(k, t, false, &mut out),
-                        _ => {}
-                    }
-                }
+        .map(|c| {
+            let (lo, hi) = (c * CHUNK, ((c + 1) * CHUNK).min(n));
+            let out: Vec<_> = (lo..hi)
+                .map(|i| check_row(rows, i, implied_tb_k, &estimates, ctx))
+                .collect();
+            if let Some(p) = ctx.progress {
+                p(hi - lo);
             }
-            let (tb, listed) = match (row.tb_k, implied) {
-                (Some(t), _) => (Some(t), true),
-                (None, Some(t)) => (Some(t), false),
-                _ => (None, false),
-            };
-            critical::check_critical(tb, listed, row.tc_k, row.pc_pa, &mut out);
-
-            let mut residual = f64::NAN;
-            let mut structure_key = None;
-            if let Some(s) = row.smiles.map(str::trim).filter(|s| !s.is_empty()) {
-                if let Some(o) = estimates.get(s) {
-                    structure_key = o.structure_key();
-                    if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {
-                        residual = r;
-                    }
-                }
-            }
-            let id = Identity {
-                name: row.compound,
-                cas,
-                structure_key,
-            };
-            if let Some(t) = tb {
-                reference::check_reference(ctx.reference, &id, t, listed, tol, &mut out);
-            }
-            (
-                out,
-                Facts {
-                    line: row.line,
-                    tb_k: tb.unwrap_or(f64::NAN),
-                    residual,
-                    cas,
-                    structure: structure_key,
-                    name: row.compound,
-                },
-            )
+            out
         })
         .collect();
+    let per_row = per_chunk.into_iter().flatten();
 
     let mut findings = Vec::with_capacity(n);
     let mut keys = Vec::with_capacity(n);

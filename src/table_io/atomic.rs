@@ -48,6 +48,17 @@ fn same_file(a: &Path, b: &Path) -> bool {
 /// std::fs::remove_dir_all(&dir).unwrap();
 /// ```
 pub fn write_atomic(path: &Path, bytes: &[u8], inputs: &[&Path]) -> Result<(), OutputError> {
+    write_atomic_with(path, inputs, |w| w.write_all(bytes))
+}
+
+/// Like [`write_atomic`], but the content is streamed by `write` into a
+/// buffered temporary file (large tables need not sit in memory twice). One
+/// flush and one sync at the end, then the rename.
+pub fn write_atomic_with(
+    path: &Path,
+    inputs: &[&Path],
+    write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
+) -> Result<(), OutputError> {
     if inputs.iter().any(|i| same_file(i, path)) {
         return Err(OutputError::WouldOverwriteInput {
             path: path.to_path_buf(),
@@ -72,9 +83,10 @@ pub fn write_atomic(path: &Path, bytes: &[u8], inputs: &[&Path]) -> Result<(), O
         .unwrap_or_else(|| "output".into());
     let tmp = dir.join(format!(".{name}.{}.tmp", std::process::id()));
     let result = (|| {
-        let mut f = std::fs::File::create(&tmp)?;
-        f.write_all(bytes)?;
-        f.sync_all()?;
+        let mut f = std::io::BufWriter::with_capacity(1 << 20, std::fs::File::create(&tmp)?);
+        write(&mut f)?;
+        let f = f.into_inner().map_err(|e| e.into_error())?;
+        f.sync_data()?;
         std::fs::rename(&tmp, path)
     })();
     if let Err(e) = result {

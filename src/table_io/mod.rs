@@ -19,7 +19,7 @@ pub mod property_table;
 pub mod source;
 pub mod text_table;
 
-pub use atomic::{write_atomic, OutputError};
+pub use atomic::{write_atomic, write_atomic_with, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::estimates_csv;
 pub use fit_file::{pick_fit, read_fit_reports};

@@ -742,10 +742,30 @@ pub fn table_bytes(
     parquet: bool,
     path_for_errors: &Path,
 ) -> Result<Vec<u8>, TableError> {
-    let werr = |e: PolarsError| TableError::Write {
-        path: path_for_errors.into(),
-        message: e.to_string(),
-    };
+    let mut buf = Vec::new();
+    write_table(frame, added, parquet, &mut buf, path_for_errors)?;
+    Ok(buf)
+}
+
+/// Write the table with added text columns to `w`, as CSV or Parquet.
+/// Refuses (before writing anything) when an added column's name is taken.
+pub fn write_table(
+    frame: &DataFrame,
+    added: Vec<(&str, Vec<String>)>,
+    parquet: bool,
+    w: &mut dyn std::io::Write,
+    path_for_errors: &Path,
+) -> Result<(), TableError> {
+    let df = with_added(frame, added, path_for_errors)?;
+    write_frame(df, parquet, w, path_for_errors)
+}
+
+/// The frame with the added columns; an error when a name is taken.
+pub fn with_added(
+    frame: &DataFrame,
+    added: Vec<(&str, Vec<String>)>,
+    path_for_errors: &Path,
+) -> Result<DataFrame, TableError> {
     let mut df = frame.clone();
     for (name, values) in added {
         if df.column(name).is_ok() {
@@ -755,18 +775,34 @@ pub fn table_bytes(
             });
         }
         df.with_column(Column::new(name.into(), values))
-            .map_err(werr)?;
+            .map_err(|e| TableError::Write {
+                path: path_for_errors.into(),
+                message: e.to_string(),
+            })?;
     }
-    let mut buf = Vec::new();
+    Ok(df)
+}
+
+/// Write a frame to `w` as CSV (with header) or Parquet.
+pub fn write_frame(
+    mut df: DataFrame,
+    parquet: bool,
+    w: &mut dyn std::io::Write,
+    path_for_errors: &Path,
+) -> Result<(), TableError> {
+    let werr = |e: PolarsError| TableError::Write {
+        path: path_for_errors.into(),
+        message: e.to_string(),
+    };
     if parquet {
-        ParquetWriter::new(&mut buf).finish(&mut df).map_err(werr)?;
+        ParquetWriter::new(w).finish(&mut df).map_err(werr)?;
     } else {
-        CsvWriter::new(&mut buf)
+        CsvWriter::new(w)
             .include_header(true)
             .finish(&mut df)
             .map_err(werr)?;
     }
-    Ok(buf)
+    Ok(())
 }
 
 #[cfg(test)]
