@@ -396,3 +396,68 @@ mod order {
         }
     }
 }
+
+// Parquet in and Parquet out: the planted table (above) written as Parquet
+// with inferred, typed columns (numbers as Float64/Int64, empty cells null)
+// gets the same flags row by row as the CSV, and keeps every row and column.
+#[cfg(feature = "tables")]
+#[test]
+fn parquet_in_and_out_gives_the_csv_findings() {
+    use polars::prelude::*;
+    use polars_io::prelude::*;
+    let dir = tempfile::tempdir().unwrap();
+    let csv_in = dir.path().join("planted.csv");
+    std::fs::write(&csv_in, PLANTED).unwrap();
+    let reference = dir.path().join("ref.csv");
+    std::fs::write(&reference, REFERENCE).unwrap();
+    let mut df = CsvReadOptions::default()
+        .with_has_header(true)
+        .try_into_reader_with_file_path(Some(csv_in.clone()))
+        .unwrap()
+        .finish()
+        .unwrap();
+    assert_eq!(df.column("Tb/K").unwrap().dtype(), &DataType::Float64);
+    let pq_in = dir.path().join("planted.parquet");
+    ParquetWriter::new(std::fs::File::create(&pq_in).unwrap())
+        .finish(&mut df)
+        .unwrap();
+    let pq_out = dir.path().join("checked.parquet");
+    let ref_arg = ["--reference-table", reference.to_str().unwrap()];
+    let o = bin()
+        .arg("check")
+        .arg(&pq_in)
+        .args(ref_arg)
+        .arg("-o")
+        .arg(&pq_out)
+        .output()
+        .unwrap();
+    assert_eq!(
+        o.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&o.stderr)
+    );
+    let csv_out = dir.path().join("checked.csv");
+    let (code, rows, h, _) = check(
+        &[csv_in.to_str().unwrap(), ref_arg[0], ref_arg[1]],
+        &csv_out,
+    );
+    assert_eq!(code, 0);
+    let got = ParquetReader::new(std::fs::File::open(&pq_out).unwrap())
+        .finish()
+        .unwrap();
+    let names: Vec<String> = got
+        .get_column_names()
+        .iter()
+        .map(|n| n.to_string())
+        .collect();
+    let want: Vec<String> = h.iter().map(str::to_string).collect();
+    assert_eq!(names, want);
+    assert_eq!(got.height(), rows.len());
+    assert_eq!(got.column("Tb/K").unwrap().dtype(), &DataType::Float64);
+    let flags = got.column("flags").unwrap().str().unwrap().clone();
+    let f = crate::col(&h, "flags");
+    for (i, r) in rows.iter().enumerate() {
+        assert_eq!(flags.get(i).unwrap_or(""), &r[f], "row {i} ({})", &r[0]);
+    }
+}
