@@ -6,8 +6,22 @@
 //! another joins both.
 
 use super::finding::{Code, Finding};
-use super::sources::name_key;
+use super::sources::{name_key, with_name_key};
 use std::collections::HashMap;
+use std::hash::{Hash, Hasher};
+
+/// 64-bit hash of a row's name key, without allocating for short ASCII names.
+fn name_hash(name: &str) -> u64 {
+    with_name_key(name, |k| {
+        let mut h = std::collections::hash_map::DefaultHasher::new();
+        k.hash(&mut h);
+        h.finish()
+    })
+}
+
+fn same_name(a: &str, b: &str) -> bool {
+    with_name_key(a, |ka| with_name_key(b, |kb| ka == kb))
+}
 
 /// Identity keys and boiling point of one row, for grouping.
 #[derive(Debug, Clone, Default)]
@@ -39,7 +53,10 @@ pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)
     let mut parent: Vec<usize> = (0..n).collect();
     let mut cas: HashMap<&str, usize> = HashMap::new();
     let mut structure: HashMap<&str, usize> = HashMap::new();
-    let mut names: HashMap<String, usize> = HashMap::new();
+    // Names are grouped by the hash of their key; a hash shared by two
+    // different names (rare) falls back to the keys themselves.
+    let mut names: HashMap<u64, usize> = HashMap::new();
+    let mut collided: HashMap<String, usize> = HashMap::new();
     let union = |parent: &mut Vec<usize>, a: usize, b: usize| {
         let (ra, rb) = (find(parent, a), find(parent, b));
         if ra != rb {
@@ -65,22 +82,41 @@ pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)
             }
         }
         if let Some(nm) = k.name.filter(|s| !s.trim().is_empty()) {
-            let key = name_key(nm);
-            if let Some(&j) = names.get(&key) {
-                union(&mut parent, i, j);
-                linked = true;
-            } else {
-                names.insert(key, i);
+            let h = name_hash(nm);
+            match names.get(&h) {
+                None => {
+                    names.insert(h, i);
+                }
+                Some(&j) if keys[j].name.is_some_and(|o| same_name(o, nm)) => {
+                    union(&mut parent, i, j);
+                    linked = true;
+                }
+                Some(_) => match collided.entry(name_key(nm)) {
+                    std::collections::hash_map::Entry::Occupied(e) => {
+                        union(&mut parent, i, *e.get());
+                        linked = true;
+                    }
+                    std::collections::hash_map::Entry::Vacant(e) => {
+                        e.insert(i);
+                    }
+                },
             }
         }
     }
     if !linked {
         return Vec::new();
     }
+    // Members of groups with more than one row, without a map over all rows.
+    let roots: Vec<usize> = (0..n).map(|i| find(&mut parent, i)).collect();
+    let mut size = vec![0u32; n];
+    for &r in &roots {
+        size[r] += 1;
+    }
     let mut groups: HashMap<usize, Vec<usize>> = HashMap::new();
-    for i in 0..n {
-        let r = find(&mut parent, i);
-        groups.entry(r).or_default().push(i);
+    for (i, &r) in roots.iter().enumerate() {
+        if size[r] > 1 {
+            groups.entry(r).or_default().push(i);
+        }
     }
     let mut out = Vec::new();
     for members in groups.into_values().filter(|m| m.len() > 1) {

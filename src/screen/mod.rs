@@ -104,6 +104,10 @@ pub trait Rows: Sync {
     fn n_rows(&self) -> usize;
     /// Row `i` (0-based).
     fn row(&self, i: usize) -> RowInput<'_>;
+    /// The SMILES of row `i` alone (tables override this to skip building the row).
+    fn smiles(&self, i: usize) -> Option<&str> {
+        self.row(i).smiles
+    }
 }
 
 impl Rows for Vec<RowInput<'_>> {
@@ -132,7 +136,7 @@ fn estimate_all<'r>(
 ) -> HashMap<&'r str, StructureOutcome> {
     let mut distinct: HashSet<&'r str> = HashSet::new();
     for i in 0..rows.n_rows() {
-        if let Some(s) = rows.row(i).smiles {
+        if let Some(s) = rows.smiles(i) {
             let s = s.trim();
             if !s.is_empty() {
                 distinct.insert(s);

@@ -102,6 +102,10 @@ pub fn diagnose(
                     ..*k
                 };
                 let Some(t) = implied(&alt) else { continue };
+                let r = (t - listed_tb_k).abs();
+                if r.is_nan() || r > tol_k {
+                    continue; // the message is only written for a candidate that fits
+                }
                 let dp = u8::from(p_unit != declared.p_unit);
                 let db = u8::from(log_base != declared.log_base);
                 let dt = u8::from(t_unit != declared.t_unit);

@@ -577,13 +577,21 @@ impl PropertyTable {
                     message: "Antoine constants A, B, C need their convention: pass --constants \"log10,mmHg,degC\" or add a 'convention' column".into(),
                 });
             }
+            // Tables repeat a handful of conventions: parse each distinct
+            // text once, and compare with the previous row's before hashing.
+            let parse = |t: &str| {
+                let mut p = t.split(',').map(str::trim);
+                let base = p.next().and_then(LogBase::parse);
+                t.parse::<AntoineConvention>()
+                    .ok()
+                    .or_else(|| base.and(t.parse().ok()))
+            };
             let mut cache: HashMap<String, Option<AntoineConvention>> = HashMap::new();
+            let mut last: Option<(String, Option<AntoineConvention>)> = None;
+            let mut joined = String::new();
             for (i, slot) in conventions.iter_mut().enumerate() {
-                let text: Option<String> = if let Some(cc) = &conv_col {
-                    cc.get(i)
-                        .map(str::trim)
-                        .filter(|s| !s.is_empty())
-                        .map(str::to_string)
+                let text: Option<&str> = if let Some(cc) = &conv_col {
+                    cc.get(i).map(str::trim).filter(|s| !s.is_empty())
                 } else if three {
                     let g = |k: usize| {
                         parts[k]
@@ -593,21 +601,37 @@ impl PropertyTable {
                             .filter(|s| !s.is_empty())
                     };
                     match (g(0), g(1), g(2)) {
-                        (Some(b), Some(p), Some(t)) => Some(format!("{b},{p},{t}")),
+                        (Some(b), Some(p), Some(t)) => {
+                            joined.clear();
+                            joined.push_str(b);
+                            joined.push(',');
+                            joined.push_str(p);
+                            joined.push(',');
+                            joined.push_str(t);
+                            Some(joined.as_str())
+                        }
                         _ => None,
                     }
                 } else {
                     None
                 };
                 let Some(t) = text else { continue };
-                let parsed = cache.entry(t.clone()).or_insert_with(|| {
-                    let mut p = t.split(',').map(str::trim);
-                    let base = p.next().and_then(LogBase::parse);
-                    t.parse::<AntoineConvention>()
-                        .ok()
-                        .or_else(|| base.and(t.parse().ok()))
-                });
-                *slot = *parsed;
+                let parsed = match &last {
+                    Some((lt, lp)) if lt == t => *lp,
+                    _ => {
+                        let p = match cache.get(t) {
+                            Some(p) => *p,
+                            None => {
+                                let p = parse(t);
+                                cache.insert(t.to_string(), p);
+                                p
+                            }
+                        };
+                        last = Some((t.to_string(), p));
+                        p
+                    }
+                };
+                *slot = parsed;
                 if parsed.is_none() {
                     bad.entry(i).or_default().push((
                         "convention".into(),
@@ -715,12 +739,19 @@ impl Rows for PropertyTable {
             antoine,
             tc_k: get(&self.tc_k, i),
             pc_pa: get(&self.pc_pa, i),
-            unreadable: self
-                .bad
-                .get(&i)
-                .map(|v| v.iter().map(|(h, m)| (h.as_str(), m.clone())).collect())
-                .unwrap_or_default(),
+            unreadable: if self.bad.is_empty() {
+                Vec::new()
+            } else {
+                self.bad
+                    .get(&i)
+                    .map(|v| v.iter().map(|(h, m)| (h.as_str(), m.clone())).collect())
+                    .unwrap_or_default()
+            },
         }
+    }
+
+    fn smiles(&self, i: usize) -> Option<&str> {
+        text_at(&self.smiles, i)
     }
 }
 
