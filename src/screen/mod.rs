@@ -129,6 +129,36 @@ struct Facts<'a> {
     name: Option<&'a str>,
 }
 
+/// Rows checked by one worker and not yet told to the progress hook.
+struct Tally<'a> {
+    pending: usize,
+    progress: Option<&'a (dyn Fn(usize) + Sync)>,
+}
+
+/// Rows per progress report of one worker.
+const PROGRESS_ROWS: usize = 4096;
+
+impl Tally<'_> {
+    fn step(&mut self) {
+        self.pending += 1;
+        if self.pending == PROGRESS_ROWS {
+            self.flush();
+        }
+    }
+    fn flush(&mut self) {
+        if let (Some(p), true) = (self.progress, self.pending > 0) {
+            p(self.pending);
+        }
+        self.pending = 0;
+    }
+}
+
+impl Drop for Tally<'_> {
+    fn drop(&mut self) {
+        self.flush();
+    }
+}
+
 /// Estimate every distinct SMILES once, in parallel.
 fn estimate_all<'r>(
     rows: &'r dyn Rows,
@@ -240,40 +270,34 @@ pub fn screen(
     let tol = ctx.options.tolerance_k;
     let estimates = estimate_all(rows, ctx.estimator);
 
-    // Chunks keep the parallel overhead per row small and let the caller
-    // follow progress.
-    const CHUNK: usize = 8192;
-    let per_chunk: Vec<Vec<(Vec<Finding>, Facts<'_>)>> = (0..n.div_ceil(CHUNK))
+    // Straight into the four columns (no per-row intermediate), in
+    // parallel; progress is told every PROGRESS_ROWS rows per worker.
+    type Cols<'r> = (
+        Vec<Vec<Finding>>,
+        (Vec<duplicates::DupKey<'r>>, (Vec<f64>, Vec<usize>)),
+    );
+    let (mut findings, (keys, (residuals, lines))): Cols<'_> = (0..n)
         .into_par_iter()
-        .map(|c| {
-            let (lo, hi) = (c * CHUNK, ((c + 1) * CHUNK).min(n));
-            let out: Vec<_> = (lo..hi)
-                .map(|i| check_row(rows, i, implied_tb_k, &estimates, ctx))
-                .collect();
-            if let Some(p) = ctx.progress {
-                p(hi - lo);
-            }
-            out
-        })
-        .collect();
-    let per_row = per_chunk.into_iter().flatten();
-
-    let mut findings = Vec::with_capacity(n);
-    let mut keys = Vec::with_capacity(n);
-    let mut residuals = Vec::with_capacity(n);
-    let mut lines = Vec::with_capacity(n);
-    for (f, facts) in per_row {
-        findings.push(f);
-        residuals.push(facts.residual);
-        lines.push(facts.line);
-        keys.push(duplicates::DupKey {
-            cas: facts.cas,
-            structure: facts.structure,
-            name: facts.name,
-            tb_k: facts.tb_k,
-            line: facts.line,
-        });
-    }
+        .with_min_len(1024)
+        .map_init(
+            || Tally {
+                pending: 0,
+                progress: ctx.progress,
+            },
+            |tally, i| {
+                let (f, facts) = check_row(rows, i, implied_tb_k, &estimates, ctx);
+                tally.step();
+                let key = duplicates::DupKey {
+                    cas: facts.cas,
+                    structure: facts.structure,
+                    name: facts.name,
+                    tb_k: facts.tb_k,
+                    line: facts.line,
+                };
+                (f, (key, (facts.residual, facts.line)))
+            },
+        )
+        .unzip();
     for (i, f) in duplicates::check_duplicates(&keys, tol) {
         findings[i].push(f);
     }
@@ -281,4 +305,37 @@ pub fn screen(
         findings[i].push(f);
     }
     ScreenReport::new(findings, lines)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use std::sync::atomic::{AtomicUsize, Ordering};
+
+    // Every row is told to the progress hook exactly once. Benzene, Smith,
+    // Van Ness & Abbott App. B Table B.2 (ln/kPa/°C), tn 353.15 K.
+    #[test]
+    fn progress_counts_every_row_once() {
+        let conv = "ln,kPa,degC".parse().unwrap();
+        let rows: Vec<RowInput<'_>> = (0..10_000)
+            .map(|i| {
+                RowInput::at_line(i + 2)
+                    .with_compound("benzene")
+                    .with_tb_k(353.15)
+                    .with_antoine(13.7819, 2726.81, 217.572, conv)
+            })
+            .collect();
+        let done = AtomicUsize::new(0);
+        let hook = |k: usize| {
+            done.fetch_add(k, Ordering::Relaxed);
+        };
+        let ctx = ScreenContext {
+            progress: Some(&hook),
+            ..ScreenContext::default()
+        };
+        let report = screen(&rows, None, &ctx);
+        assert_eq!(done.load(Ordering::Relaxed), rows.len());
+        assert_eq!(report.len(), rows.len());
+        assert!(report.worst().is_none());
+    }
 }
