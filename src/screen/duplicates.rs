@@ -6,22 +6,8 @@
 //! another joins both.
 
 use super::finding::{Code, Finding};
-use super::sources::{name_key, with_name_key};
-use std::collections::HashMap;
-use std::hash::{Hash, Hasher};
-
-/// 64-bit hash of a row's name key, without allocating for short ASCII names.
-fn name_hash(name: &str) -> u64 {
-    with_name_key(name, |k| {
-        let mut h = std::collections::hash_map::DefaultHasher::new();
-        k.hash(&mut h);
-        h.finish()
-    })
-}
-
-fn same_name(a: &str, b: &str) -> bool {
-    with_name_key(a, |ka| with_name_key(b, |kb| ka == kb))
-}
+use super::sources::{fast_hash, with_name_key, FastMap};
+use rayon::prelude::*;
 
 /// Identity keys and boiling point of one row, for grouping.
 #[derive(Debug, Clone, Default)]
@@ -46,80 +32,149 @@ fn find(parent: &mut [usize], mut i: usize) -> usize {
     i
 }
 
+#[derive(Clone, Copy)]
+enum Part {
+    Cas,
+    Structure,
+    Name,
+}
+
+fn part<'a>(k: &DupKey<'a>, p: Part) -> Option<&'a str> {
+    match p {
+        Part::Cas => k.cas,
+        Part::Structure => k.structure,
+        Part::Name => k.name.filter(|s| !s.trim().is_empty()),
+    }
+}
+
+fn hash_of(s: &str, p: Part) -> u64 {
+    match p {
+        Part::Name => with_name_key(s, |k| fast_hash(k.as_bytes())),
+        _ => fast_hash(s.as_bytes()),
+    }
+}
+
+fn same(a: &str, b: &str, p: Part) -> bool {
+    match p {
+        Part::Name => with_name_key(a, |ka| with_name_key(b, |kb| ka == kb)),
+        _ => a == b,
+    }
+}
+
+/// Pairs (first row with this key, later row with the same key) for one
+/// identity part. Rows are sorted by the hash of their key, in parallel, and
+/// rows sharing a hash are compared by the key itself, so a hash collision
+/// never links two different compounds.
+fn links(keys: &[DupKey<'_>], p: Part, out: &mut Vec<(usize, usize)>) {
+    // Few distinct keys (structures of a handful of compounds): one map of
+    // first rows, small enough to stay in cache. Many distinct keys (names
+    // of lots): sort by hash instead of growing a map over all rows.
+    const SMALL: usize = 4096;
+    let mut first: FastMap<&str, usize> = FastMap::default();
+    let mut found = Vec::new();
+    let mut small = true;
+    for (i, k) in keys.iter().enumerate() {
+        let Some(s) = part(k, p) else { continue };
+        let norm = |f: &mut dyn FnMut(&str)| match p {
+            Part::Name => with_name_key(s, |x| f(x)),
+            _ => f(s),
+        };
+        let mut hit = None;
+        norm(&mut |x| hit = first.get(x).copied());
+        match hit {
+            Some(j) => found.push((j, i)),
+            None if first.len() < SMALL => {
+                // keys borrowed from the rows; names are kept as written and
+                // matched by their normal form below
+                if matches!(p, Part::Name) && with_name_key(s, |x| x != s) {
+                    small = false;
+                    break;
+                }
+                first.insert(s, i);
+            }
+            None => {
+                small = false;
+                break;
+            }
+        }
+    }
+    if small {
+        out.extend(found);
+        return;
+    }
+    let mut hashed: Vec<(u64, usize)> = keys
+        .par_iter()
+        .enumerate()
+        .filter_map(|(i, k)| part(k, p).map(|s| (hash_of(s, p), i)))
+        .collect();
+    if hashed.len() < 2 {
+        return;
+    }
+    hashed.par_sort_unstable();
+    let mut reps: Vec<usize> = Vec::new();
+    for run in hashed.chunk_by(|x, y| x.0 == y.0).filter(|r| r.len() > 1) {
+        reps.clear();
+        for &(_, i) in run {
+            let Some(si) = part(&keys[i], p) else {
+                continue;
+            };
+            match reps
+                .iter()
+                .find(|&&r| part(&keys[r], p).is_some_and(|sr| same(sr, si, p)))
+            {
+                Some(&r) => out.push((r, i)),
+                None => reps.push(i),
+            }
+        }
+    }
+}
+
 /// Findings per row index (`(row, finding)`) for groups whose boiling points
 /// spread by more than `tol_k`.
 pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)> {
     let n = keys.len();
+    let mut pairs = Vec::new();
+    for p in [Part::Cas, Part::Structure, Part::Name] {
+        links(keys, p, &mut pairs);
+    }
+    if pairs.is_empty() {
+        return Vec::new();
+    }
     let mut parent: Vec<usize> = (0..n).collect();
-    let mut cas: HashMap<&str, usize> = HashMap::new();
-    let mut structure: HashMap<&str, usize> = HashMap::new();
-    // Names are grouped by the hash of their key; a hash shared by two
-    // different names (rare) falls back to the keys themselves.
-    let mut names: HashMap<u64, usize> = HashMap::new();
-    let mut collided: HashMap<String, usize> = HashMap::new();
-    let union = |parent: &mut Vec<usize>, a: usize, b: usize| {
-        let (ra, rb) = (find(parent, a), find(parent, b));
+    for (a, b) in pairs {
+        let (ra, rb) = (find(&mut parent, a), find(&mut parent, b));
         if ra != rb {
             parent[ra.max(rb)] = ra.min(rb);
         }
-    };
-    let mut linked = false;
-    for (i, k) in keys.iter().enumerate() {
-        if let Some(c) = k.cas {
-            if let Some(&j) = cas.get(c) {
-                union(&mut parent, i, j);
-                linked = true;
-            } else {
-                cas.insert(c, i);
-            }
-        }
-        if let Some(s) = k.structure {
-            if let Some(&j) = structure.get(s) {
-                union(&mut parent, i, j);
-                linked = true;
-            } else {
-                structure.insert(s, i);
-            }
-        }
-        if let Some(nm) = k.name.filter(|s| !s.trim().is_empty()) {
-            let h = name_hash(nm);
-            match names.get(&h) {
-                None => {
-                    names.insert(h, i);
-                }
-                Some(&j) if keys[j].name.is_some_and(|o| same_name(o, nm)) => {
-                    union(&mut parent, i, j);
-                    linked = true;
-                }
-                Some(_) => match collided.entry(name_key(nm)) {
-                    std::collections::hash_map::Entry::Occupied(e) => {
-                        union(&mut parent, i, *e.get());
-                        linked = true;
-                    }
-                    std::collections::hash_map::Entry::Vacant(e) => {
-                        e.insert(i);
-                    }
-                },
-            }
-        }
     }
-    if !linked {
-        return Vec::new();
-    }
-    // Members of groups with more than one row, without a map over all rows.
+    // Members of groups with more than one row, in file order per group.
     let roots: Vec<usize> = (0..n).map(|i| find(&mut parent, i)).collect();
     let mut size = vec![0u32; n];
     for &r in &roots {
         size[r] += 1;
     }
-    let mut groups: HashMap<usize, Vec<usize>> = HashMap::new();
-    for (i, &r) in roots.iter().enumerate() {
+    // Counting sort by root: each group's members in file order, no map.
+    let mut start = vec![0usize; n];
+    let mut total = 0usize;
+    for r in 0..n {
         if size[r] > 1 {
-            groups.entry(r).or_default().push(i);
+            start[r] = total;
+            total += size[r] as usize;
         }
     }
+    let mut order = vec![0usize; total];
+    let mut fill = start.clone();
+    for (i, &r) in roots.iter().enumerate() {
+        if size[r] > 1 {
+            order[fill[r]] = i;
+            fill[r] += 1;
+        }
+    }
+    let groups = (0..n)
+        .filter(|&r| size[r] > 1)
+        .map(|r| order[start[r]..start[r] + size[r] as usize].to_vec());
     let mut out = Vec::new();
-    for members in groups.into_values().filter(|m| m.len() > 1) {
+    for members in groups {
         let with_tb: Vec<usize> = members
             .iter()
             .copied()
@@ -187,6 +242,35 @@ mod tests {
         let rows: Vec<usize> = f.iter().map(|(i, _)| *i).collect();
         assert_eq!(rows, [0, 1, 2]);
         assert!(f[2].1.message.contains("line 3"), "{}", f[2].1.message);
+    }
+
+    // Both ways of finding equal keys (a small map, or sorting by hash when
+    // keys are many or need normalising) give the same groups.
+    #[test]
+    fn small_map_and_sorted_paths_agree() {
+        let lower = [
+            key("acetone", None, 329.4, 2),
+            key("benzene", None, 353.2, 3),
+            key("acetone", None, 339.4, 4),
+        ];
+        let mixed = [
+            key("acetone", None, 329.4, 2),
+            key("benzene", None, 353.2, 3),
+            key("ACETONE ", None, 339.4, 4),
+        ];
+        let rows = |k: &[DupKey<'_>]| -> Vec<usize> {
+            check_duplicates(k, 1.0).iter().map(|(i, _)| *i).collect()
+        };
+        assert_eq!(rows(&lower), [0, 2]);
+        assert_eq!(rows(&mixed), [0, 2]);
+        let many: Vec<String> = (0..5000).map(|i| format!("lot {i}")).collect();
+        let mut keys: Vec<DupKey<'_>> = many
+            .iter()
+            .enumerate()
+            .map(|(i, n)| key(n, None, 300.0, i + 2))
+            .collect();
+        keys.push(key("lot 7", None, 320.0, 5002));
+        assert_eq!(rows(&keys), [7, 5000]);
     }
 
     #[test]

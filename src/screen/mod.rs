@@ -56,7 +56,7 @@ pub use sources::{
 use crate::units::ATM_PA;
 use crate::vapor::Curve;
 use rayon::prelude::*;
-use std::collections::{HashMap, HashSet};
+use sources::FastMap;
 
 /// Tunable limits of the checks.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -163,17 +163,17 @@ impl Drop for Tally<'_> {
 fn estimate_all<'r>(
     rows: &'r dyn Rows,
     estimator: &dyn StructureEstimator,
-) -> HashMap<&'r str, StructureOutcome> {
-    let mut distinct: HashSet<&'r str> = HashSet::new();
+) -> FastMap<&'r str, StructureOutcome> {
+    let mut distinct: FastMap<&'r str, ()> = FastMap::default();
     for i in 0..rows.n_rows() {
         if let Some(s) = rows.smiles(i) {
             let s = s.trim();
             if !s.is_empty() {
-                distinct.insert(s);
+                distinct.insert(s, ());
             }
         }
     }
-    let distinct: Vec<&str> = distinct.into_iter().collect();
+    let distinct: Vec<&str> = distinct.into_keys().collect();
     distinct
         .par_iter()
         .filter_map(|s| estimator.estimate(s).map(|o| (*s, o)))
@@ -185,7 +185,7 @@ fn check_row<'r>(
     rows: &'r dyn Rows,
     i: usize,
     implied_tb_k: Option<&[f64]>,
-    estimates: &'r HashMap<&'r str, StructureOutcome>,
+    estimates: &'r FastMap<&'r str, StructureOutcome>,
     ctx: &ScreenContext<'_>,
 ) -> (Vec<Finding>, Facts<'r>) {
     let tol = ctx.options.tolerance_k;

@@ -137,20 +137,66 @@ pub fn name_key(name: &str) -> String {
         .to_lowercase()
 }
 
+/// A fast, non-cryptographic 64-bit hash of `bytes` (multiply–rotate over
+/// eight-byte words, in the manner of the hash rustc uses internally). For
+/// grouping and lookups of table keys; callers confirm equal hashes by
+/// comparing the keys.
+pub fn fast_hash(bytes: &[u8]) -> u64 {
+    const K: u64 = 0x517c_c1b7_2722_0a95;
+    let mut h = (bytes.len() as u64).wrapping_mul(K);
+    let mut words = bytes.chunks_exact(8);
+    for w in &mut words {
+        let mut b = [0u8; 8];
+        b.copy_from_slice(w);
+        h = (h.rotate_left(5) ^ u64::from_le_bytes(b)).wrapping_mul(K);
+    }
+    let rest = words.remainder();
+    if !rest.is_empty() {
+        let mut b = [0u8; 8];
+        b[..rest.len()].copy_from_slice(rest);
+        h = (h.rotate_left(5) ^ u64::from_le_bytes(b)).wrapping_mul(K);
+    }
+    // final mix so the low bits (used by hash tables) depend on every word
+    h ^= h >> 29;
+    h = h.wrapping_mul(0xbf58_476d_1ce4_e5b9);
+    h ^ (h >> 32)
+}
+
+/// A [`std::hash::Hasher`] over [`fast_hash`], for maps keyed by table text.
+#[derive(Debug, Default, Clone, Copy)]
+pub struct FastHasher(u64);
+
+impl std::hash::Hasher for FastHasher {
+    fn write(&mut self, bytes: &[u8]) {
+        self.0 = fast_hash(bytes) ^ self.0.rotate_left(17);
+    }
+    fn finish(&self) -> u64 {
+        self.0
+    }
+}
+
+/// A hash map keyed by table text, with [`FastHasher`].
+pub type FastMap<K, V> = HashMap<K, V, std::hash::BuildHasherDefault<FastHasher>>;
+
 /// Call `f` with [`name_key`] of `name`; short ASCII names are normalised on
 /// the stack, so the per-row lookups of a large table do not allocate.
 pub fn with_name_key<R>(name: &str, f: impl FnOnce(&str) -> R) -> R {
+    let bytes = name.as_bytes();
     let mut buf = [0u8; 128];
-    if name.is_ascii() && name.len() <= buf.len() {
+    if name.is_ascii() && bytes.len() <= buf.len() {
+        // ASCII: split_whitespace and to_lowercase reduce to this one pass,
+        // except that a vertical tab (0x0B) is kept here.
         let mut n = 0;
-        // ASCII: split_whitespace and to_lowercase reduce to these, except
-        // that a vertical tab (0x0B) is kept here.
-        for w in name.split_ascii_whitespace() {
-            if n > 0 {
-                buf[n] = b' ';
-                n += 1;
-            }
-            for b in w.bytes() {
+        let mut gap = false;
+        for &b in bytes {
+            if b.is_ascii_whitespace() {
+                gap = n > 0;
+            } else {
+                if gap {
+                    buf[n] = b' ';
+                    n += 1;
+                    gap = false;
+                }
                 buf[n] = b.to_ascii_lowercase();
                 n += 1;
             }
