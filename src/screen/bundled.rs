@@ -6,7 +6,9 @@
 //! whichever of the three it carries. The entry names the reference row (file
 //! and line) and its source, so a disagreement says what it disagrees with.
 
-use super::sources::{with_name_key, FastMap, Identity, ReferenceEntry, ReferenceLookup};
+use super::sources::{
+    name_hash, with_name_key, FastMap, Identity, ReferenceEntry, ReferenceLookup,
+};
 use crate::reference::Library;
 use std::sync::OnceLock;
 
@@ -16,7 +18,8 @@ pub struct BundledReference {
     entries: Vec<ReferenceEntry>,
     by_cas: FastMap<String, usize>,
     by_key: FastMap<String, usize>,
-    by_name: FastMap<String, usize>,
+    /// Name keys by their [`name_hash`]: (key, entry).
+    by_name: FastMap<u64, Vec<(String, usize)>>,
 }
 
 /// The source as a short phrase: the text before the first `;` (the bundled
@@ -54,8 +57,11 @@ impl BundledReference {
                 r.by_key.entry(key).or_insert(i);
             }
             for n in std::iter::once(&c.name).chain(&c.synonyms) {
+                let list = r.by_name.entry(name_hash(n)).or_default();
                 with_name_key(n, |k| {
-                    r.by_name.entry(k.to_string()).or_insert(i);
+                    if !list.iter().any(|(x, _)| x == k) {
+                        list.push((k.to_string(), i));
+                    }
                 });
             }
         }
@@ -86,8 +92,11 @@ impl ReferenceLookup for BundledReference {
             .and_then(|c| self.by_cas.get(c.trim()).copied())
             .or_else(|| id.structure_key.and_then(|k| self.by_key.get(k).copied()))
             .or_else(|| {
-                id.name
-                    .and_then(|n| with_name_key(n, |k| self.by_name.get(k).copied()))
+                let n = id.name?;
+                let list = self
+                    .by_name
+                    .get(&id.name_hash.unwrap_or_else(|| name_hash(n)))?;
+                with_name_key(n, |k| list.iter().find(|(x, _)| x == k).map(|(_, i)| *i))
             })?;
         self.entries.get(i)
     }

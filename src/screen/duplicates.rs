@@ -18,6 +18,8 @@ pub struct DupKey<'a> {
     pub structure: Option<&'a str>,
     /// Compound name.
     pub name: Option<&'a str>,
+    /// [`super::sources::name_hash`] of the name (any value when `name` is None).
+    pub name_hash: u64,
     /// Boiling point to compare (listed, else implied), K; NaN if none.
     pub tb_k: f64,
     /// Line number.
@@ -47,9 +49,9 @@ fn part<'a>(k: &DupKey<'a>, p: Part) -> Option<&'a str> {
     }
 }
 
-fn hash_of(s: &str, p: Part) -> u64 {
+fn hash_of(k: &DupKey<'_>, s: &str, p: Part) -> u64 {
     match p {
-        Part::Name => with_name_key(s, |k| fast_hash(k.as_bytes())),
+        Part::Name => k.name_hash,
         _ => fast_hash(s.as_bytes()),
     }
 }
@@ -72,8 +74,10 @@ fn links(keys: &[DupKey<'_>], p: Part, out: &mut Vec<(usize, usize)>) {
     const SMALL: usize = 4096;
     let mut first: FastMap<&str, usize> = FastMap::default();
     let mut found = Vec::new();
-    let mut small = true;
-    for (i, k) in keys.iter().enumerate() {
+    // names are hashed already, and usually many: straight to the sort
+    let mut small = !matches!(p, Part::Name);
+    let candidates = if small { keys } else { &keys[..0] };
+    for (i, k) in candidates.iter().enumerate() {
         let Some(s) = part(k, p) else { continue };
         let norm = |f: &mut dyn FnMut(&str)| match p {
             Part::Name => with_name_key(s, |x| f(x)),
@@ -105,7 +109,7 @@ fn links(keys: &[DupKey<'_>], p: Part, out: &mut Vec<(usize, usize)>) {
     let mut hashed: Vec<(u64, usize)> = keys
         .par_iter()
         .enumerate()
-        .filter_map(|(i, k)| part(k, p).map(|s| (hash_of(s, p), i)))
+        .filter_map(|(i, k)| part(k, p).map(|s| (hash_of(k, s, p), i)))
         .collect();
     if hashed.len() < 2 {
         return;
@@ -223,6 +227,7 @@ mod tests {
     fn key<'a>(name: &'a str, cas: Option<&'a str>, tb: f64, line: usize) -> DupKey<'a> {
         DupKey {
             name: Some(name),
+            name_hash: crate::screen::sources::name_hash(name),
             cas,
             structure: None,
             tb_k: tb,

@@ -127,6 +127,7 @@ struct Facts<'a> {
     cas: Option<&'a str>,
     structure: Option<&'a str>,
     name: Option<&'a str>,
+    name_hash: u64,
 }
 
 /// Rows checked by one worker and not yet told to the progress hook.
@@ -237,10 +238,14 @@ fn check_row<'r>(
             }
         }
     }
+    // The name's key is hashed once per row, for the reference lookup and
+    // the duplicate grouping.
+    let name_hash = row.compound.map(sources::name_hash).unwrap_or(0);
     let id = Identity {
         name: row.compound,
         cas,
         structure_key,
+        name_hash: row.compound.map(|_| name_hash),
     };
     if let Some(t) = tb {
         reference::check_reference(ctx.reference, &id, t, listed, tol, &mut out);
@@ -254,6 +259,7 @@ fn check_row<'r>(
             cas,
             structure: structure_key,
             name: row.compound,
+            name_hash,
         },
     )
 }
@@ -291,6 +297,7 @@ pub fn screen(
                     cas: facts.cas,
                     structure: facts.structure,
                     name: facts.name,
+                    name_hash: facts.name_hash,
                     tb_k: facts.tb_k,
                     line: facts.line,
                 };

@@ -111,6 +111,8 @@ pub struct Identity<'a> {
     pub cas: Option<&'a str>,
     /// Structure key from the estimator.
     pub structure_key: Option<&'a str>,
+    /// [`name_hash`] of `name`, when the caller has it already (else None).
+    pub name_hash: Option<u64>,
 }
 
 /// Something that knows reference boiling points.
@@ -160,6 +162,12 @@ pub fn fast_hash(bytes: &[u8]) -> u64 {
     h ^= h >> 29;
     h = h.wrapping_mul(0xbf58_476d_1ce4_e5b9);
     h ^ (h >> 32)
+}
+
+/// [`fast_hash`] of [`name_key`]`(name)`: rows with the same name key have
+/// the same hash (the converse is confirmed by comparing keys).
+pub fn name_hash(name: &str) -> u64 {
+    with_name_key(name, |k| fast_hash(k.as_bytes()))
 }
 
 /// A [`std::hash::Hasher`] over [`fast_hash`], for maps keyed by table text.
@@ -268,6 +276,7 @@ impl TableReference {
                     name: r.compound,
                     cas,
                     structure_key: key.as_deref(),
+                    name_hash: None,
                 },
                 ReferenceEntry {
                     name,
@@ -333,7 +342,7 @@ mod tests {
             &Identity {
                 name: Some("Acetone"),
                 cas: Some("67-64-1"),
-                structure_key: None,
+                ..Default::default()
             },
             e.clone(),
         );
