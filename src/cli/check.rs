@@ -125,17 +125,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     // the bulk frame (measured: about 0.1 s per 1,000,000 rows for the frame).
     let report = screen(&table, None, &ctx);
 
-    let n = report.len();
-    let flags: Vec<String> = (0..n).map(|i| report.flags(i)).collect();
-    let severity: Vec<String> = (0..n)
-        .map(|i| {
-            report
-                .severity(i)
-                .map(|s| s.as_str().to_string())
-                .unwrap_or_default()
-        })
-        .collect();
-    let diagnosis: Vec<String> = (0..n).map(|i| report.diagnosis(i)).collect();
+    let [flags, severity, diagnosis] = report.columns();
     let parquet = args.output.as_deref().is_some_and(is_parquet);
     let out_name = args
         .output

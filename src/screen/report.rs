@@ -65,6 +65,24 @@ impl ScreenReport {
         s
     }
 
+    /// The three added columns, `flags`, `severity` and `diagnosis`, one
+    /// entry per row (empty for a clean row), built in parallel.
+    pub fn columns(&self) -> [Vec<String>; 3] {
+        use rayon::prelude::*;
+        let n = self.len();
+        let flags = (0..n).into_par_iter().map(|i| self.flags(i)).collect();
+        let severity = (0..n)
+            .into_par_iter()
+            .map(|i| {
+                self.severity(i)
+                    .map(|s| s.as_str().to_string())
+                    .unwrap_or_default()
+            })
+            .collect();
+        let diagnosis = (0..n).into_par_iter().map(|i| self.diagnosis(i)).collect();
+        [flags, severity, diagnosis]
+    }
+
     /// The worst severity in the whole table.
     pub fn worst(&self) -> Option<Severity> {
         (0..self.len()).filter_map(|i| self.severity(i)).max()
