@@ -82,8 +82,17 @@ fn sigint_during_estimate_batch_leaves_no_output_and_reports_progress() {
     assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
 }
 
-/// One `check` run interrupted `after`; returns the stderr message.
-fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Duration) -> String {
+/// What one interrupted `check` run did.
+enum Run {
+    /// Exit 130 with this stderr.
+    Interrupted(String),
+    /// The run ended normally: the signal came too late (after the rows, while
+    /// the output was being written, which an interrupt waits for) or never.
+    Finished,
+}
+
+/// One `check` run with SIGINT sent `after` its start.
+fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Duration) -> Run {
     let mut child = Command::new(bin())
         .arg("check")
         .arg(input)
@@ -95,21 +104,22 @@ fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Dur
         .spawn()
         .unwrap();
     std::thread::sleep(after);
-    assert!(
-        child.try_wait().unwrap().is_none(),
-        "the check finished before the signal; make the input larger"
-    );
-    let pid = child.id().to_string();
-    assert!(Command::new("kill")
-        .args(["-INT", &pid])
-        .status()
-        .unwrap()
-        .success());
+    if child.try_wait().unwrap().is_none() {
+        let pid = child.id().to_string();
+        assert!(Command::new("kill")
+            .args(["-INT", &pid])
+            .status()
+            .unwrap()
+            .success());
+    }
     let status = wait_with_deadline(&mut child, Duration::from_secs(30));
     let mut stderr = String::new();
     std::io::Read::read_to_string(&mut child.stderr.take().unwrap(), &mut stderr).unwrap();
-    assert_eq!(status.code(), Some(130), "stderr: {stderr}");
-    stderr
+    match status.code() {
+        Some(130) => Run::Interrupted(stderr),
+        Some(0) => Run::Finished,
+        other => panic!("exit {other:?}, stderr: {stderr}"),
+    }
 }
 
 #[test]
@@ -119,7 +129,7 @@ fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
     const ROWS: usize = 1_000_000;
     {
         // Invented lot rows on the Smith, Van Ness & Abbott B.2 benzene and
-        // toluene rows; enough that the check is still running at the signal.
+        // toluene rows; enough that the check runs for seconds.
         let mut f = std::io::BufWriter::new(std::fs::File::create(&input).unwrap());
         writeln!(f, "compound,Tb/K,A,B,C,convention").unwrap();
         for i in 0..ROWS {
@@ -139,31 +149,44 @@ fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
         }
     }
     let output = dir.path().join("checked.csv");
-    // The rows are read before they are checked; wait longer each time until
-    // the signal lands while rows are being checked.
-    let mut after = Duration::from_millis(1500);
-    let mut messages = Vec::new();
-    for _ in 0..4 {
-        let stderr = interrupt_check(&input, &output, after);
-        assert!(stderr.contains("no output was written"), "stderr: {stderr}");
-        assert!(!output.exists(), "a partial output file was left");
-        let leftovers: Vec<_> = std::fs::read_dir(dir.path())
-            .unwrap()
-            .filter_map(|e| e.ok())
-            .map(|e| e.file_name().to_string_lossy().into_owned())
-            .filter(|n| n != "sheet.csv")
-            .collect();
-        assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
-        if stderr.contains(&format!(" of {ROWS} items")) {
-            assert!(stderr.contains("interrupted after "), "stderr: {stderr}");
-            return;
+    // The rows are read, then checked, then written. Search for a signal
+    // time that lands while rows are checked: later after "before the batch
+    // started", earlier (by half the last step) after a run that finished.
+    let mut after = Duration::from_millis(1000);
+    let mut step = Duration::from_millis(500);
+    let mut seen = Vec::new();
+    for _ in 0..12 {
+        match interrupt_check(&input, &output, after) {
+            Run::Finished => {
+                // complete output is allowed then; remove it for the next try
+                assert!(output.exists());
+                std::fs::remove_file(&output).unwrap();
+                seen.push(format!("{after:?}: finished"));
+                step /= 2;
+                after = after.saturating_sub(step);
+            }
+            Run::Interrupted(stderr) => {
+                assert!(stderr.contains("no output was written"), "stderr: {stderr}");
+                assert!(!output.exists(), "a partial output file was left");
+                let leftovers: Vec<_> = std::fs::read_dir(dir.path())
+                    .unwrap()
+                    .filter_map(|e| e.ok())
+                    .map(|e| e.file_name().to_string_lossy().into_owned())
+                    .filter(|n| n != "sheet.csv")
+                    .collect();
+                assert!(leftovers.is_empty(), "left behind: {leftovers:?}");
+                if stderr.contains(&format!(" of {ROWS} items")) {
+                    assert!(stderr.contains("interrupted after "), "stderr: {stderr}");
+                    return;
+                }
+                assert!(
+                    stderr.contains("before the batch started"),
+                    "stderr: {stderr}"
+                );
+                seen.push(format!("{after:?}: before the batch"));
+                after += step;
+            }
         }
-        assert!(
-            stderr.contains("before the batch started"),
-            "stderr: {stderr}"
-        );
-        messages.push(stderr);
-        after *= 2;
     }
-    panic!("never interrupted while checking rows: {messages:?}");
+    panic!("never interrupted while checking rows: {seen:?}");
 }
