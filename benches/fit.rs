@@ -18,20 +18,9 @@ fn main() {
     divan::main();
 }
 
-fn set(seed: usize) -> Vec<Point> {
-    (0..10)
-        .map(|i| {
-            let t = 320.0 + 6.0 * i as f64;
-            let e = 0.002 * ((i + seed) as f64 * 2.3).sin();
-            Point {
-                t_k: t,
-                p_pa: (22.0 - 3500.0 / (t - 45.0) + e).exp(),
-                u_t_k: None,
-                u_p_pa: None,
-            }
-        })
-        .collect()
-}
+#[path = "common/fit_data.rs"]
+mod fit_data;
+use fit_data::set;
 
 #[divan::bench]
 fn antoine_10_points_full_statistics(b: divan::Bencher) {
