@@ -13,6 +13,9 @@ Writes into OUT (default bench/out/data):
                                              when it is installed; otherwise larger molecules
                                              from the same grammar (the source is printed and
                                              written to smiles_drug.source)
+  smiles_real.csv    smiles               -- real drug-like molecules: a seeded sample (with
+                                             replacement) of the ChEMBL/ZINC SMILES files shipped
+                                             inside the RDKit wheel (source in smiles_real.source)
   table.csv          compound,smiles,Tb/K,A,B,C,convention -- 1,000,000 x scale rows,
                                              some with planted slips (see make_table)
 
@@ -171,6 +174,44 @@ def molsets_smiles():
     return None
 
 
+# Drug-like SMILES files shipped inside the RDKit wheel (BSD-licensed package; the molecules
+# are ChEMBL and ZINC medicinal-chemistry compounds): real structures, read where pip put them.
+RDKIT_DRUG_FILES = (
+    "Contrib/FreeWilson/data/CHEMBL2321810.smi",
+    "Contrib/fraggle/data/ChEMBL_11265_actives.smi",
+    "Contrib/Fastcluster/cdk2.smi",
+    "Contrib/mmpa/data/sample.smi",
+)
+
+
+def rdkit_drug_smiles():
+    """(smiles list, file names) from the drug-like sets in the installed RDKit wheel, or None."""
+    try:
+        import importlib.util
+
+        spec = importlib.util.find_spec("rdkit")
+    except Exception:
+        return None
+    if spec is None or not spec.submodule_search_locations:
+        return None
+    base = list(spec.submodule_search_locations)[0]
+    smiles, names = [], []
+    for rel in RDKIT_DRUG_FILES:
+        path = os.path.join(base, rel)
+        if not os.path.exists(path):
+            continue
+        with open(path) as f:
+            for line in f:
+                parts = line.split()
+                # cdk2.smi puts the id first; the others put the SMILES first
+                if parts:
+                    smi = parts[1] if parts[0].startswith("ZINC") and len(parts) > 1 else parts[0]
+                    if smi.upper() != "SMILES":
+                        smiles.append(smi)
+        names.append(os.path.basename(rel))
+    return (smiles, names) if smiles else None
+
+
 def make_smiles_drug(rng, n, out):
     path = molsets_smiles()
     smiles = []
@@ -197,6 +238,24 @@ def make_smiles_drug(rng, n, out):
         for s in smiles:
             f.write(s + "\n")
     with open(os.path.join(out, "smiles_drug.source"), "w") as f:
+        f.write(source + "\n")
+    return source
+
+
+def make_smiles_real(rng, n, out):
+    found = rdkit_drug_smiles()
+    if found is None:
+        print("RDKit not installed: no smiles_real.csv", file=sys.stderr)
+        return None
+    pool, names = found
+    idx = rng.integers(0, len(pool), size=n)
+    with open(os.path.join(out, "smiles_real.csv"), "w", newline="") as f:
+        f.write("smiles\n")
+        for i in idx:
+            f.write(pool[i] + "\n")
+    source = (f"{len(set(pool))} distinct ChEMBL/ZINC drug-like molecules shipped in the RDKit wheel "
+              f"({', '.join(names)}), sampled with replacement to {n}")
+    with open(os.path.join(out, "smiles_real.source"), "w") as f:
         f.write(source + "\n")
     return source
 
@@ -252,6 +311,7 @@ def main():
     make_smiles_small(np.random.default_rng(SEED + 1), max(100, int(100_000 * s)), args.out)
     src = make_smiles_drug(np.random.default_rng(SEED + 2), max(100, int(100_000 * s)), args.out)
     make_table(np.random.default_rng(SEED + 3), max(1000, int(1_000_000 * s)), args.out)
+    make_smiles_real(np.random.default_rng(SEED + 4), max(100, int(100_000 * s)), args.out)
     print(f"generated inputs at scale {s} in {args.out}; drug-like set: {src}", file=sys.stderr)
 
 

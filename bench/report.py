@@ -24,7 +24,13 @@ def time_report(out, name):
         return None
     h, mnt, s = m.groups()
     wall = int(h or 0) * 3600 + int(mnt) * 60 + float(s)
-    return {"wall_s": max(wall, 1e-3), "rss_mib": int(rss.group(1)) / 1024 if rss else float("nan")}
+    load_path = os.path.join(out, "time", f"{name}.load")
+    load = open(load_path).read().split() if os.path.exists(load_path) else []
+    return {
+        "wall_s": max(wall, 1e-3),
+        "rss_mib": int(rss.group(1)) / 1024 if rss else float("nan"),
+        "load": " / ".join(load) if load else "?",
+    }
 
 
 def rows(path):
@@ -89,7 +95,7 @@ def main():
     threads = args.threads.split()
     d = os.path.join(out, "data")
     r = os.path.join(out, "result")
-    lines = [f"# ebullio side-by-side benchmark, {datetime.date.today().isoformat()}", ""]
+    lines = [f"# ebullio side-by-side benchmark, {datetime.datetime.now(datetime.timezone.utc).strftime('%Y-%m-%d %H:%M UTC')}", ""]
     lines.append(f"CPU cores: {os.cpu_count()}. Absolute times vary by machine and load; the ratios are the point.")
     lines.append("Rates are end to end (process start, reading the CSV, computing, writing the output).")
     lines.append("")
@@ -101,13 +107,13 @@ def main():
     tp = time_report(out, "peer_fit")
     peer_rate = n_sets / tp["wall_s"] if tp else None
     lines += ["## (a) fitting", "", f"{n_sets} compounds, 8-15 points each, 0.5 % noise, 2 % with one gross outlier.", ""]
-    lines += ["| tool | threads | fits/s | peak MiB |", "| --- | --- | --- | --- |"]
-    lines.append(f"| scipy curve_fit script | 1 | {fmt_rate(peer_rate)} | {tp['rss_mib']:.0f} |" if tp else "| scipy curve_fit script | 1 | not measured | |")
+    lines += ["| tool | threads | fits/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- |"]
+    lines.append(f"| scipy curve_fit script | 1 | {fmt_rate(peer_rate)} | {tp['rss_mib']:.0f} | {tp['load']} |" if tp else "| scipy curve_fit script | 1 | not measured | |")
     fit_rates = {}
     for t in threads:
         te = time_report(out, f"ebullio_fit_t{t}")
         fit_rates[t] = n_sets / te["wall_s"] if te else None
-        lines.append(f"| ebullio fit | {t} | {fmt_rate(fit_rates[t])} | {te['rss_mib']:.0f} |" if te else f"| ebullio fit | {t} | not measured | |")
+        lines.append(f"| ebullio fit | {t} | {fmt_rate(fit_rates[t])} | {te['rss_mib']:.0f} | {te['load']} |" if te else f"| ebullio fit | {t} | not measured | |")
     fit_ratio = ratio(fit_rates.get("1"), peer_rate)
     eb = ebullio_fit_tb(os.path.join(r, f"ebullio_fit_t{threads[0]}.json"))
     both = [k for k in eb if peer.get(k) is not None]
@@ -120,20 +126,22 @@ def main():
 
     # (b) structure
     lines += ["## (b) structure (Joback groups from SMILES)", ""]
-    lines += ["| set | tool | threads | molecules/s | peak MiB |", "| --- | --- | --- | --- | --- |"]
+    lines += ["| set | tool | threads | molecules/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- | --- |"]
     struct_ratios = {}
     agree_lines = []
-    for s in ("small", "drug"):
+    for s in ("small", "drug", "real"):
+        if not os.path.exists(os.path.join(d, f"smiles_{s}.csv")):
+            continue
         n = len(rows(os.path.join(d, f"smiles_{s}.csv")))
         tp = time_report(out, f"peer_smarts_{s}")
         pr = n / tp["wall_s"] if tp else None
-        lines.append(f"| {s} ({n}) | RDKit + SMARTS | 1 | {fmt_rate(pr)} | {tp['rss_mib']:.0f} |" if tp else f"| {s} | RDKit + SMARTS | 1 | not measured | |")
+        lines.append(f"| {s} ({n}) | RDKit + SMARTS | 1 | {fmt_rate(pr)} | {tp['rss_mib']:.0f} | {tp['load']} |" if tp else f"| {s} | RDKit + SMARTS | 1 | not measured | |")
         for t in threads:
             te = time_report(out, f"ebullio_estimate_{s}_t{t}")
             er = n / te["wall_s"] if te else None
             if t == "1":
                 struct_ratios[s] = ratio(er, pr)
-            lines.append(f"| {s} ({n}) | ebullio estimate | {t} | {fmt_rate(er)} | {te['rss_mib']:.0f} |" if te else f"| {s} | ebullio estimate | {t} | not measured | |")
+            lines.append(f"| {s} ({n}) | ebullio estimate | {t} | {fmt_rate(er)} | {te['rss_mib']:.0f} | {te['load']} |" if te else f"| {s} | ebullio estimate | {t} | not measured | |")
         pe = rows(os.path.join(r, f"peer_smarts_{s}.csv"))
         ee = rows(os.path.join(r, f"ebullio_estimate_{s}_t{threads[0]}.csv"))
         if pe and ee and len(pe) == len(ee):
@@ -147,18 +155,21 @@ def main():
     lines += ["", "Ratios (1 thread each): " + ", ".join(f"{s} **{fmt_ratio(v)}**" for s, v in struct_ratios.items()) + "."]
     if os.path.exists(src):
         lines.append(f"Drug-sized set: {open(src).read().strip()}.")
+    src = os.path.join(d, "smiles_real.source")
+    if os.path.exists(src):
+        lines.append(f"Real set: {open(src).read().strip()}.")
     lines += agree_lines + [""]
 
     # (c) tables
     n = len(rows(os.path.join(d, "table.csv")))
     lines += ["## (c) tables", "", f"{n} rows (compound, smiles, Tb/K, A, B, C, convention).", ""]
-    lines += ["| tool | threads | rows/s | peak MiB |", "| --- | --- | --- | --- |"]
+    lines += ["| tool | threads | rows/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- |"]
     table_rates = {}
     for t in threads:
         for tool, name in (("polars pipeline", f"peer_table_t{t}"), ("ebullio check", f"ebullio_check_t{t}")):
             tr = time_report(out, name)
             table_rates[name] = n / tr["wall_s"] if tr else None
-            lines.append(f"| {tool} | {t} | {fmt_rate(table_rates[name])} | {tr['rss_mib']:.0f} |" if tr else f"| {tool} | {t} | not measured | |")
+            lines.append(f"| {tool} | {t} | {fmt_rate(table_rates[name])} | {tr['rss_mib']:.0f} | {tr['load']} |" if tr else f"| {tool} | {t} | not measured | |")
     tmax = threads[-1]
     table_ratio = ratio(table_rates.get(f"ebullio_check_t{tmax}"), table_rates.get(f"peer_table_t{tmax}"))
     lines += ["", f"Ratio ebullio/polars ({tmax} threads each; above 1 means ebullio is faster): **{fmt_ratio(table_ratio)}**. "
@@ -171,8 +182,32 @@ def main():
         lines.append(f"Rows flagged: polars pipeline {pf}, ebullio check {ef} (ebullio runs more checks).")
     lines += ["", "## ratios", ""]
     lines.append(f"fitting {fmt_ratio(fit_ratio)}; structure small {fmt_ratio(struct_ratios.get('small'))}, "
-                 f"drug-sized {fmt_ratio(struct_ratios.get('drug'))}; tables {fmt_ratio(table_ratio)}")
+                 f"drug-sized {fmt_ratio(struct_ratios.get('drug'))}, real drug-like {fmt_ratio(struct_ratios.get('real'))}; tables {fmt_ratio(table_ratio)}")
+    if len(threads) > 1:
+        t0, t1 = threads[0], threads[-1]
+        scal = []
+        for label, a, b in (
+            ("ebullio fit", fit_rates.get(t0), fit_rates.get(t1)),
+            ("ebullio check", table_rates.get(f"ebullio_check_t{t0}"), table_rates.get(f"ebullio_check_t{t1}")),
+            ("polars pipeline", table_rates.get(f"peer_table_t{t0}"), table_rates.get(f"peer_table_t{t1}")),
+        ):
+            scal.append(f"{label} {fmt_ratio(ratio(b, a))}")
+        for st in ("small", "drug", "real"):
+            a, b = time_report(out, f"ebullio_estimate_{st}_t{t0}"), time_report(out, f"ebullio_estimate_{st}_t{t1}")
+            scal.append(f"ebullio estimate ({st}) {fmt_ratio(ratio(a['wall_s'], b['wall_s']) if a and b else None)}")
+        lines.append("")
+        lines.append(f"Throughput at {t1} threads over {t0}: " + "; ".join(scal) + ".")
+    lines.append("")
+    lines.append(f"Load average of the machine (1 min) was {load_now()} when the summary was written; "
+                 "each run's load before and after is in its table.")
     print("\n".join(lines))
+
+
+def load_now():
+    try:
+        return " ".join(open("/proc/loadavg").read().split()[:3])
+    except OSError:
+        return "unknown"
 
 
 if __name__ == "__main__":
