@@ -49,9 +49,11 @@ def fnum(x):
 
 
 def ebullio_fit_tb(path):
-    """compound -> fitted normal boiling point, from `ebullio fit --format json`."""
+    """compound -> fitted normal boiling point, from `ebullio fit --format csv` (or json)."""
     if not os.path.exists(path):
         return {}
+    if path.endswith(".csv"):
+        return {x["compound"]: float(x["tb_k"]) for x in rows(path) if fnum(x.get("tb_k")) is not None}
     data = json.load(open(path))
     if isinstance(data, dict):
         data = data.get("results", [data])
@@ -115,7 +117,7 @@ def main():
         fit_rates[t] = n_sets / te["wall_s"] if te else None
         lines.append(f"| ebullio fit | {t} | {fmt_rate(fit_rates[t])} | {te['rss_mib']:.0f} | {te['load']} |" if te else f"| ebullio fit | {t} | not measured | |")
     fit_ratio = ratio(fit_rates.get("1"), peer_rate)
-    eb = ebullio_fit_tb(os.path.join(r, f"ebullio_fit_t{threads[0]}.json"))
+    eb = ebullio_fit_tb(os.path.join(r, f"ebullio_fit_t{threads[0]}.csv"))
     both = [k for k in eb if peer.get(k) is not None]
     lines += ["", f"Ratio (1 thread each): **{fmt_ratio(fit_ratio)}**."]
     if both:
