@@ -18,6 +18,7 @@ Writes into OUT (default bench/out/data):
                                              inside the RDKit wheel (source in smiles_real.source)
   table.csv          compound,smiles,Tb/K,A,B,C,convention -- 1,000,000 x scale rows,
                                              some with planted slips (see make_table)
+  table_nosmiles.csv the same rows without the smiles column
 
 Every random draw comes from numpy.random.default_rng(SEED); the same scale gives
 byte-identical files. The curves are invented (Trouton-like enthalpies, Antoine C near
@@ -268,9 +269,13 @@ def make_table(rng, n, out):
     """
     pool = [grammar_molecule(rng, 0, 3) for _ in range(5000)]
     mmhg_pa = 133.322387415
-    with open(os.path.join(out, "table.csv"), "w", newline="") as f:
+    with open(os.path.join(out, "table.csv"), "w", newline="") as f, open(
+        os.path.join(out, "table_nosmiles.csv"), "w", newline=""
+    ) as f2:
         w = csv.writer(f, lineterminator="\n")
+        w2 = csv.writer(f2, lineterminator="\n")
         w.writerow(["compound", "smiles", "Tb/K", "A", "B", "C", "convention"])
+        w2.writerow(["compound", "Tb/K", "A", "B", "C", "convention"])
         for i in range(n):
             tb = rng.uniform(300.0, 520.0)
             c_k = rng.uniform(-60.0, -30.0)
@@ -297,6 +302,7 @@ def make_table(rng, n, out):
             w.writerow(
                 [f"HV-{i:07d}", smi, f"{listed_tb:.2f}", f"{a:.6f}", f"{bb:.4f}", f"{c_deg:.4f}", conv]
             )
+            w2.writerow([f"HV-{i:07d}", f"{listed_tb:.2f}", f"{a:.6f}", f"{bb:.4f}", f"{c_deg:.4f}", conv])
 
 
 def main():

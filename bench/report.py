@@ -20,6 +20,8 @@ def time_report(out, name):
     text = open(path).read()
     m = re.search(r"Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (?:(\d+):)?(\d+):([\d.]+)", text)
     rss = re.search(r"Maximum resident set size \(kbytes\): (\d+)", text)
+    user = re.search(r"User time \(seconds\): ([\d.]+)", text)
+    sys_ = re.search(r"System time \(seconds\): ([\d.]+)", text)
     if not m:
         return None
     h, mnt, s = m.groups()
@@ -30,6 +32,9 @@ def time_report(out, name):
         "wall_s": max(wall, 1e-3),
         "rss_mib": int(rss.group(1)) / 1024 if rss else float("nan"),
         "load": " / ".join(load) if load else "?",
+        # CPU seconds (user + system): what the run cost, less sensitive than wall time to
+        # other work on a shared machine
+        "cpu_s": max(float(user.group(1)) + float(sys_.group(1)), 1e-2) if user and sys_ else None,
     }
 
 
@@ -76,6 +81,17 @@ def quantiles(xs):
     return f"median {med:.3g} K, 99th percentile {p99:.3g} K, max {xs[-1]:.3g} K"
 
 
+def fmt_cpu(t):
+    return "?" if t.get("cpu_s") is None else f"{t['cpu_s']:.2f}"
+
+
+def cpu_ratio(peer, ours):
+    """Peer CPU seconds over ebullio's for the same work: the per-core ratio, less skewed by load."""
+    if not peer or not ours or peer.get("cpu_s") is None or ours.get("cpu_s") is None:
+        return None
+    return peer["cpu_s"] / ours["cpu_s"]
+
+
 def fmt_rate(r):
     return "not measured" if r is None else f"{r:,.0f}/s"
 
@@ -109,17 +125,18 @@ def main():
     tp = time_report(out, "peer_fit")
     peer_rate = n_sets / tp["wall_s"] if tp else None
     lines += ["## (a) fitting", "", f"{n_sets} compounds, 8-15 points each, 0.5 % noise, 2 % with one gross outlier.", ""]
-    lines += ["| tool | threads | fits/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- |"]
-    lines.append(f"| scipy curve_fit script | 1 | {fmt_rate(peer_rate)} | {tp['rss_mib']:.0f} | {tp['load']} |" if tp else "| scipy curve_fit script | 1 | not measured | |")
+    lines += ["| tool | threads | fits/s | peak MiB | CPU s | load avg before / after |", "| --- | --- | --- | --- | --- | --- |"]
+    lines.append(f"| scipy curve_fit script | 1 | {fmt_rate(peer_rate)} | {tp['rss_mib']:.0f} | {fmt_cpu(tp)} | {tp['load']} |" if tp else "| scipy curve_fit script | 1 | not measured | |")
     fit_rates = {}
     for t in threads:
         te = time_report(out, f"ebullio_fit_t{t}")
         fit_rates[t] = n_sets / te["wall_s"] if te else None
-        lines.append(f"| ebullio fit | {t} | {fmt_rate(fit_rates[t])} | {te['rss_mib']:.0f} | {te['load']} |" if te else f"| ebullio fit | {t} | not measured | |")
+        lines.append(f"| ebullio fit | {t} | {fmt_rate(fit_rates[t])} | {te['rss_mib']:.0f} | {fmt_cpu(te)} | {te['load']} |" if te else f"| ebullio fit | {t} | not measured | |")
     fit_ratio = ratio(fit_rates.get("1"), peer_rate)
     eb = ebullio_fit_tb(os.path.join(r, f"ebullio_fit_t{threads[0]}.csv"))
     both = [k for k in eb if peer.get(k) is not None]
-    lines += ["", f"Ratio (1 thread each): **{fmt_ratio(fit_ratio)}**."]
+    fit_cpu_ratio = cpu_ratio(tp, time_report(out, "ebullio_fit_t1"))
+    lines += ["", f"Ratio (1 thread each): **{fmt_ratio(fit_ratio)}** by wall time, {fmt_ratio(fit_cpu_ratio)} by CPU time."]
     if both:
         lines.append(f"Fitted Tb, ebullio vs scipy on {len(both)} common fits: {quantiles([abs(eb[k] - peer[k]) for k in both])}.")
         lines.append(f"Fitted Tb vs the generating curve: ebullio {quantiles([abs(eb[k] - truth[k]) for k in eb if k in truth])}; "
@@ -128,8 +145,9 @@ def main():
 
     # (b) structure
     lines += ["## (b) structure (Joback groups from SMILES)", ""]
-    lines += ["| set | tool | threads | molecules/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- | --- |"]
+    lines += ["| set | tool | threads | molecules/s | peak MiB | CPU s | load avg before / after |", "| --- | --- | --- | --- | --- | --- | --- |"]
     struct_ratios = {}
+    struct_cpu = {}
     agree_lines = []
     for s in ("small", "drug", "real"):
         if not os.path.exists(os.path.join(d, f"smiles_{s}.csv")):
@@ -137,13 +155,14 @@ def main():
         n = len(rows(os.path.join(d, f"smiles_{s}.csv")))
         tp = time_report(out, f"peer_smarts_{s}")
         pr = n / tp["wall_s"] if tp else None
-        lines.append(f"| {s} ({n}) | RDKit + SMARTS | 1 | {fmt_rate(pr)} | {tp['rss_mib']:.0f} | {tp['load']} |" if tp else f"| {s} | RDKit + SMARTS | 1 | not measured | |")
+        lines.append(f"| {s} ({n}) | RDKit + SMARTS | 1 | {fmt_rate(pr)} | {tp['rss_mib']:.0f} | {fmt_cpu(tp)} | {tp['load']} |" if tp else f"| {s} | RDKit + SMARTS | 1 | not measured | |")
         for t in threads:
             te = time_report(out, f"ebullio_estimate_{s}_t{t}")
             er = n / te["wall_s"] if te else None
             if t == "1":
                 struct_ratios[s] = ratio(er, pr)
-            lines.append(f"| {s} ({n}) | ebullio estimate | {t} | {fmt_rate(er)} | {te['rss_mib']:.0f} | {te['load']} |" if te else f"| {s} | ebullio estimate | {t} | not measured | |")
+                struct_cpu[s] = cpu_ratio(tp, te)
+            lines.append(f"| {s} ({n}) | ebullio estimate | {t} | {fmt_rate(er)} | {te['rss_mib']:.0f} | {fmt_cpu(te)} | {te['load']} |" if te else f"| {s} | ebullio estimate | {t} | not measured | |")
         pe = rows(os.path.join(r, f"peer_smarts_{s}.csv"))
         ee = rows(os.path.join(r, f"ebullio_estimate_{s}_t{threads[0]}.csv"))
         if pe and ee and len(pe) == len(ee):
@@ -154,7 +173,8 @@ def main():
             agree_lines.append(f"{s}: RDKit script gave a Joback Tb for {sum(v is not None for v in pv)}, ebullio for "
                                f"{sum(v is not None for v in ev)} of {n}; of {len(common)} given by both, {same} agree within 0.01 K.")
     src = os.path.join(d, "smiles_drug.source")
-    lines += ["", "Ratios (1 thread each): " + ", ".join(f"{s} **{fmt_ratio(v)}**" for s, v in struct_ratios.items()) + "."]
+    lines += ["", "Ratios (1 thread each, wall time): " + ", ".join(f"{s} **{fmt_ratio(v)}**" for s, v in struct_ratios.items())
+              + "; by CPU time: " + ", ".join(f"{s} {fmt_ratio(v)}" for s, v in struct_cpu.items()) + "."]
     if os.path.exists(src):
         lines.append(f"Drug-sized set: {open(src).read().strip()}.")
     src = os.path.join(d, "smiles_real.source")
@@ -162,36 +182,54 @@ def main():
         lines.append(f"Real set: {open(src).read().strip()}.")
     lines += agree_lines + [""]
 
-    # (c) tables
-    n = len(rows(os.path.join(d, "table.csv")))
-    lines += ["## (c) tables", "", f"{n} rows (compound, smiles, Tb/K, A, B, C, convention).", ""]
-    lines += ["| tool | threads | rows/s | peak MiB | load avg before / after |", "| --- | --- | --- | --- | --- |"]
+    # (c) tables: with SMILES (every check) and without (the columns the polars pipeline reads)
+    lines += ["## (c) tables", ""]
     table_rates = {}
-    for t in threads:
-        for tool, name in (("polars pipeline", f"peer_table_t{t}"), ("ebullio check", f"ebullio_check_t{t}")):
-            tr = time_report(out, name)
-            table_rates[name] = n / tr["wall_s"] if tr else None
-            lines.append(f"| {tool} | {t} | {fmt_rate(table_rates[name])} | {tr['rss_mib']:.0f} | {tr['load']} |" if tr else f"| {tool} | {t} | not measured | |")
+    table_ratios = {}
+    table_cpus = {}
     tmax = threads[-1]
-    table_ratio = ratio(table_rates.get(f"ebullio_check_t{tmax}"), table_rates.get(f"peer_table_t{tmax}"))
-    lines += ["", f"Ratio ebullio/polars ({tmax} threads each; above 1 means ebullio is faster): **{fmt_ratio(table_ratio)}**. "
-              "ebullio check also runs the structure, Trouton and duplicate checks the polars pipeline does not."]
-    pe = rows(os.path.join(r, f"peer_table_t{tmax}.csv"))
-    ee = rows(os.path.join(r, f"ebullio_check_t{tmax}.csv"))
-    if pe and ee and len(pe) == len(ee):
-        pf = sum(1 for x in pe if x.get("flags"))
-        ef = sum(1 for x in ee if x.get("flags"))
-        lines.append(f"Rows flagged: polars pipeline {pf}, ebullio check {ef} (ebullio runs more checks).")
+    for tab, what in (("table", "compound, smiles, Tb/K, A, B, C, convention: every check, structure estimates included"),
+                      ("table_nosmiles", "the same rows without smiles: both tools check Tb against the Antoine constants")):
+        if not os.path.exists(os.path.join(d, f"{tab}.csv")):
+            continue
+        n = len(rows(os.path.join(d, f"{tab}.csv")))
+        lines += [f"`{tab}.csv`, {n} rows ({what}).", ""]
+        lines += ["| tool | threads | rows/s | peak MiB | CPU s | load avg before / after |", "| --- | --- | --- | --- | --- | --- |"]
+        for t in threads:
+            for tool, name in (("polars pipeline", f"peer_{tab}_t{t}"), ("ebullio check", f"ebullio_check_{tab}_t{t}")):
+                tr = time_report(out, name)
+                table_rates[name] = n / tr["wall_s"] if tr else None
+                lines.append(f"| {tool} | {t} | {fmt_rate(table_rates[name])} | {tr['rss_mib']:.0f} | {fmt_cpu(tr)} | {tr['load']} |" if tr else f"| {tool} | {t} | not measured | |")
+        table_ratios[tab] = ratio(table_rates.get(f"ebullio_check_{tab}_t{tmax}"), table_rates.get(f"peer_{tab}_t{tmax}"))
+        table_cpus[tab] = cpu_ratio(time_report(out, f"peer_{tab}_t{tmax}"), time_report(out, f"ebullio_check_{tab}_t{tmax}"))
+        lines += ["", f"Ratio ebullio/polars ({tmax} threads each; above 1 means ebullio is faster): **{fmt_ratio(table_ratios[tab])}** "
+                  f"({fmt_ratio(table_cpus[tab])} by CPU time)."]
+        pe = rows(os.path.join(r, f"peer_{tab}_t{tmax}.csv"))
+        ee = rows(os.path.join(r, f"ebullio_check_{tab}_t{tmax}.csv"))
+        if pe and ee and len(pe) == len(ee):
+            pf = sum(1 for x in pe if x.get("flags"))
+            ef = sum(1 for x in ee if x.get("flags"))
+            lines.append(f"Rows flagged: polars pipeline {pf}, ebullio check {ef}.")
+        lines.append("")
+    table_ratio = table_ratios.get("table")
+    table_cpu = table_cpus.get("table")
     lines += ["", "## ratios", ""]
-    lines.append(f"fitting {fmt_ratio(fit_ratio)}; structure small {fmt_ratio(struct_ratios.get('small'))}, "
-                 f"drug-sized {fmt_ratio(struct_ratios.get('drug'))}, real drug-like {fmt_ratio(struct_ratios.get('real'))}; tables {fmt_ratio(table_ratio)}")
+    lines.append("By wall time: ")
+    lines[-1] += (f"fitting {fmt_ratio(fit_ratio)}; structure small {fmt_ratio(struct_ratios.get('small'))}, "
+                 f"drug-sized {fmt_ratio(struct_ratios.get('drug'))}, real drug-like {fmt_ratio(struct_ratios.get('real'))}; tables {fmt_ratio(table_ratio)} "
+                 f"(without SMILES {fmt_ratio(table_ratios.get('table_nosmiles'))}).")
+    lines.append(f"By CPU time: fitting {fmt_ratio(fit_cpu_ratio)}; structure small {fmt_ratio(struct_cpu.get('small'))}, "
+                 f"drug-sized {fmt_ratio(struct_cpu.get('drug'))}, real drug-like {fmt_ratio(struct_cpu.get('real'))}; "
+                 f"tables {fmt_ratio(table_cpu)} (without SMILES {fmt_ratio(table_cpus.get('table_nosmiles'))}).")
     if len(threads) > 1:
         t0, t1 = threads[0], threads[-1]
         scal = []
         for label, a, b in (
             ("ebullio fit", fit_rates.get(t0), fit_rates.get(t1)),
-            ("ebullio check", table_rates.get(f"ebullio_check_t{t0}"), table_rates.get(f"ebullio_check_t{t1}")),
+            ("ebullio check", table_rates.get(f"ebullio_check_table_t{t0}"), table_rates.get(f"ebullio_check_table_t{t1}")),
             ("polars pipeline", table_rates.get(f"peer_table_t{t0}"), table_rates.get(f"peer_table_t{t1}")),
+            ("ebullio check without SMILES", table_rates.get(f"ebullio_check_table_nosmiles_t{t0}"),
+             table_rates.get(f"ebullio_check_table_nosmiles_t{t1}")),
         ):
             scal.append(f"{label} {fmt_ratio(ratio(b, a))}")
         for st in ("small", "drug", "real"):
