@@ -48,13 +48,9 @@ pub fn check_fit(
         findings: Vec::new(),
     };
     let name = name.or(report.compound.as_deref());
-    let found = match (
-        name.map(|n| lib.find(n)),
-        smiles.map(|s| lib.find_smiles(s)),
-    ) {
-        (Some(Ok(c)), _) | (_, Some(Ok(c))) => Some(c),
-        _ => None,
-    };
+    let found = name
+        .and_then(|n| lib.get(n))
+        .or_else(|| smiles.and_then(|s| lib.find_smiles(s).ok()));
     match found {
         Some(c) => {
             out.reference = compare(&curve, range, c, tol);

@@ -131,6 +131,8 @@ pub struct Library {
     index: BTreeMap<String, usize>,
     /// The user's table, if one was added.
     pub user_table: Option<String>,
+    /// Structure key of each compound's SMILES, made on the first structure lookup.
+    keys: OnceLock<Vec<Option<String>>>,
 }
 
 fn key(name: &str) -> String {
@@ -240,6 +242,22 @@ impl Library {
         &self.compounds
     }
 
+    /// Like [`find`](Self::find) but without building the error (no suggestions): for batch
+    /// callers that only need to know whether there is a reference compound.
+    pub fn get(&self, query: &str) -> Option<&Compound> {
+        let q = query.trim();
+        let cas_like =
+            !q.is_empty() && q.chars().all(|c| c.is_ascii_digit() || c == '-') && q.contains('-');
+        if cas_like {
+            let cas = cas::validate(q).ok()?;
+            return self
+                .compounds
+                .iter()
+                .find(|c| c.cas.as_deref() == Some(cas.as_str()));
+        }
+        self.index.get(&key(q)).map(|&i| &self.compounds[i])
+    }
+
     /// Find by name or synonym (case-insensitive), or by CAS number when the
     /// query looks like one (digits-digits-digit; the check digit is validated).
     pub fn find(&self, query: &str) -> Result<&Compound, LookupError> {
@@ -281,14 +299,15 @@ impl Library {
             smiles: smiles.to_string(),
             reason,
         })?;
-        self.compounds
-            .iter()
-            .find(|c| {
-                c.smiles
-                    .as_deref()
-                    .and_then(|s| structure_key(s).ok())
-                    .is_some_and(|ck| ck == k)
-            })
+        let keys = self.keys.get_or_init(|| {
+            self.compounds
+                .iter()
+                .map(|c| c.smiles.as_deref().and_then(|s| structure_key(s).ok()))
+                .collect()
+        });
+        keys.iter()
+            .position(|ck| ck.as_deref() == Some(k.as_str()))
+            .map(|i| &self.compounds[i])
             .ok_or_else(|| LookupError::NotFound {
                 query: smiles.to_string(),
                 near: Vec::new(),
