@@ -3,16 +3,39 @@
 use crate::estimate::batch::EstimateRow;
 use crate::estimate::Estimate;
 
-fn opt(v: Option<f64>, digits: usize) -> String {
-    v.map_or(String::new(), |x| format!("{x:.digits$}"))
+use std::fmt::Write as _;
+
+/// Writes fields through one reused text buffer (no String per cell).
+struct Fields<'a> {
+    w: &'a mut csv::Writer<Vec<u8>>,
+    buf: String,
 }
 
-fn groups_text(e: &Estimate) -> String {
-    e.groups
-        .iter()
-        .map(|(k, v)| format!("{k}={v}"))
-        .collect::<Vec<_>>()
-        .join(";")
+impl Fields<'_> {
+    fn text(&mut self, s: &str) -> Result<(), csv::Error> {
+        self.w.write_field(s)
+    }
+
+    fn num(&mut self, v: Option<f64>, digits: usize) -> Result<(), csv::Error> {
+        self.buf.clear();
+        if let Some(x) = v {
+            let _ = write!(self.buf, "{x:.digits$}");
+        }
+        self.w.write_field(&self.buf)
+    }
+
+    fn groups(&mut self, e: &Estimate) -> Result<(), csv::Error> {
+        self.buf.clear();
+        for (i, (k, v)) in e.groups.iter().enumerate() {
+            let sep = if i == 0 { "" } else { ";" };
+            let _ = write!(self.buf, "{sep}{k}={v}");
+        }
+        self.w.write_field(&self.buf)
+    }
+
+    fn end(&mut self) -> Result<(), csv::Error> {
+        self.w.write_record(None::<&[u8]>)
+    }
 }
 
 /// The rows as CSV text, one column `t_k_at_<p>_pa` per pressure in `ps` (Pa).
@@ -49,45 +72,51 @@ pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Er
     head.push("anchored_tb_k".into());
     head.push("error".into());
     w.write_record(&head)?;
+    let mut f = Fields {
+        w: &mut w,
+        buf: String::with_capacity(64),
+    };
     for r in rows {
-        let mut rec: Vec<String> = vec![r.compound.clone().unwrap_or_default()];
+        f.text(r.compound.as_deref().unwrap_or_default())?;
         match &r.estimate {
             Some(e) => {
-                rec.push(e.smiles.clone().unwrap_or_default());
-                rec.push(e.formula.clone().unwrap_or_default());
+                f.text(e.smiles.as_deref().unwrap_or_default())?;
+                f.text(e.formula.as_deref().unwrap_or_default())?;
                 for v in [
-                    Some(e.tb_k),
-                    Some(e.tb_pi90_low_k),
-                    Some(e.tb_pi90_high_k),
-                    Some(e.tb_typical_error_k),
-                    Some(e.tb_joback_k),
-                    Some(e.tb_stein_brown_k),
+                    e.tb_k,
+                    e.tb_pi90_low_k,
+                    e.tb_pi90_high_k,
+                    e.tb_typical_error_k,
+                    e.tb_joback_k,
+                    e.tb_stein_brown_k,
                 ] {
-                    rec.push(opt(v, 2));
+                    f.num(Some(v), 2)?;
                 }
-                rec.push(e.tb_variant.name().into());
-                rec.push(opt(e.tm_k, 2));
-                rec.push(opt(e.tc_k, 2));
-                rec.push(opt(e.pc_bar, 3));
-                rec.push(opt(e.vc_cm3_mol, 1));
-                rec.push(opt(e.hf_kj_mol, 2));
-                rec.push(opt(e.gf_kj_mol, 2));
-                rec.push(opt(e.hvap_tb_kj_mol, 3));
-                rec.push(opt(e.hfus_kj_mol, 3));
-                rec.push(opt(e.omega, 4));
-                rec.push(groups_text(e));
+                f.text(e.tb_variant.name())?;
+                f.num(e.tm_k, 2)?;
+                f.num(e.tc_k, 2)?;
+                f.num(e.pc_bar, 3)?;
+                f.num(e.vc_cm3_mol, 1)?;
+                f.num(e.hf_kj_mol, 2)?;
+                f.num(e.gf_kj_mol, 2)?;
+                f.num(e.hvap_tb_kj_mol, 3)?;
+                f.num(e.hfus_kj_mol, 3)?;
+                f.num(e.omega, 4)?;
+                f.groups(e)?;
             }
             None => {
-                rec.push(r.smiles_given.clone().unwrap_or_default());
-                rec.extend(std::iter::repeat_n(String::new(), 18));
+                f.text(r.smiles_given.as_deref().unwrap_or_default())?;
+                for _ in 0..18 {
+                    f.text("")?;
+                }
             }
         }
         for k in 0..ps.len() {
-            rec.push(opt(r.at.get(k).and_then(|a| a.t_k), 2));
+            f.num(r.at.get(k).and_then(|a| a.t_k), 2)?;
         }
-        rec.push(opt(r.anchored.as_ref().map(|a| a.tb_k), 2));
-        rec.push(r.error.clone());
-        w.write_record(&rec)?;
+        f.num(r.anchored.as_ref().map(|a| a.tb_k), 2)?;
+        f.text(&r.error)?;
+        f.end()?;
     }
     let bytes = w
         .into_inner()
