@@ -40,7 +40,8 @@ impl Fields<'_> {
 
 /// The rows as CSV text, one column `t_k_at_<p>_pa` per pressure in `ps` (Pa).
 pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Error> {
-    let mut w = csv::Writer::from_writer(Vec::new());
+    // About 200 bytes a row: sized once so the buffer is not regrown and copied.
+    let mut w = csv::Writer::from_writer(Vec::with_capacity(1024 + 200 * rows.len()));
     let mut head: Vec<String> = [
         "compound",
         "smiles",
@@ -121,5 +122,7 @@ pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Er
     let bytes = w
         .into_inner()
         .map_err(|e| csv::Error::from(e.into_error()))?;
-    Ok(String::from_utf8_lossy(&bytes).into_owned())
+    // Every field written was a &str, so the bytes are UTF-8; no lossy copy is needed.
+    Ok(String::from_utf8(bytes)
+        .unwrap_or_else(|e| String::from_utf8_lossy(e.as_bytes()).into_owned()))
 }
