@@ -208,10 +208,5 @@ pub fn write_report(
 ) -> anyhow::Result<()> {
     let mut refuse: Vec<&Path> = inputs.to_vec();
     refuse.extend(output);
-    // Like `emit`: an interrupt waits for the rename, so no partial report is left.
-    let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
-    let r = ebullio::table_io::write_atomic(path, html.as_bytes(), &refuse)
-        .with_context(|| format!("writing the report {}", path.display()));
-    *written = r.is_ok();
-    r
+    write_file_atomic(path, &refuse, |w| w.write_all(html.as_bytes()))
 }

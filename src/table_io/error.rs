@@ -147,6 +147,15 @@ impl ReadError {
         .at_line(line, Locus::Line)
     }
 
+    /// A text table with no header line.
+    pub fn no_header(file: impl Into<PathBuf>) -> Self {
+        Self::file(
+            file,
+            ReadErrorKind::EmptyFile,
+            "the file has no header line",
+        )
+    }
+
     /// Attach a line (or row).
     pub fn at_line(mut self, line: u64, locus: Locus) -> Self {
         self.line = Some(line);

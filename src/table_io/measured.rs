@@ -167,13 +167,7 @@ fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, Re
             }
         }
     }
-    let headers = headers.ok_or_else(|| {
-        ReadError::file(
-            path,
-            ReadErrorKind::EmptyFile,
-            "the file has no header line",
-        )
-    })?;
+    let headers = headers.ok_or_else(|| ReadError::no_header(path))?;
     Ok(RawTable {
         headers,
         rows,

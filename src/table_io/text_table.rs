@@ -156,13 +156,7 @@ fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
             }),
         }
     }
-    let headers = headers.ok_or_else(|| {
-        ReadError::file(
-            path,
-            ReadErrorKind::EmptyFile,
-            "the file has no header line",
-        )
-    })?;
+    let headers = headers.ok_or_else(|| ReadError::no_header(path))?;
     Ok(TextTable {
         path: path.to_path_buf(),
         headers,
