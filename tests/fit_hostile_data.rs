@@ -11,10 +11,10 @@
 //!   Thermodynamics*, App. B Table B.2), used far outside its range as an exact
 //!   curve: a test of the fitter's numerics, not of toluene.
 
+use crate::support::{run_in, scratch};
+
 use ebullio::fit::{fit_points, FitError, FitOptions, FitReport, ModelSelection, Point};
 use ebullio::reference::water::{ps_pa, P_MAX_PA, T_MAX_K};
-use std::path::Path;
-use std::process::{Command, Output};
 
 fn pt(t_k: f64, p_pa: f64) -> Point {
     Point {
@@ -55,14 +55,6 @@ fn codes(r: &FitReport) -> Vec<&str> {
     r.flags.iter().map(|f| f.code.as_str()).collect()
 }
 
-fn ebullio(dir: &Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-        .current_dir(dir)
-        .args(args)
-        .output()
-        .expect("binary runs")
-}
-
 fn csv(points: &[Point]) -> String {
     let mut s = String::from("T/K,p/Pa\n");
     for p in points {
@@ -73,9 +65,9 @@ fn csv(points: &[Point]) -> String {
 
 /// Runs `fit` on `text` and expects exit 2 with each of `needles` in stderr and no output file.
 fn cli_refuses(text: &str, needles: &[&str]) {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("d.csv"), text).unwrap();
-    let out = ebullio(dir.path(), &["fit", "d.csv", "--output", "out.json"]);
+    let out = run_in(dir.path(), &["fit", "d.csv", "--output", "out.json"]);
     let err = String::from_utf8_lossy(&out.stderr);
     assert_eq!(out.status.code(), Some(2), "{err}");
     assert!(err.contains("d.csv"), "file not named: {err}");
@@ -87,11 +79,11 @@ fn cli_refuses(text: &str, needles: &[&str]) {
 }
 
 fn cli_json(text: &str, extra: &[&str]) -> (serde_json::Value, String) {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("d.csv"), text).unwrap();
     let mut args = vec!["fit", "d.csv", "--format", "json"];
     args.extend_from_slice(extra);
-    let out = ebullio(dir.path(), &args);
+    let out = run_in(dir.path(), &args);
     let err = String::from_utf8_lossy(&out.stderr).to_string();
     assert!(out.status.success(), "{err}");
     (serde_json::from_slice(&out.stdout).unwrap(), err)

@@ -1,29 +1,10 @@
 //! IAPWS-IF97 saturation line of water (IAPWS R7-97(2012), region 4, Eq. 30):
 //! generated points refitted by each equation; see reference-data/IAPWS-IF97-saturation.md.
 
+// The one copy of the IF97 coefficients is the library's (src/reference/water.rs).
+use ebullio::reference::water::ps_pa as ps_if97;
+
 use ebullio::fit::{fit_points, FitOptions, FitReport, ModelSelection, Point};
-
-const N: [f64; 10] = [
-    1167.0521452767,
-    -724213.16703206,
-    -17.073846940092,
-    12020.824702470,
-    -3232555.0322333,
-    14.915108613530,
-    -4823.2657361591,
-    405113.40542057,
-    -0.23855557567849,
-    650.17534844798,
-];
-
-/// IAPWS-IF97 Eq. 30: saturation pressure (Pa) at T (K).
-fn ps_if97(t: f64) -> f64 {
-    let th = t + N[8] / (t - N[9]);
-    let a = th * th + N[0] * th + N[1];
-    let b = N[2] * th * th + N[3] * th + N[4];
-    let c = N[5] * th * th + N[6] * th + N[7];
-    (2.0 * c / (-b + (b * b - 4.0 * a * c).sqrt())).powi(4) * 1e6
-}
 
 // IAPWS-IF97 Table 35 verification values (ps in MPa), to the 9 published digits.
 #[test]

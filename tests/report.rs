@@ -1,25 +1,6 @@
 //! `--report FILE.html` on fit, estimate and check: runs the real binary on real files and scans the HTML.
 
-use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
-
-fn bin() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
-
-fn repo(p: &str) -> PathBuf {
-    Path::new(env!("CARGO_MANIFEST_DIR")).join(p)
-}
-
-fn ok(o: &Output) {
-    assert!(
-        o.status.success(),
-        "exit {:?}\nstdout: {}\nstderr: {}",
-        o.status.code(),
-        String::from_utf8_lossy(&o.stdout),
-        String::from_utf8_lossy(&o.stderr)
-    );
-}
+use crate::support::{ebullio, ok, repo, scratch};
 
 /// Headings h1–h4 in document order (a plain scan: the builder writes `<hN>text</hN>`).
 fn headings(html: &str) -> Vec<String> {
@@ -89,9 +70,9 @@ fn assert_command_line(html: &str, parts: &[&str]) {
 
 #[test]
 fn fit_report_has_plots_constants_boiling_points_reference_and_the_command() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let html_path = dir.path().join("fit report.html");
-    let o = bin()
+    let o = ebullio()
         .arg("fit")
         .arg(repo("reference-data/demo/ebulliometer-2026.csv"))
         .args(["--at", "20 mbar", "--format", "json", "--report"])
@@ -147,9 +128,9 @@ fn fit_report_has_plots_constants_boiling_points_reference_and_the_command() {
 
 #[test]
 fn estimate_report_has_group_breakdown_intervals_and_curves() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let html_path = dir.path().join("est.html");
-    let o = bin()
+    let o = ebullio()
         .args([
             "estimate",
             "--smiles",
@@ -192,13 +173,13 @@ fn estimate_report_has_group_breakdown_intervals_and_curves() {
 
 #[test]
 fn check_report_lists_counts_per_finding_and_flagged_rows_with_diagnoses() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     // The invented supplier table of the demo, read as shipped (its two `#` provenance
     // lines count in the line numbers); reference-data/demo/README.md lists its planted faults.
     let table = repo("reference-data/demo/supplier-properties.csv");
     let html_path = dir.path().join("check.html");
     let out = dir.path().join("checked.csv");
-    let o = bin()
+    let o = ebullio()
         .arg("check")
         .arg(&table)
         .arg("-o")
@@ -246,11 +227,11 @@ fn check_report_lists_counts_per_finding_and_flagged_rows_with_diagnoses() {
 
 #[test]
 fn report_refuses_to_overwrite_an_input_or_the_output() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let data = dir.path().join("data.csv");
     std::fs::copy(repo("reference-data/demo/ebulliometer-2026.csv"), &data).unwrap();
     let before = std::fs::read(&data).unwrap();
-    let o = bin()
+    let o = ebullio()
         .arg("fit")
         .arg(&data)
         .args(["--format", "json", "--report"])
@@ -261,7 +242,7 @@ fn report_refuses_to_overwrite_an_input_or_the_output() {
     assert!(String::from_utf8_lossy(&o.stderr).contains("input"));
     assert_eq!(std::fs::read(&data).unwrap(), before);
     let out = dir.path().join("fit.json");
-    let o = bin()
+    let o = ebullio()
         .arg("fit")
         .arg(&data)
         .args(["--format", "json", "-o"])

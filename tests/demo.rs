@@ -1,16 +1,16 @@
 //! `ebullio demo`: runs the real binary in a scratch folder and checks the report is self-contained.
 
-use std::process::Command;
-
-fn bin() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
+use crate::support::{ebullio, scratch};
 
 #[test]
 fn demo_writes_a_self_contained_report_with_svg_plots() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let out = dir.path().join("demo");
-    let o = bin().args(["demo", "--output"]).arg(&out).output().unwrap();
+    let o = ebullio()
+        .args(["demo", "--output"])
+        .arg(&out)
+        .output()
+        .unwrap();
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     let stdout = String::from_utf8_lossy(&o.stdout);
     assert!(stdout.contains("20 mbar") && stdout.contains("never distill to dryness"));
@@ -41,16 +41,16 @@ fn demo_writes_a_self_contained_report_with_svg_plots() {
 
 #[test]
 fn demo_refuses_a_non_empty_folder_without_force() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("keep.txt"), "x").unwrap();
-    let o = bin()
+    let o = ebullio()
         .args(["demo", "--output"])
         .arg(dir.path())
         .output()
         .unwrap();
     assert_eq!(o.status.code(), Some(2));
     assert!(dir.path().join("keep.txt").exists());
-    let o = bin()
+    let o = ebullio()
         .args(["demo", "--force", "--output"])
         .arg(dir.path())
         .output()
@@ -81,9 +81,13 @@ fn fields(line: &str) -> Vec<String> {
 
 #[test]
 fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let out = dir.path().join("demo");
-    let o = bin().args(["demo", "--output"]).arg(&out).output().unwrap();
+    let o = ebullio()
+        .args(["demo", "--output"])
+        .arg(&out)
+        .output()
+        .unwrap();
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
     let stdout = String::from_utf8_lossy(&o.stdout);
     assert!(

@@ -1,20 +1,6 @@
 //! `ebullio convert` run as a real binary: exact unit changes and refits into other forms.
 
-use std::process::Command;
-
-fn json(args: &[&str]) -> serde_json::Value {
-    let out = Command::new(env!("CARGO_BIN_EXE_ebullio"))
-        .args(args)
-        .args(["--format", "json"])
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    serde_json::from_slice(&out.stdout).unwrap()
-}
+use crate::support::{ebullio, json};
 
 // Smith, Van Ness & Abbott B.2 acetone (ln kPa degC, -26..77 degC).
 #[test]
@@ -37,7 +23,7 @@ fn svna_acetone_exact_and_refit() {
     assert_eq!(v["exact"], false);
     assert_eq!(v["parameters"].as_array().unwrap().len(), 4);
     assert!(v["max_rel_dev_pct"].as_f64().unwrap() < 0.5);
-    let out = Command::new(env!("CARGO_BIN_EXE_ebullio"))
+    let out = ebullio()
         .args(base)
         .args(["--model", "riedel"])
         .output()

@@ -1,16 +1,9 @@
 //! `ebullio fit` through the real binary: good data, reference comparison, and
 //! every bad-input case (exit 2, file and line named, no panic, no output file).
 
-use std::path::Path;
-use std::process::{Command, Output};
+use crate::support::{ebullio, run_in, scratch};
 
-fn ebullio(dir: &Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-        .current_dir(dir)
-        .args(args)
-        .output()
-        .expect("binary runs")
-}
+use std::path::Path;
 
 /// Points generated from the published toluene row ln(p/kPa) = 13.9320 −
 /// 3056.96/(t/°C + 217.625) (Smith, Van Ness & Abbott, App. B Table B.2).
@@ -37,10 +30,10 @@ fn codes(json: &serde_json::Value) -> Vec<String> {
 // with the bundled reference; the same points 5 % high in p disagree.
 #[test]
 fn svna_toluene_fit_matches_reference_and_shifted_data_does_not() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("good.csv"), toluene_csv(1.0)).unwrap();
     std::fs::write(dir.path().join("high.csv"), toluene_csv(1.05)).unwrap();
-    let out = ebullio(dir.path(), &["fit", "good.csv", "--format", "json"]);
+    let out = run_in(dir.path(), &["fit", "good.csv", "--format", "json"]);
     assert!(
         out.status.success(),
         "{}",
@@ -52,7 +45,7 @@ fn svna_toluene_fit_matches_reference_and_shifted_data_does_not() {
     assert!(!codes(&j)
         .iter()
         .any(|c| c.starts_with("reference-") && c.ends_with("disagrees")));
-    let out = ebullio(dir.path(), &["fit", "high.csv", "--format", "json"]);
+    let out = run_in(dir.path(), &["fit", "high.csv", "--format", "json"]);
     let j: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
     assert!(
         codes(&j)
@@ -65,16 +58,16 @@ fn svna_toluene_fit_matches_reference_and_shifted_data_does_not() {
 
 #[test]
 fn csv_output_and_refusal_to_overwrite_input() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("d.csv"), toluene_csv(1.0)).unwrap();
-    let out = ebullio(dir.path(), &["fit", "d.csv", "--output", "fit.csv"]);
+    let out = run_in(dir.path(), &["fit", "d.csv", "--output", "fit.csv"]);
     assert!(out.status.success());
     let text = std::fs::read_to_string(dir.path().join("fit.csv")).unwrap();
     assert!(
         text.lines().count() == 2 && text.contains("toluene"),
         "{text}"
     );
-    let out = ebullio(
+    let out = run_in(
         dir.path(),
         &["fit", "d.csv", "--output", "d.csv", "--format", "json"],
     );
@@ -140,11 +133,11 @@ const BAD: &[(&str, &[u8], &str)] = &[
 
 #[test]
 fn every_bad_input_exits_2_naming_file_and_line_with_no_output() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     for (name, bytes, needle) in BAD {
         let file = format!("{name}.csv");
         std::fs::write(dir.path().join(&file), bytes).unwrap();
-        let out = ebullio(dir.path(), &["fit", &file, "--output", "out.json"]);
+        let out = run_in(dir.path(), &["fit", &file, "--output", "out.json"]);
         let err = String::from_utf8_lossy(&out.stderr);
         assert_eq!(out.status.code(), Some(2), "{name}: {err}");
         assert!(err.contains(&file), "{name}: file not named: {err}");
@@ -157,7 +150,7 @@ fn every_bad_input_exits_2_naming_file_and_line_with_no_output() {
     }
     // a path that does not exist, and a directory
     for (arg, needle) in [("missing.csv", "no such file"), (".", "directory")] {
-        let out = ebullio(dir.path(), &["fit", arg, "--output", "out.json"]);
+        let out = run_in(dir.path(), &["fit", arg, "--output", "out.json"]);
         let err = String::from_utf8_lossy(&out.stderr);
         assert_eq!(out.status.code(), Some(2), "{arg}: {err}");
         assert!(err.contains(needle), "{arg}: {err}");
@@ -167,16 +160,16 @@ fn every_bad_input_exits_2_naming_file_and_line_with_no_output() {
 
 #[test]
 fn bom_stdin_decimal_comma_and_duplicate_rows_are_accepted() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let mut bom = b"\xef\xbb\xbf".to_vec();
     bom.extend_from_slice(toluene_csv(1.0).as_bytes());
     std::fs::write(dir.path().join("bom.csv"), bom).unwrap();
-    assert!(ebullio(dir.path(), &["fit", "bom.csv", "--format", "json"])
+    assert!(run_in(dir.path(), &["fit", "bom.csv", "--format", "json"])
         .status
         .success());
     let semi = toluene_csv(1.0).replace(',', ";").replace('.', ",");
     std::fs::write(dir.path().join("semi.csv"), semi).unwrap();
-    let out = ebullio(
+    let out = run_in(
         dir.path(),
         &["fit", "semi.csv", "--decimal-comma", "--format", "json"],
     );
@@ -189,10 +182,10 @@ fn bom_stdin_decimal_comma_and_duplicate_rows_are_accepted() {
     dup.push_str(dup.clone().lines().last().unwrap());
     dup.push('\n');
     std::fs::write(dir.path().join("dup.csv"), dup).unwrap();
-    let out = ebullio(dir.path(), &["fit", "dup.csv", "--format", "json"]);
+    let out = run_in(dir.path(), &["fit", "dup.csv", "--format", "json"]);
     assert!(out.status.success());
     assert!(String::from_utf8_lossy(&out.stderr).contains("repeated-row"));
-    let mut child = Command::new(env!("CARGO_BIN_EXE_ebullio"))
+    let mut child = ebullio()
         .args(["fit", "-", "--format", "json"])
         .stdin(std::process::Stdio::piped())
         .stdout(std::process::Stdio::piped())
@@ -241,7 +234,7 @@ fn toluene_columns() -> (Vec<String>, Vec<f64>, Vec<f64>) {
 #[test]
 fn svna_toluene_parquet_gives_the_csv_fit() {
     use polars::prelude::Column;
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     std::fs::write(dir.path().join("d.csv"), toluene_csv(1.0)).unwrap();
     let (names, t, p) = toluene_columns();
     write_parquet(
@@ -253,7 +246,7 @@ fn svna_toluene_parquet_gives_the_csv_fit() {
         ],
     );
     let run = |file: &str| -> serde_json::Value {
-        let out = ebullio(dir.path(), &["fit", file, "--format", "json"]);
+        let out = run_in(dir.path(), &["fit", file, "--format", "json"]);
         assert!(
             out.status.success(),
             "{file}: {}",
@@ -282,7 +275,7 @@ fn svna_toluene_parquet_gives_the_csv_fit() {
 #[test]
 fn parquet_with_a_text_pressure_column_exits_2_naming_the_column() {
     use polars::prelude::Column;
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let (_, t, p) = toluene_columns();
     let p_text: Vec<String> = p.iter().map(|v| format!("{v} kPa")).collect();
     write_parquet(
@@ -292,7 +285,7 @@ fn parquet_with_a_text_pressure_column_exits_2_naming_the_column() {
             Column::new("p/kPa".into(), p_text),
         ],
     );
-    let out = ebullio(dir.path(), &["fit", "bad.parquet", "--output", "out.json"]);
+    let out = run_in(dir.path(), &["fit", "bad.parquet", "--output", "out.json"]);
     let err = String::from_utf8_lossy(&out.stderr);
     assert_eq!(out.status.code(), Some(2), "{err}");
     for needle in ["bad.parquet", "p/kPa", "numeric"] {

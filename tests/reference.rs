@@ -1,10 +1,6 @@
 //! `ebullio reference` run as a real binary in a scratch folder.
 
-use std::process::Command;
-
-fn ebullio() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
+use crate::support::{ebullio, scratch};
 
 #[test]
 fn list_filter_and_show_by_synonym_and_smiles() {
@@ -43,7 +39,7 @@ fn cas_lookup_with_user_table_and_bad_check_digit() {
     let out = ebullio().args(["reference", "64-17-4"]).output().unwrap();
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("give 5"));
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let t = dir.path().join("mine.csv");
     std::fs::write(
         &t,

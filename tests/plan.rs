@@ -1,29 +1,11 @@
 //! `ebullio plan` run as a real binary in a scratch folder.
 
-use std::process::Command;
-
-fn ebullio() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
+use crate::support::{ebullio, json, scratch};
 
 // Benzene and toluene, Smith, Van Ness & Abbott, Introduction to Chemical
 // Engineering Thermodynamics, App. B Table B.2 (reference-data/antoine-published.csv).
 const BZ: &str = "benzene:13.7819,2726.81,217.572";
 const TOL: &str = "toluene:13.9320,3056.96,217.625";
-
-fn json(args: &[&str]) -> serde_json::Value {
-    let out = ebullio()
-        .args(args)
-        .args(["--format", "json"])
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    serde_json::from_slice(&out.stdout).unwrap()
-}
 
 /// α of benzene–toluene at 101.325 kPa from SVNA App. B constants lies in
 /// the commonly quoted 2.3–2.6 (common practice); the JSON has the DESIGN.md fields.
@@ -120,7 +102,7 @@ fn separate_purities_change_the_stage_count() {
 
 #[test]
 fn table_csv_and_plot_are_written() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let svg = dir.path().join("plan.svg");
     let csv = dir.path().join("plan.csv");
     let out = ebullio()
@@ -273,7 +255,7 @@ fn bad_input_exits_2_with_a_clear_message() {
 
 #[test]
 fn a_non_fit_json_file_is_refused_with_line_and_column() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let f = dir.path().join("fit.json");
     std::fs::write(&f, "{\n  \"compound\": 3\n}\n").unwrap();
     let out = ebullio()
@@ -316,7 +298,7 @@ fn fit_result_file_is_a_component_with_fit_uncertainty() {
         })
         .collect();
     let report = fit_points(Some("benzene".into()), &pts, &FitOptions::default()).unwrap();
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let f = dir.path().join("fit.json");
     std::fs::write(&f, serde_json::to_string(&report).unwrap()).unwrap();
     let v = json(&[

@@ -1,19 +1,12 @@
 //! `ebullio check` end to end: the real binary on real files in a scratch folder.
 
-use std::path::{Path, PathBuf};
-use std::process::Command;
+use crate::support::{ebullio, repo, scratch};
 
-fn bin() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
-
-fn repo(p: &str) -> PathBuf {
-    Path::new(env!("CARGO_MANIFEST_DIR")).join(p)
-}
+use std::path::Path;
 
 /// Run `check` and return (exit code, output CSV records, stderr).
 fn check(args: &[&str], out: &Path) -> (i32, Vec<csv::StringRecord>, csv::StringRecord, String) {
-    let o = bin()
+    let o = ebullio()
         .arg("check")
         .args(args)
         .arg("-o")
@@ -45,7 +38,7 @@ fn col(h: &csv::StringRecord, name: &str) -> usize {
 // past its range (SOURCES.md notes its −0.51 K offset).
 #[test]
 fn bundled_published_antoine_table_svna_himmelblau_crowl_louvar_has_no_errors() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let out = dir.path().join("out.csv");
     let (code, rows, h, _) = check(
         &[
@@ -82,7 +75,7 @@ fn bundled_published_antoine_table_svna_himmelblau_crowl_louvar_has_no_errors() 
 // compound listed twice.
 #[test]
 fn bundled_boiling_point_set_sources_md_section_4_has_no_errors() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let out = dir.path().join("out.csv");
     let (code, rows, h, _) = check(
         &[
@@ -158,7 +151,7 @@ const REFERENCE: &str = "compound,Tb/K\nnitromethane,374.35\n";
 
 #[test]
 fn planted_faults_are_found_and_clean_rows_pass() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("planted.csv");
     let reference = dir.path().join("ref.csv");
     std::fs::write(&input, PLANTED).unwrap();
@@ -231,7 +224,7 @@ fn planted_faults_are_found_and_clean_rows_pass() {
 // reference-data/SOURCES.md); 384.35 K is a planted 10 K slip.
 #[test]
 fn bundled_reference_is_used_unless_turned_off() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("t.csv");
     std::fs::write(
         &input,
@@ -241,7 +234,7 @@ fn bundled_reference_is_used_unless_turned_off() {
     let out = dir.path().join("o.csv");
     let (code, rows, h, _) = check(&[input.to_str().unwrap()], &out);
     assert_eq!(code, 0);
-    let f = col(&h, "flags");
+    let f = self::col(&h, "flags");
     assert_eq!(&rows[0][f], "reference-mismatch;duplicate-disagrees");
     assert_eq!(&rows[1][f], "duplicate-disagrees");
     let (code, rows, h, _) = check(&[input.to_str().unwrap(), "--no-bundled-reference"], &out);
@@ -251,11 +244,11 @@ fn bundled_reference_is_used_unless_turned_off() {
 
 #[test]
 fn parquet_round_trip_keeps_rows_and_columns() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("planted.csv");
     std::fs::write(&input, PLANTED).unwrap();
     let pq = dir.path().join("checked.parquet");
-    let o = bin()
+    let o = ebullio()
         .arg("check")
         .arg(&input)
         .arg("-o")
@@ -270,7 +263,7 @@ fn parquet_round_trip_keeps_rows_and_columns() {
     );
     // check the Parquet output again, to CSV: its columns are the input's plus ours
     let out = dir.path().join("again.csv");
-    let o = bin()
+    let o = ebullio()
         .arg("check")
         .arg(&pq)
         .arg("-o")
@@ -284,7 +277,7 @@ fn parquet_round_trip_keeps_rows_and_columns() {
 }
 
 fn expect_input_error(table: &str, extra: &[&str], needle: &str) {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("bad.csv");
     std::fs::write(&input, table).unwrap();
     let out = dir.path().join("out.csv");
@@ -338,7 +331,7 @@ fn malformed_tables_are_clear_errors_with_no_output() {
 
 #[test]
 fn one_bad_cell_is_reported_on_its_row() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("t.csv");
     std::fs::write(&input, "compound,Tb/K\nbenzene,353.15\ntoluene,3.83.75\n").unwrap();
     let out = dir.path().join("o.csv");
@@ -377,7 +370,7 @@ mod order {
                 csv_text += &(row.join(",") + "\n");
                 expected.push(row);
             }
-            let dir = tempfile::tempdir().unwrap();
+            let dir = scratch();
             let input = dir.path().join("t.csv");
             std::fs::write(&input, &csv_text).unwrap();
             let out = dir.path().join("o.csv");
@@ -405,7 +398,7 @@ mod order {
 fn parquet_in_and_out_gives_the_csv_findings() {
     use polars::prelude::*;
     use polars_io::prelude::*;
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let csv_in = dir.path().join("planted.csv");
     std::fs::write(&csv_in, PLANTED).unwrap();
     let reference = dir.path().join("ref.csv");
@@ -423,7 +416,7 @@ fn parquet_in_and_out_gives_the_csv_findings() {
         .unwrap();
     let pq_out = dir.path().join("checked.parquet");
     let ref_arg = ["--reference-table", reference.to_str().unwrap()];
-    let o = bin()
+    let o = ebullio()
         .arg("check")
         .arg(&pq_in)
         .args(ref_arg)
@@ -456,7 +449,7 @@ fn parquet_in_and_out_gives_the_csv_findings() {
     assert_eq!(got.height(), rows.len());
     assert_eq!(got.column("Tb/K").unwrap().dtype(), &DataType::Float64);
     let flags = got.column("flags").unwrap().str().unwrap().clone();
-    let f = crate::col(&h, "flags");
+    let f = self::col(&h, "flags");
     for (i, r) in rows.iter().enumerate() {
         assert_eq!(flags.get(i).unwrap_or(""), &r[f], "row {i} ({})", &r[0]);
     }

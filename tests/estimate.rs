@@ -1,10 +1,6 @@
 //! `ebullio estimate` run as a real binary in a scratch folder.
 
-use std::process::Command;
-
-fn ebullio() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
+use crate::support::{ebullio, scratch};
 
 #[test]
 fn json_has_the_design_fields_and_at_pressure() {
@@ -52,7 +48,7 @@ fn json_has_the_design_fields_and_at_pressure() {
 
 #[test]
 fn batch_csv_keeps_going_past_bad_rows() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("in.csv");
     std::fs::write(
         &input,
@@ -114,7 +110,7 @@ fn measured_point_anchors_the_curve() {
 fn parquet_input_matches_csv_and_unreadable_rows_are_row_errors() {
     use polars::prelude::*;
     use polars_io::prelude::*;
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let names = ["ethyl acetate", "toluene", "isopropanol"];
     let smiles = ["CCOC(C)=O", "Cc1ccccc1", "CC(C)O"];
     let mut df = df!("compound" => &names, "structure" => &smiles).unwrap();
@@ -166,7 +162,7 @@ fn parquet_input_matches_csv_and_unreadable_rows_are_row_errors() {
 fn parquet_without_the_structure_column_is_exit_2() {
     use polars::prelude::*;
     use polars_io::prelude::*;
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let mut df = df!("compound" => &["a"], "mol" => &["CCO"]).unwrap();
     let pq = dir.path().join("in.parquet");
     ParquetWriter::new(std::fs::File::create(&pq).unwrap())

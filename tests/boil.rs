@@ -1,24 +1,6 @@
 //! `ebullio boil` run as a real binary in a scratch folder.
 
-use std::process::Command;
-
-fn ebullio() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
-
-fn json(args: &[&str]) -> serde_json::Value {
-    let out = ebullio()
-        .args(args)
-        .args(["--format", "json"])
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    serde_json::from_slice(&out.stdout).unwrap()
-}
+use crate::support::{ebullio, json, scratch};
 
 // IAPWS-IF97 Table 36: Ts(1 MPa) = 453.035632 K, via the bundled water curve.
 #[test]
@@ -87,7 +69,7 @@ fn bad_input_is_exit_2_with_a_clear_message() {
         .output()
         .unwrap();
     assert_eq!(out.status.code(), Some(2));
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let bad = dir.path().join("fit.json");
     std::fs::write(&bad, "{}").unwrap();
     let out = ebullio()
@@ -109,7 +91,7 @@ fn bad_input_is_exit_2_with_a_clear_message() {
 /// compounds there are. The picked fit gives the same boiling point as a file holding it alone.
 #[test]
 fn from_a_multi_compound_fit_file_picks_by_compound() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let data = dir.path().join("runs.csv");
     let mut text = String::from("compound,T/K,p/kPa\n");
     // Invented points on two smooth curves (test data only).

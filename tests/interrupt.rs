@@ -1,13 +1,10 @@
 //! SIGINT during a long batch: no output file or temporary file is left, and the message says how far it got.
-#![cfg(unix)]
+
+use crate::support::{ebullio, scratch};
 
 use std::io::Write;
 use std::process::{Command, Stdio};
 use std::time::{Duration, Instant};
-
-fn bin() -> &'static str {
-    env!("CARGO_BIN_EXE_ebullio")
-}
 
 /// Wait for the child with a deadline; kill it (and fail) if it hangs.
 fn wait_with_deadline(
@@ -29,7 +26,7 @@ fn wait_with_deadline(
 
 #[test]
 fn sigint_during_estimate_batch_leaves_no_output_and_reports_progress() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("library.csv");
     {
         // Invented structures; enough rows that the batch is still running when the signal comes.
@@ -46,7 +43,7 @@ fn sigint_during_estimate_batch_leaves_no_output_and_reports_progress() {
         }
     }
     let output = dir.path().join("estimates.csv");
-    let mut child = Command::new(bin())
+    let mut child = ebullio()
         .args(["estimate", "--input"])
         .arg(&input)
         .args(["--smiles-column", "smiles", "--format", "csv", "--output"])
@@ -93,7 +90,7 @@ enum Run {
 
 /// One `check` run with SIGINT sent `after` its start.
 fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Duration) -> Run {
-    let mut child = Command::new(bin())
+    let mut child = ebullio()
         .arg("check")
         .arg(input)
         .arg("-o")
@@ -124,7 +121,7 @@ fn interrupt_check(input: &std::path::Path, output: &std::path::Path, after: Dur
 
 #[test]
 fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
-    let dir = tempfile::tempdir().unwrap();
+    let dir = scratch();
     let input = dir.path().join("sheet.csv");
     const ROWS: usize = 1_000_000;
     {
@@ -151,17 +148,21 @@ fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
     let output = dir.path().join("checked.csv");
     // The rows are read, then checked, then written. Search for a signal
     // time that lands while rows are checked: later after "before the batch
-    // started", earlier (by half the last step) after a run that finished.
+    // started" (doubling the step until a run finishes, since reading takes
+    // longer on a loaded machine), earlier (by half the last step) after a
+    // run that finished.
     let mut after = Duration::from_millis(1000);
     let mut step = Duration::from_millis(500);
+    let mut bracketed = false;
     let mut seen = Vec::new();
-    for _ in 0..12 {
+    for _ in 0..16 {
         match interrupt_check(&input, &output, after) {
             Run::Finished => {
                 // complete output is allowed then; remove it for the next try
                 assert!(output.exists());
                 std::fs::remove_file(&output).unwrap();
                 seen.push(format!("{after:?}: finished"));
+                bracketed = true;
                 step /= 2;
                 after = after.saturating_sub(step);
             }
@@ -185,6 +186,9 @@ fn sigint_during_check_leaves_no_output_and_says_how_many_rows_were_checked() {
                 );
                 seen.push(format!("{after:?}: before the batch"));
                 after += step;
+                if !bracketed {
+                    step *= 2;
+                }
             }
         }
     }

@@ -1,0 +1,28 @@
+//! The one integration-test binary (`autotests = false` in Cargo.toml): one module per
+//! command run through the real binary, then the themed suites that call the library.
+//! A new test file is added here as a `mod` line.
+
+mod support;
+
+// One file per command.
+mod boil;
+mod check;
+mod convert;
+mod demo;
+mod estimate;
+mod fit;
+#[cfg(unix)]
+mod interrupt;
+mod plan;
+mod reference;
+mod report;
+
+// Themed suites.
+mod antoine_published_and_statistics;
+mod estimate_joback;
+mod fit_hostile_data;
+mod fuzz_regressions;
+mod iapws_if97;
+mod layers;
+mod smiles_properties;
+mod strd;
