@@ -5,11 +5,21 @@
 //! whole curves from structure (SMILES, Joback group contributions); **check**
 //! property tables for slips and outliers before they reach a distillation plan.
 //!
-//! The module tree is the architecture: pure domain modules (`units`, `vapor`,
-//! `fit`, `molecule`, `estimate`, `reference`, `screen`, `plan`) depend on
-//! nothing outward; `table_io` and `report` do input and output; the binary's
-//! `cli` depends on everything and nothing depends on it. SI inside (K, Pa,
-//! ln p); units only at the edges.
+//! # Layers
+//!
+//! The module tree is the architecture, in three layers; a module imports only from
+//! its own layer or an inner one (checked by `tests/layers.rs`, run by `cargo test`):
+//!
+//! 1. **Domain** — `units`, `vapor`, `fit`, `molecule`, `estimate`, `reference`
+//!    (data model), `screen`, `plan`, `mixture`, and `boiling`, `refit`, `severity`:
+//!    numerics and data models, SI inside (K, Pa, ln p), no files, no polars, no
+//!    command line.
+//! 2. **Input/output** — `table_io` (every file read or written, polars behind the
+//!    `tables` feature) and `report` (plots, HTML sections, text tables).
+//! 3. **Application** — the binary's `cli` and `demo` (`src/main.rs`, behind the
+//!    `cli` feature with clap, anyhow, indicatif and ctrlc). Nothing depends on it.
+//!
+//! Units appear only at the edges.
 //!
 //! ```
 //! use ebullio::units::parse_pressure;
@@ -22,7 +32,6 @@
 #![warn(missing_docs)]
 
 pub mod boiling;
-pub mod demo;
 pub mod estimate;
 pub mod fit;
 pub mod molecule;

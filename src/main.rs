@@ -1,6 +1,7 @@
 //! The `ebullio` command: argument parsing and glue only.
 
 mod cli;
+mod demo;
 
 use std::process::ExitCode;
 

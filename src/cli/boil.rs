@@ -304,8 +304,16 @@ fn table(rep: &Report) -> String {
     s.push_str("   p / mbar     t / degC    95 % interval / degC   note\n");
     for r in &rep.results {
         let ci = match (r.ci95_low_k, r.ci95_high_k, r.ci95_low_pa, r.ci95_high_pa) {
-            (Some(a), Some(b), _, _) => format!("{:8.2} .. {:8.2}", a - 273.15, b - 273.15),
-            (_, _, Some(a), Some(b)) => format!("{:7.2} .. {:7.2} mbar", a / 100.0, b / 100.0),
+            (Some(a), Some(b), _, _) => format!(
+                "{:8.2} .. {:8.2}",
+                a - ebullio::units::CELSIUS_OFFSET,
+                b - ebullio::units::CELSIUS_OFFSET
+            ),
+            (_, _, Some(a), Some(b)) => format!(
+                "{:7.2} .. {:7.2} mbar",
+                ebullio::units::pa_to_mbar(a),
+                ebullio::units::pa_to_mbar(b)
+            ),
             _ => "-".into(),
         };
         let note = if !r.error.is_empty() {
@@ -317,8 +325,8 @@ fn table(rep: &Report) -> String {
         };
         s.push_str(&format!(
             "{:11.3} {:12.2}    {:22} {}\n",
-            r.p_pa / 100.0,
-            r.t_k - 273.15,
+            ebullio::units::pa_to_mbar(r.p_pa),
+            r.t_k - ebullio::units::CELSIUS_OFFSET,
             ci,
             note
         ));

@@ -34,14 +34,14 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         }
     }
     std::fs::create_dir_all(dir).with_context(|| format!("creating {}", dir.display()))?;
-    let run = ebullio::demo::run().map_err(anyhow::Error::msg)?;
+    let run = crate::demo::run().map_err(anyhow::Error::msg)?;
     let cmd = super::common::command_line();
     let w = |name: &str, text: &str| -> anyhow::Result<()> {
         let p = dir.join(name);
         ebullio::table_io::write_atomic(&p, text.as_bytes(), &[])
             .with_context(|| format!("writing {}", p.display()))
     };
-    w("report.html", &ebullio::demo::html(&run, &cmd))?;
+    w("report.html", &crate::demo::html(&run, &cmd))?;
     w(
         "fits.json",
         &(serde_json::to_string_pretty(&run.fits)? + "\n"),
@@ -52,7 +52,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     )?;
     w(
         "estimates.csv",
-        &ebullio::table_io::estimates_csv(&run.estimates, &[ebullio::demo::VACUUM_PA])?,
+        &ebullio::table_io::estimates_csv(&run.estimates, &[crate::demo::VACUUM_PA])?,
     )?;
     if let Some(p) = &run.plan {
         w(
@@ -63,15 +63,15 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     #[cfg(feature = "tables")]
     if let Some(c) = &run.check {
         w(
-            ebullio::demo::CHECKED_TABLE,
+            crate::demo::CHECKED_TABLE,
             &String::from_utf8_lossy(&c.checked_csv),
         )?;
     }
     std::fs::create_dir_all(dir.join("data"))?;
-    for (name, text) in ebullio::demo::FILES {
+    for (name, text) in crate::demo::FILES {
         w(&format!("data/{name}"), text)?;
     }
-    super::common::print_stdout(&ebullio::demo::summary(&run))?;
+    super::common::print_stdout(&crate::demo::summary(&run))?;
     super::common::print_stdout(&format!("\nWrote {}/report.html\n", dir.display()))?;
     Ok(Outcome::Success)
 }

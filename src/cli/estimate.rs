@@ -138,7 +138,7 @@ fn table_text(rows: &[Row]) -> String {
         s.push_str(&format!(
             "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}; Joback {:.1} K]\n",
             e.tb_k,
-            e.tb_k - 273.15,
+            e.tb_k - ebullio::units::CELSIUS_OFFSET,
             e.tb_pi90_low_k,
             e.tb_pi90_high_k,
             e.tb_variant.name(),

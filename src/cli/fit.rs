@@ -3,8 +3,8 @@
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::fit::{fit_set, At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
-use ebullio::table_io::{read_measured, ReadOptions};
+use ebullio::fit::{At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
+use ebullio::table_io::{fit_set, read_measured, ReadOptions};
 use ebullio::units::{
     parse_pressure, parse_quantity, parse_temperature, PressureUnit, Quantity, TemperatureUnit,
 };
@@ -391,7 +391,7 @@ fn table(r: &Row) -> String {
         s += &format!(
             "  normal boiling point: {:.2} K ({:.2} °C), 95 % CI [{:.2}, {:.2}] K{}\n",
             tb.value,
-            tb.value - 273.15,
+            tb.value - ebullio::units::CELSIUS_OFFSET,
             tb.ci95_low,
             tb.ci95_high,
             if tb.extrapolated {
@@ -412,7 +412,7 @@ fn table(r: &Row) -> String {
                 "  at {:.4} kPa: T = {:.2} K ({:.2} °C), 95 % CI [{:.2}, {:.2}] K{ext}\n",
                 p.p_pa / 1000.0,
                 p.t_k,
-                p.t_k - 273.15,
+                p.t_k - ebullio::units::CELSIUS_OFFSET,
                 p.ci95_low,
                 p.ci95_high
             );

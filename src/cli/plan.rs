@@ -239,7 +239,7 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
                 .map_err(|e| InputError(format!("--max-pot: {e}")))?
                 .kelvin(),
         ),
-        (None, None) => PressureRequest::Given(plan::pressure::ATMOSPHERE_PA),
+        (None, None) => PressureRequest::Given(ebullio::units::ATM_PA),
     };
     let opts = PlanOptions {
         pressure,
@@ -274,7 +274,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
 }
 
 fn c(t_k: f64) -> f64 {
-    t_k - 273.15
+    t_k - ebullio::units::CELSIUS_OFFSET
 }
 
 fn opt(v: Option<f64>, digits: usize) -> String {
@@ -481,7 +481,7 @@ fn table(p: &Plan) -> String {
 
 /// A pressure in mbar with sensible digits.
 fn mbar(p_pa: f64) -> String {
-    let m = p_pa / 100.0;
+    let m = ebullio::units::pa_to_mbar(p_pa);
     if m >= 100.0 {
         format!("{m:.2}")
     } else if m >= 1.0 {

@@ -7,20 +7,20 @@
 //! [`html`] builds the HTML report from the same sections the commands'
 //! `--report` use. All data are INVENTED (see `reference-data/demo/README.md`).
 
-use crate::boiling::{boiling_points, BoilResult};
-use crate::estimate::anchor::MeasuredPoint;
-use crate::estimate::batch::EstimateRow;
-use crate::estimate::estimate_smiles;
-use crate::fit::{fit_set, FitOptions, FitReport, FittedCurve};
-use crate::plan::{Component, Plan, PlanOptions, PressureRequest};
-use crate::reference::compare::Tolerances;
-use crate::reference::fit_check::check_fit;
-use crate::reference::Library;
-use crate::report::curve_plot::{CurvePlot, PlotCurve};
-use crate::report::html::{Figure, Finding, Report, Severity, Table};
-use crate::report::{estimate_section, fit_section, plan_section};
-use crate::table_io::{read_measured_bytes, ReadOptions};
-use crate::units::{parse_pressure, parse_quantity, parse_temperature, Quantity};
+use ebullio::boiling::{boiling_points, BoilResult};
+use ebullio::estimate::anchor::MeasuredPoint;
+use ebullio::estimate::batch::EstimateRow;
+use ebullio::estimate::estimate_smiles;
+use ebullio::fit::{FitOptions, FitReport, FittedCurve};
+use ebullio::plan::{Component, Plan, PlanOptions, PressureRequest};
+use ebullio::reference::compare::Tolerances;
+use ebullio::reference::fit_check::check_fit;
+use ebullio::reference::Library;
+use ebullio::report::curve_plot::{CurvePlot, PlotCurve};
+use ebullio::report::html::{Figure, Finding, Report, Severity, Table};
+use ebullio::report::{estimate_section, fit_section, plan_section};
+use ebullio::table_io::{fit_set, read_measured_bytes, ReadOptions};
+use ebullio::units::{parse_pressure, parse_quantity, parse_temperature, Quantity};
 use std::path::Path;
 
 /// The embedded files: (name, text).
@@ -61,9 +61,9 @@ pub const CHECKED_TABLE: &str = "supplier-properties-checked.csv";
 #[cfg(feature = "tables")]
 pub struct DemoCheck {
     /// The table as read.
-    pub table: crate::table_io::property_table::PropertyTable,
+    pub table: ebullio::table_io::property_table::PropertyTable,
     /// Findings per row.
-    pub report: crate::screen::ScreenReport,
+    pub report: ebullio::screen::ScreenReport,
     /// The table with the `flags`, `severity` and `diagnosis` columns, as CSV.
     pub checked_csv: Vec<u8>,
 }
@@ -110,7 +110,7 @@ pub fn run() -> Result<DemoRun, String> {
             .map_err(|e| e.to_string())?;
         for set in &data.sets {
             let opts = FitOptions {
-                at: vec![crate::fit::At::PressurePa(VACUUM_PA)],
+                at: vec![ebullio::fit::At::PressurePa(VACUUM_PA)],
                 ..FitOptions::default()
             };
             match fit_set(set, &opts) {
@@ -160,7 +160,7 @@ pub fn run() -> Result<DemoRun, String> {
     let check = check_supplier_table()?;
     #[cfg(feature = "tables")]
     if let Some(c) = &check {
-        findings.extend(crate::report::check_section::check_findings(
+        findings.extend(ebullio::report::check_section::check_findings(
             &c.table, &c.report, 10,
         ));
     }
@@ -177,8 +177,8 @@ pub fn run() -> Result<DemoRun, String> {
                         format!(
                             "{} boils at {:.1} °C at the planned pressure, above the pot limit of {:.1} °C: lower the pressure.",
                             h.name,
-                            h.tb_k - 273.15,
-                            t - 273.15
+                            h.tb_k - ebullio::units::CELSIUS_OFFSET,
+                            t - ebullio::units::CELSIUS_OFFSET
                         ),
                     ));
                 }
@@ -204,8 +204,8 @@ pub fn run() -> Result<DemoRun, String> {
 /// estimate on, no reference table) and write it back with the three columns.
 #[cfg(feature = "tables")]
 fn check_supplier_table() -> Result<Option<DemoCheck>, String> {
-    use crate::screen::{screen, JobackEstimator, ScreenContext};
-    use crate::table_io::property_table::{table_bytes, PropertyReadOptions, PropertyTable};
+    use ebullio::screen::{screen, JobackEstimator, ScreenContext};
+    use ebullio::table_io::property_table::{table_bytes, PropertyReadOptions, PropertyTable};
     let (name, text) = FILES[2];
     let table = PropertyTable::from_csv_bytes(
         text.as_bytes(),
@@ -301,7 +301,7 @@ fn plan_from_json(fits: &[FitReport]) -> Result<DemoPlan, String> {
         pressure: PressureRequest::Given(p),
         ..PlanOptions::default()
     };
-    let plan = crate::plan::plan(&components, &opts).map_err(|e| e.to_string())?;
+    let plan = ebullio::plan::plan(&components, &opts).map_err(|e| e.to_string())?;
     Ok(DemoPlan {
         plan,
         components,
@@ -324,13 +324,13 @@ fn parse_reported(s: &str) -> Option<MeasuredPoint> {
 }
 
 fn c(t_k: f64) -> String {
-    format!("{:.1}", t_k - 273.15)
+    format!("{:.1}", t_k - ebullio::units::CELSIUS_OFFSET)
 }
 
 /// The cautions of the demo: the standard ones and the plan's ideal-solution limits.
 pub fn cautions() -> Vec<String> {
-    let mut v = crate::report::html::standard_cautions();
-    v.push(crate::plan::limits::IDEAL_SOLUTION.to_string());
+    let mut v = ebullio::report::html::standard_cautions();
+    v.push(ebullio::plan::limits::IDEAL_SOLUTION.to_string());
     v
 }
 
@@ -451,7 +451,7 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         sec.paragraph(format!(
             "The checked table, with the flags, severity and diagnosis columns, is {CHECKED_TABLE}."
         ));
-        crate::report::check_section::add_check(sec, FILES[2].0, &ch.table, &ch.report);
+        ebullio::report::check_section::add_check(sec, FILES[2].0, &ch.table, &ch.report);
     }
     if let Some(p) = &run.plan {
         let sec = r.section("Separation plan");

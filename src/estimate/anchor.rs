@@ -9,8 +9,9 @@
 //! is this program's own (common practice for converting a reduced-pressure
 //! boiling point to another pressure).
 
-use super::lee_kesler::{f0, f1, LeeKeslerCurve, ATM_PA};
+use super::lee_kesler::{f0, f1, LeeKeslerCurve};
 use super::EstimateError;
+use crate::units::ATM_PA;
 use crate::vapor::Curve;
 
 /// A measured boiling point: temperature (K) at pressure (Pa).

@@ -9,10 +9,8 @@
 //! in Poling, Prausnitz, O'Connell, The Properties of Gases and Liquids, 5th
 //! ed. (2001), ch. 7 (from memory).
 
+use crate::units::ATM_PA;
 use crate::vapor::Curve;
-
-/// Standard atmosphere, Pa.
-pub const ATM_PA: f64 = 101_325.0;
 
 /// f0(Tr).
 pub fn f0(tr: f64) -> f64 {

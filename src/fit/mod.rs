@@ -40,4 +40,4 @@ pub use equation_fit::{Point, RobustLoss};
 pub use findings::{Finding, Severity};
 pub use options::{At, FitOptions, ModelSelection};
 pub use report::FitReport;
-pub use vapor_fit::{fit_points, fit_set, FitError, P_ATM_PA};
+pub use vapor_fit::{fit_points, fit_points_with_lines, FitError};

@@ -14,12 +14,9 @@ use super::findings::{Finding, Severity};
 use super::options::{At, FitOptions, ModelSelection};
 use super::report::*;
 use super::stats::{external_studentized, runs_test, t_quantile};
-use crate::table_io::MeasuredSet;
+use crate::units::ATM_PA;
 use crate::vapor::{slope, Antoine, AntoineConvention, Curve, Equation, VaporEquation};
 use crate::vapor::{Clapeyron, Riedel, Wagner};
-
-/// Standard atmosphere, Pa.
-pub const P_ATM_PA: f64 = 101_325.0;
 
 /// Why a fit could not be made at all.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
@@ -154,22 +151,6 @@ fn validate(points: &[Point], lines: &[u64], k: usize, model: &str) -> Result<()
     Ok(())
 }
 
-/// Fit one measured set (as read by `table_io::read_measured`).
-pub fn fit_set(set: &MeasuredSet, opts: &FitOptions) -> Result<FitReport, FitError> {
-    let points: Vec<Point> = set
-        .points
-        .iter()
-        .map(|p| Point {
-            t_k: p.t_k,
-            p_pa: p.p_pa,
-            u_t_k: p.u_t_k,
-            u_p_pa: p.u_p_pa,
-        })
-        .collect();
-    let lines: Vec<u64> = set.points.iter().map(|p| p.line).collect();
-    fit_points_with_lines(set.compound.clone(), &points, &lines, opts)
-}
-
 /// Fit points in SI.
 pub fn fit_points(
     compound: Option<String>,
@@ -179,7 +160,9 @@ pub fn fit_points(
     fit_points_with_lines(compound, points, &[], opts)
 }
 
-fn fit_points_with_lines(
+/// Fit points in SI whose source lines are known (`lines[i]` is the file line of
+/// `points[i]`; empty when there are none), so that errors and findings can name them.
+pub fn fit_points_with_lines(
     compound: Option<String>,
     points: &[Point],
     lines: &[u64],
@@ -423,7 +406,7 @@ fn build_report(
     }
     let runs = runs_test(&residuals_by_temperature(points, &f.lsq.residuals));
     let nbp = if converged {
-        interval_t(&curve, P_ATM_PA)
+        interval_t(&curve, ATM_PA)
     } else {
         None
     };
@@ -842,8 +825,8 @@ mod tests {
             serde_json::from_str(&json.replace("NaN", "null")).unwrap_or(r.clone());
         let c = FittedCurve::from_report(&back);
         let tb = r.normal_boiling_point_k.as_ref().unwrap();
-        assert!((c.t_at(P_ATM_PA).unwrap() - tb.value).abs() < 1e-9);
-        let u = c.t_uncertainty_k(P_ATM_PA).unwrap();
+        assert!((c.t_at(ATM_PA).unwrap() - tb.value).abs() < 1e-9);
+        let u = c.t_uncertainty_k(ATM_PA).unwrap();
         assert!((u - tb.std_error).abs() < 1e-12);
     }
 

@@ -14,10 +14,8 @@
 //! standard atmosphere: the plan never proposes a pressurised still.
 
 use super::{Component, PlanError};
+use crate::units::ATM_PA;
 use serde::Serialize;
-
-/// One standard atmosphere, Pa.
-pub const ATMOSPHERE_PA: f64 = 101_325.0;
 
 /// The rounding rule in words (shown in the output).
 pub const ROUNDING_RULE: &str =
@@ -35,7 +33,7 @@ pub fn round_down_setpoint(p_pa: f64) -> f64 {
     if !(p_pa.is_finite() && p_pa > 0.0) {
         return p_pa;
     }
-    let mbar = p_pa / 100.0;
+    let mbar = crate::units::pa_to_mbar(p_pa);
     let e = mbar.log10().floor() as i32 - 1;
     // Work with an exact integer power so 0.56 is 56/100, not 56*0.01.
     let (count, back): (f64, Box<dyn Fn(f64) -> f64>) = if e >= 0 {
@@ -49,7 +47,7 @@ pub fn round_down_setpoint(p_pa: f64) -> f64 {
     if r > mbar {
         r = back(count - 1.0);
     }
-    r * 100.0
+    r * crate::units::PA_PER_MBAR
 }
 
 /// The pressure found from a maximum pot temperature.
@@ -82,14 +80,14 @@ pub fn pressure_for_max_pot(
     }
     let (lp, heavy) = best.ok_or(PlanError::TooFewComponents { found: 0 })?;
     let raw = lp.exp();
-    let capped = raw > ATMOSPHERE_PA;
-    let unrounded = raw.min(ATMOSPHERE_PA);
+    let capped = raw > ATM_PA;
+    let unrounded = raw.min(ATM_PA);
     Ok(MaxPotPressure {
         max_pot_k,
         heaviest: heavy.name.clone(),
         unrounded_pa: unrounded,
         setpoint_pa: if capped {
-            ATMOSPHERE_PA
+            ATM_PA
         } else {
             round_down_setpoint(unrounded)
         },
@@ -102,16 +100,7 @@ pub fn pressure_for_max_pot(
 /// (the operating pressure), sorted from high to low without repeats.
 pub fn ladder(extra: f64) -> Vec<f64> {
     let mut v: Vec<f64> = vec![
-        ATMOSPHERE_PA,
-        50_000.0,
-        20_000.0,
-        10_000.0,
-        5_000.0,
-        2_000.0,
-        1_000.0,
-        500.0,
-        200.0,
-        100.0,
+        ATM_PA, 50_000.0, 20_000.0, 10_000.0, 5_000.0, 2_000.0, 1_000.0, 500.0, 200.0, 100.0,
     ];
     if extra.is_finite() && extra > 0.0 && !v.iter().any(|p| (p - extra).abs() < 1e-6 * extra) {
         v.push(extra);
@@ -155,7 +144,7 @@ mod tests {
             svna("toluene", 13.9320, 3056.96, 217.625),
             svna("n-octane", 13.9346, 3123.13, 209.635),
         ];
-        let limit = 273.15 + 80.0;
+        let limit = crate::units::CELSIUS_OFFSET + 80.0;
         let r = pressure_for_max_pot(&comps, limit).unwrap();
         assert_eq!(r.heaviest, "n-octane");
         let t = comps[1].tb_k(r.unrounded_pa).unwrap();
@@ -171,8 +160,8 @@ mod tests {
             svna("benzene", 13.7819, 2726.81, 217.572),
             svna("toluene", 13.9320, 3056.96, 217.625),
         ];
-        let r = pressure_for_max_pot(&comps, 273.15 + 150.0).unwrap();
+        let r = pressure_for_max_pot(&comps, crate::units::CELSIUS_OFFSET + 150.0).unwrap();
         assert!(r.capped_at_atmosphere);
-        assert_eq!(r.setpoint_pa, ATMOSPHERE_PA);
+        assert_eq!(r.setpoint_pa, ATM_PA);
     }
 }

@@ -44,7 +44,7 @@ pub struct PlanOptions {
 impl Default for PlanOptions {
     fn default() -> Self {
         Self {
-            pressure: PressureRequest::Given(pressure::ATMOSPHERE_PA),
+            pressure: PressureRequest::Given(crate::units::ATM_PA),
             distillate_purity: 0.99,
             bottoms_purity: 0.99,
             feed_x_light: 0.5,
@@ -257,7 +257,7 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
                     message: format!(
                         "Every component boils below the pot limit even at atmospheric pressure, so the plan uses 1 atm (no vacuum needed; a pressurised still is never proposed); {} boils at {:.1} °C there.",
                         m.heaviest,
-                        components.iter().find(|c| c.name == m.heaviest).and_then(|c| c.tb_k(m.setpoint_pa).ok()).unwrap_or(f64::NAN) - 273.15
+                        components.iter().find(|c| c.name == m.heaviest).and_then(|c| c.tb_k(m.setpoint_pa).ok()).unwrap_or(f64::NAN) - crate::units::CELSIUS_OFFSET
                     ),
                 });
             }
@@ -293,7 +293,7 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
                 message: format!(
                     "The boiling point of {} at this pressure ({:.1} °C) lies outside the temperature range its source claims for its curve, so it is an extrapolation.",
                     c.name,
-                    t - 273.15
+                    t - crate::units::CELSIUS_OFFSET
                 ),
             });
         }
@@ -325,7 +325,7 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
                 message: format!(
                     "{} boils at {:.1} °C at this pressure, below what a tap-water condenser can condense: plan a chilled condenser or cold trap, or use a higher pressure.",
                     first.name,
-                    first.tb_k - 273.15
+                    first.tb_k - crate::units::CELSIUS_OFFSET
                 ),
             });
         }
@@ -521,14 +521,14 @@ mod tests {
     #[test]
     fn max_pot_plan_uses_the_rounded_setpoint() {
         let opts = PlanOptions {
-            pressure: PressureRequest::MaxPot(273.15 + 60.0),
+            pressure: PressureRequest::MaxPot(crate::units::CELSIUS_OFFSET + 60.0),
             ..PlanOptions::default()
         };
         let p = plan(&bz_tol(), &opts).unwrap();
         let m = p.pressure_choice.max_pot.as_ref().unwrap();
         assert_eq!(m.heaviest, "toluene");
         assert_eq!(p.pressure_pa, m.setpoint_pa);
-        assert!(p.components[1].tb_k <= 273.15 + 60.0);
+        assert!(p.components[1].tb_k <= crate::units::CELSIUS_OFFSET + 60.0);
     }
 
     #[test]

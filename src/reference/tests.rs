@@ -51,7 +51,10 @@ fn iapws_if97_vs_antoine_water_rows() {
     let w = lib.find("water").unwrap();
     assert_eq!(w.antoine.len(), 2);
     for r in &w.antoine {
-        let (lo, hi) = r.constants.range_k.unwrap_or((273.15, 473.15));
+        let (lo, hi) = r
+            .constants
+            .range_k
+            .unwrap_or((crate::units::CELSIUS_OFFSET, 473.15));
         let mut max = 0.0f64;
         for i in 0..=200 {
             let t = lo + (hi - lo) * i as f64 / 200.0;

@@ -22,7 +22,7 @@ const N: [f64; 10] = [
 ];
 
 /// Lower end of validity, K (IF97 section 8.1).
-pub const T_MIN_K: f64 = 273.15;
+pub const T_MIN_K: f64 = crate::units::CELSIUS_OFFSET;
 /// Critical temperature, upper end of validity, K.
 pub const T_MAX_K: f64 = 647.096;
 /// Critical pressure, Pa.
@@ -120,6 +120,9 @@ mod tests {
         }
         assert!(ps_pa(250.0).is_nan());
         assert!(ts_k(30e6).is_none());
-        assert_eq!(If97Saturation.valid_range_k(), Some((273.15, 647.096)));
+        assert_eq!(
+            If97Saturation.valid_range_k(),
+            Some((crate::units::CELSIUS_OFFSET, 647.096))
+        );
     }
 }

@@ -115,14 +115,14 @@ impl<'a> CurvePlot<'a> {
             if b > a {
                 for i in 0..=120 {
                     let t = a + (b - a) * i as f64 / 120.0;
-                    let p = c.curve.p_pa(t) / 100.0;
+                    let p = crate::units::pa_to_mbar(c.curve.p_pa(t));
                     if p.is_finite() && p > 0.0 {
-                        s.push((t - 273.15, p));
+                        s.push((t - crate::units::CELSIUS_OFFSET, p));
                     }
                 }
             }
             let in_mbar = s.iter().map(|q| q.1);
-            let pts_mbar = c.points.iter().map(|q| q.1 / 100.0);
+            let pts_mbar = c.points.iter().map(|q| crate::units::pa_to_mbar(q.1));
             for p in in_mbar
                 .chain(pts_mbar)
                 .filter(|p| p.is_finite() && *p > 0.0)
@@ -133,14 +133,17 @@ impl<'a> CurvePlot<'a> {
             series.push(s);
         }
         for (_, p) in &self.lines {
-            pmin = pmin.min(p / 100.0);
-            pmax = pmax.max(p / 100.0);
+            pmin = pmin.min(crate::units::pa_to_mbar(*p));
+            pmax = pmax.max(crate::units::pa_to_mbar(*p));
         }
         if !(pmin.is_finite() && pmax.is_finite() && pmin > 0.0) {
             return Err(err("no curve has a finite pressure in range".into()));
         }
         let (pmin, pmax) = (pmin / 1.5, pmax * 1.5);
-        let (tmin, tmax) = (lo_k - 273.15, hi_k - 273.15);
+        let (tmin, tmax) = (
+            lo_k - crate::units::CELSIUS_OFFSET,
+            hi_k - crate::units::CELSIUS_OFFSET,
+        );
 
         let mut svg = String::new();
         {
@@ -164,7 +167,7 @@ impl<'a> CurvePlot<'a> {
                 .map_err(|e| err(e.to_string()))?;
 
             for (label, p) in &self.lines {
-                let p = p / 100.0;
+                let p = crate::units::pa_to_mbar(*p);
                 let style = ShapeStyle::from(&RGBColor(90, 90, 90)).stroke_width(1);
                 chart
                     .draw_series(DashedLineSeries::new(
@@ -196,7 +199,12 @@ impl<'a> CurvePlot<'a> {
                 let pts: Vec<(f64, f64)> = c
                     .points
                     .iter()
-                    .map(|&(t, p)| (t - 273.15, p / 100.0))
+                    .map(|&(t, p)| {
+                        (
+                            t - crate::units::CELSIUS_OFFSET,
+                            crate::units::pa_to_mbar(p),
+                        )
+                    })
                     .filter(|&(t, p)| t >= tmin && t <= tmax && p > 0.0)
                     .collect();
                 draw_markers(&mut chart, &pts, i, grey).map_err(|e| err(e.to_string()))?;

@@ -135,7 +135,7 @@ pub fn at_pressure_table(rows: &[EstimateRow]) -> Table {
                 [
                     label(r, i),
                     mbar(a.p_pa),
-                    format!("{:.1}", tk - 273.15),
+                    format!("{:.1}", tk - crate::units::CELSIUS_OFFSET),
                     format!("{tk:.1}"),
                     match (a.pi90_low_k, a.pi90_high_k) {
                         (Some(l), Some(h)) if r.anchored.is_none() => format!("{l:.1} to {h:.1}"),
@@ -245,7 +245,7 @@ pub fn add_estimates(section: &mut Section, rows: &[EstimateRow]) {
                 format!(
                     "{:.1} K ({:.1} °C), 90 % interval {:.1} to {:.1} K, typical error {:.1} K ({})",
                     e.tb_k,
-                    e.tb_k - 273.15,
+                    e.tb_k - crate::units::CELSIUS_OFFSET,
                     e.tb_pi90_low_k,
                     e.tb_pi90_high_k,
                     e.tb_typical_error_k,

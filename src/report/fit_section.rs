@@ -18,12 +18,12 @@ fn name(f: &FitReport) -> String {
 }
 
 fn c(t_k: f64) -> String {
-    format!("{:.1}", t_k - 273.15)
+    format!("{:.1}", t_k - crate::units::CELSIUS_OFFSET)
 }
 
 /// A pressure in mbar with sensible digits.
 pub fn mbar(p_pa: f64) -> String {
-    let m = p_pa / 100.0;
+    let m = crate::units::pa_to_mbar(p_pa);
     let s = if m >= 100.0 {
         format!("{m:.1}")
     } else if m >= 1.0 {

@@ -46,7 +46,12 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
             let pts: Vec<(f64, f64)> = (0..=n)
                 .filter_map(|i| {
                     let p = p_lo * (p_hi / p_lo).powf(i as f64 / n as f64);
-                    c.curve.t_at(p).map(|t| (p / 100.0, t - 273.15))
+                    c.curve.t_at(p).map(|t| {
+                        (
+                            crate::units::pa_to_mbar(p),
+                            t - crate::units::CELSIUS_OFFSET,
+                        )
+                    })
                 })
                 .collect();
             series.push((c.name.clone(), pts));
@@ -67,7 +72,10 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
             .margin(10)
             .x_label_area_size(40)
             .y_label_area_size(50)
-            .build_cartesian_2d((p_lo / 100.0..p_hi / 100.0).log_scale(), t_min..t_max)
+            .build_cartesian_2d(
+                (crate::units::pa_to_mbar(p_lo)..crate::units::pa_to_mbar(p_hi)).log_scale(),
+                t_min..t_max,
+            )
             .map_err(err)?;
         chart
             .configure_mesh()
@@ -87,11 +95,17 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
         }
         chart
             .draw_series(LineSeries::new(
-                vec![(p_op / 100.0, t_min), (p_op / 100.0, t_max)],
+                vec![
+                    (crate::units::pa_to_mbar(p_op), t_min),
+                    (crate::units::pa_to_mbar(p_op), t_max),
+                ],
                 BLACK.stroke_width(1),
             ))
             .map_err(err)?
-            .label(format!("operating {:.4} mbar", p_op / 100.0))
+            .label(format!(
+                "operating {:.4} mbar",
+                crate::units::pa_to_mbar(p_op)
+            ))
             .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 20, y)], BLACK));
         chart
             .configure_series_labels()

@@ -7,7 +7,7 @@ use super::html::{Figure, Finding, Section, Severity, Table};
 use crate::plan::{Component, Plan};
 
 fn c(t_k: f64) -> String {
-    format!("{:.1}", t_k - 273.15)
+    format!("{:.1}", t_k - crate::units::CELSIUS_OFFSET)
 }
 
 fn opt(v: Option<f64>, digits: usize) -> String {

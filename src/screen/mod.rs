@@ -33,8 +33,6 @@ pub mod constants;
 pub mod critical;
 pub mod duplicates;
 mod finding;
-#[cfg(feature = "tables")]
-pub mod frame;
 pub mod identity;
 pub mod outliers;
 pub mod reference;
@@ -266,7 +264,7 @@ fn check_row<'r>(
 
 /// Run every check on every row. `implied_tb_k`, when given, holds the
 /// Antoine-implied boiling point per row (NaN where none), computed in bulk
-/// (see `frame`); otherwise it is computed row by row.
+/// (see `table_io::frame`); otherwise it is computed row by row.
 pub fn screen(
     rows: &dyn Rows,
     implied_tb_k: Option<&[f64]>,

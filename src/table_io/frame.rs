@@ -1,4 +1,4 @@
-//! Vectorised part of the screen: implied normal boiling points for a whole
+//! Vectorised helper for the screen (polars, so it lives in table_io): implied normal boiling points for a whole
 //! table in one polars lazy expression.
 //!
 //! The implied boiling point is closed form, t = B/(A − y₀) − C with

@@ -460,6 +460,26 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
     Ok(data)
 }
 
+/// Fit one measured set (as read by [`read_measured`]): its points in SI, with their file
+/// lines so that errors and findings name them.
+pub fn fit_set(
+    set: &MeasuredSet,
+    opts: &crate::fit::FitOptions,
+) -> Result<crate::fit::FitReport, crate::fit::FitError> {
+    let points: Vec<crate::fit::Point> = set
+        .points
+        .iter()
+        .map(|p| crate::fit::Point {
+            t_k: p.t_k,
+            p_pa: p.p_pa,
+            u_t_k: p.u_t_k,
+            u_p_pa: p.u_p_pa,
+        })
+        .collect();
+    let lines: Vec<u64> = set.points.iter().map(|p| p.line).collect();
+    crate::fit::fit_points_with_lines(set.compound.clone(), &points, &lines, opts)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

@@ -10,6 +10,8 @@ pub mod atomic;
 pub mod error;
 pub mod estimates;
 pub mod fit_file;
+#[cfg(feature = "tables")]
+pub mod frame;
 pub mod headings;
 pub mod measured;
 #[cfg(feature = "tables")]
@@ -24,7 +26,7 @@ pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::estimates_csv;
 pub use fit_file::{pick_fit, read_fit_reports};
 pub use measured::{
-    read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet, ReadOptions,
-    ReadWarning,
+    fit_set, read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet,
+    ReadOptions, ReadWarning,
 };
 pub use text_table::{read_text_table, TextRow, TextTable};

@@ -667,7 +667,7 @@ impl PropertyTable {
     /// The implied normal boiling points of every row in one vectorised pass.
     pub fn implied_tb_k(&self) -> Option<Vec<f64>> {
         let [a, b, c] = self.abc.as_ref()?;
-        crate::screen::frame::implied_tb_k(a, b, c, &self.conventions).ok()
+        super::frame::implied_tb_k(a, b, c, &self.conventions).ok()
     }
 
     /// The path the table was read from.

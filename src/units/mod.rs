@@ -29,6 +29,18 @@ pub const ATM_PA: f64 = 101_325.0;
 /// Offset between the Celsius and Kelvin scales (exact).
 pub const CELSIUS_OFFSET: f64 = 273.15;
 
+/// Pascal per millibar (exact).
+pub const PA_PER_MBAR: f64 = 100.0;
+
+/// A pressure in pascal expressed in millibar (for display and plot axes).
+///
+/// ```
+/// assert_eq!(ebullio::units::pa_to_mbar(2_000.0), 20.0);
+/// ```
+pub fn pa_to_mbar(p_pa: f64) -> f64 {
+    p_pa / PA_PER_MBAR
+}
+
 /// Error from reading a unit or a quantity.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum UnitError {

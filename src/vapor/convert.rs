@@ -56,6 +56,15 @@ pub fn exact(k: &AntoineConstants, to: AntoineConvention) -> AntoineConstants {
     }
 }
 
+impl AntoineConstants {
+    /// The same curve in SI (ln, Pa, K): exact, since a unit change of p adds
+    /// a constant to A, a base change scales A and B, and a Celsius/Kelvin
+    /// shift moves C. Fahrenheit/Rankine also stay exact (linear in T).
+    pub fn to_si(&self) -> AntoineConstants {
+        exact(self, AntoineConvention::SI)
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -106,7 +115,7 @@ mod tests {
     fn kelvin_to_celsius_shift_is_273_15() {
         let k = AntoineConstants::new(18.5242, 3578.91, -50.50, "ln,mmHg,K".parse().unwrap());
         let c = exact(&k, "log10,mmHg,degC".parse().unwrap());
-        assert!((c.c - (-50.50 + 273.15)).abs() < 1e-12);
+        assert!((c.c - (-50.50 + crate::units::CELSIUS_OFFSET)).abs() < 1e-12);
         assert!((c.a - 18.5242 / std::f64::consts::LN_10).abs() < 1e-12);
     }
 }
