@@ -13,8 +13,9 @@
 //! (2001), App. A (from memory); water: IAPWS-IF97 (Tc 647.096 K, pc 22.064 MPa),
 //! its saturation line as implemented and checked in `tests/iapws_if97.rs`.
 
-use ebullio::estimate::lee_kesler::{LeeKeslerCurve, ATM_PA};
+use ebullio::estimate::lee_kesler::LeeKeslerCurve;
 use ebullio::reference::water;
+use ebullio::units::ATM_PA;
 use ebullio::vapor::Curve;
 
 struct Case {

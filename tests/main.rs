@@ -20,6 +20,7 @@ mod report;
 // Themed suites.
 mod antoine_published_and_statistics;
 mod estimate_joback;
+mod estimate_lee_kesler_published;
 mod fit_hostile_data;
 mod fuzz_regressions;
 mod iapws_if97;
