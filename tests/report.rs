@@ -20,8 +20,8 @@ fn headings(html: &str) -> Vec<String> {
     out
 }
 
-/// The report must be self-contained: the only URL allowed is the SVG
-/// namespace name (an identifier, never fetched).
+/// The report must be self-contained (the only URL allowed is the SVG
+/// namespace name, an identifier never fetched) and keep to the palette.
 fn assert_self_contained(html: &str) {
     let stripped = html.replace("http://www.w3.org/2000/svg", "");
     let lower = stripped.to_ascii_lowercase();
@@ -48,7 +48,9 @@ fn assert_self_contained(html: &str) {
             "a link leaves the page: {}",
             &a[..a.len().min(40)]
         );
-    }
+    }    // Colours only from ebullio's palette (CSS and every plot).
+    let foreign = ebullio::report::palette::foreign_colours(html);
+    assert!(foreign.is_empty(), "colours outside the palette: {foreign:?}");
 }
 
 fn inline_svgs(html: &str) -> usize {

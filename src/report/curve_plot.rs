@@ -1,8 +1,8 @@
 //! SVG plot of several vapor-pressure curves, p (log scale) against t/°C, with a pressure line.
 //!
 //! Any [`Curve`] can be drawn: a fit, a published Antoine row, an estimate.
-//! Curves are told apart by line pattern and marker shape as well as by grey
-//! level, so the figure survives greyscale printing. Measured points may be
+//! Curve `i` takes series style `i` of the [`palette`](super::palette): colour,
+//! line pattern and marker shape, so the figure survives greyscale printing. Measured points may be
 //! overlaid; a horizontal line marks a planned pressure (e.g. the vacuum).
 //!
 //! ```
@@ -17,6 +17,7 @@
 //! assert!(svg.starts_with("<svg") && svg.contains("t/°C"));
 //! ```
 
+use super::palette::{self, draw, font, GRID, INK, PAPER, RULE, SHADE};
 use crate::vapor::Curve;
 use plotters::prelude::*;
 
@@ -148,9 +149,9 @@ impl<'a> CurvePlot<'a> {
         let mut svg = String::new();
         {
             let root = SVGBackend::with_string(&mut svg, self.size).into_drawing_area();
-            root.fill(&WHITE).map_err(|e| err(e.to_string()))?;
+            root.fill(&PAPER.rgb()).map_err(|e| err(e.to_string()))?;
             let mut chart = ChartBuilder::on(&root)
-                .caption(&self.title, ("sans-serif", 22))
+                .caption(&self.title, font(22))
                 .margin(12)
                 .x_label_area_size(42)
                 .y_label_area_size(64)
@@ -160,15 +161,17 @@ impl<'a> CurvePlot<'a> {
                 .configure_mesh()
                 .x_desc("t/°C")
                 .y_desc("p/mbar (log scale)")
-                .light_line_style(RGBColor(235, 235, 235))
-                .label_style(("sans-serif", 16))
-                .axis_desc_style(("sans-serif", 18))
+                .axis_style(INK.rgb())
+                .bold_line_style(GRID.rgb())
+                .light_line_style(SHADE.rgb())
+                .label_style(font(16))
+                .axis_desc_style(font(18))
                 .draw()
                 .map_err(|e| err(e.to_string()))?;
 
             for (label, p) in &self.lines {
                 let p = crate::units::pa_to_mbar(*p);
-                let style = ShapeStyle::from(&RGBColor(90, 90, 90)).stroke_width(1);
+                let style = ShapeStyle::from(&RULE.rgb()).stroke_width(1);
                 chart
                     .draw_series(DashedLineSeries::new(
                         vec![(tmin, p), (tmax, p)],
@@ -178,24 +181,12 @@ impl<'a> CurvePlot<'a> {
                     ))
                     .map_err(|e| err(e.to_string()))?
                     .label(label.clone())
-                    .legend(move |(x, y)| {
-                        PathElement::new(vec![(x, y), (x + 20, y)], RGBColor(90, 90, 90))
-                    });
+                    .legend(move |(x, y)| PathElement::new(vec![(x, y), (x + 24, y)], RULE.rgb()));
             }
 
             for (i, (c, s)) in self.curves.iter().zip(&series).enumerate() {
-                let grey = GREYS[i % GREYS.len()];
-                let style = ShapeStyle::from(&grey).stroke_width(2);
-                let (dash, gap) = DASHES[i % DASHES.len()];
-                let drawn = if gap == 0 {
-                    chart.draw_series(LineSeries::new(s.clone(), style))
-                } else {
-                    chart.draw_series(DashedLineSeries::new(s.clone(), dash, gap, style))
-                };
-                drawn
-                    .map_err(|e| err(e.to_string()))?
-                    .label(c.label.clone())
-                    .legend(move |(x, y)| PathElement::new(vec![(x, y), (x + 20, y)], style));
+                let style = palette::series(i);
+                draw::line(&mut chart, s, style, Some(&c.label)).map_err(|e| err(e.to_string()))?;
                 let pts: Vec<(f64, f64)> = c
                     .points
                     .iter()
@@ -207,55 +198,20 @@ impl<'a> CurvePlot<'a> {
                     })
                     .filter(|&(t, p)| t >= tmin && t <= tmax && p > 0.0)
                     .collect();
-                draw_markers(&mut chart, &pts, i, grey).map_err(|e| err(e.to_string()))?;
+                draw::markers(&mut chart, &pts, style).map_err(|e| err(e.to_string()))?;
             }
             chart
                 .configure_series_labels()
                 .position(SeriesLabelPosition::UpperLeft)
-                .background_style(WHITE.mix(0.9))
-                .border_style(BLACK)
-                .label_font(("sans-serif", 16))
+                .background_style(PAPER.rgb().mix(0.9))
+                .border_style(RULE.rgb())
+                .label_font(font(16))
                 .draw()
                 .map_err(|e| err(e.to_string()))?;
             root.present().map_err(|e| err(e.to_string()))?;
         }
         Ok(svg)
     }
-}
-
-const GREYS: [RGBColor; 4] = [
-    RGBColor(0, 0, 0),
-    RGBColor(70, 70, 70),
-    RGBColor(120, 120, 120),
-    RGBColor(40, 40, 40),
-];
-const DASHES: [(u32, u32); 4] = [(1, 0), (8, 4), (2, 3), (12, 4)];
-
-type Chart<'a, 'b> = ChartContext<
-    'a,
-    SVGBackend<'b>,
-    Cartesian2d<
-        plotters::coord::types::RangedCoordf64,
-        plotters::coord::combinators::LogCoord<f64>,
-    >,
->;
-
-fn draw_markers(
-    chart: &mut Chart<'_, '_>,
-    pts: &[(f64, f64)],
-    i: usize,
-    grey: RGBColor,
-) -> Result<(), String> {
-    if pts.is_empty() {
-        return Ok(());
-    }
-    let style = ShapeStyle::from(&grey).stroke_width(1);
-    let r = match i % 3 {
-        0 => chart.draw_series(pts.iter().map(|&p| Circle::new(p, 4, style))),
-        1 => chart.draw_series(pts.iter().map(|&p| TriangleMarker::new(p, 5, style))),
-        _ => chart.draw_series(pts.iter().map(|&p| Cross::new(p, 4, style))),
-    };
-    r.map(|_| ()).map_err(|e| e.to_string())
 }
 
 #[cfg(test)]

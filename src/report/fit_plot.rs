@@ -4,6 +4,7 @@
 //! system fonts are needed. [`svg`] returns the document as a `String` so an
 //! HTML report can inline it.
 
+use super::palette::{self, draw, font, FLAG, GRID, INK, PAPER, RULE, SHADE};
 use crate::fit::{FitReport, FittedCurve};
 use plotters::prelude::*;
 
@@ -13,7 +14,8 @@ pub fn svg(r: &FitReport) -> String {
     let mut buf = String::new();
     if let Err(e) = draw(r, &mut buf) {
         return format!(
-            "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"640\" height=\"80\"><text x=\"10\" y=\"40\">plot failed: {}</text></svg>",
+            "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"640\" height=\"80\"><text x=\"10\" y=\"40\" fill=\"{}\">plot failed: {}</text></svg>",
+            INK.hex(),
             e.to_string().replace('<', "&lt;")
         );
     }
@@ -51,7 +53,7 @@ fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
         .fold(f64::NEG_INFINITY, f64::max);
     let ypad = 0.05 * (ymax - ymin).max(0.1);
     let root = SVGBackend::with_string(buf, (720, 640)).into_drawing_area();
-    root.fill(&WHITE)?;
+    root.fill(&PAPER.rgb())?;
     let (top, bottom) = root.split_vertically(440);
     let title = format!(
         "{}: {} fit, {} points",
@@ -60,7 +62,7 @@ fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
         r.n_points
     );
     let mut ch = ChartBuilder::on(&top)
-        .caption(title, ("sans-serif", 18))
+        .caption(title, font(18))
         .margin(10)
         .x_label_area_size(35)
         .y_label_area_size(55)
@@ -68,6 +70,11 @@ fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
     ch.configure_mesh()
         .x_desc("1000 K / T")
         .y_desc("ln(p/Pa)")
+        .axis_style(INK.rgb())
+        .bold_line_style(GRID.rgb())
+        .light_line_style(SHADE.rgb())
+        .label_style(font(12))
+        .axis_desc_style(font(14))
         .draw()?;
     let band: Vec<(f64, f64)> = line
         .iter()
@@ -75,33 +82,35 @@ fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
         .chain(line.iter().rev().map(|(a, v, h)| (*a, v - h)))
         .filter(|(_, v)| v.is_finite())
         .collect();
-    ch.draw_series(std::iter::once(Polygon::new(band, BLUE.mix(0.2))))?
-        .label("95 % band");
-    ch.draw_series(LineSeries::new(
-        line.iter().map(|(a, v, _)| (*a, *v)),
-        &BLUE,
-    ))?
-    .label("fit")
-    .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 20, y)], BLUE));
+    let fit = palette::series(0);
+    let band_fill = fit.colour.rgb().mix(0.18);
+    ch.draw_series(std::iter::once(Polygon::new(band, band_fill)))?
+        .label("95 % band")
+        .legend(move |(x, y)| Rectangle::new([(x, y - 5), (x + 24, y + 5)], band_fill.filled()));
+    let fit_line: Vec<(f64, f64)> = line.iter().map(|(a, v, _)| (*a, *v)).collect();
+    draw::line(&mut ch, &fit_line, fit, Some("fit"))?;
+    let ink = INK.rgb();
     ch.draw_series(
         r.points
             .iter()
             .filter(|p| !p.outlier)
-            .map(|p| Circle::new((x(p.t_k), p.p_pa.ln()), 4, BLACK.filled())),
+            .map(|p| Circle::new((x(p.t_k), p.p_pa.ln()), 4, ink.filled())),
     )?
     .label("measured")
-    .legend(|(x, y)| Circle::new((x + 10, y), 4, BLACK.filled()));
+    .legend(move |(x, y)| Circle::new((x + 12, y), 4, ink.filled()));
+    let flag = FLAG.rgb().stroke_width(2);
     ch.draw_series(
         r.points
             .iter()
             .filter(|p| p.outlier)
-            .map(|p| Cross::new((x(p.t_k), p.p_pa.ln()), 7, RED.stroke_width(2))),
+            .map(|p| Cross::new((x(p.t_k), p.p_pa.ln()), 7, flag)),
     )?
     .label("flagged")
-    .legend(|(x, y)| Cross::new((x + 10, y), 5, RED.stroke_width(2)));
+    .legend(move |(x, y)| Cross::new((x + 12, y), 5, flag));
     ch.configure_series_labels()
-        .background_style(WHITE.mix(0.8))
-        .border_style(BLACK)
+        .background_style(PAPER.rgb().mix(0.85))
+        .border_style(RULE.rgb())
+        .label_font(font(12))
         .draw()?;
     let dev: Vec<f64> = r.points.iter().map(|p| p.rel_dev_pct).collect();
     let dmax = dev.iter().map(|d| d.abs()).fold(0.0, f64::max).max(1e-3) * 1.15;
@@ -113,12 +122,25 @@ fn draw(r: &FitReport, buf: &mut String) -> DrawResult {
     rc.configure_mesh()
         .x_desc("1000 K / T")
         .y_desc("100 (p - p_fit)/p_fit")
+        .axis_style(INK.rgb())
+        .bold_line_style(GRID.rgb())
+        .light_line_style(SHADE.rgb())
+        .label_style(font(12))
+        .axis_desc_style(font(14))
         .draw()?;
-    rc.draw_series(LineSeries::new(vec![(x(t_hi), 0.0), (x(t_lo), 0.0)], &BLUE))?;
-    rc.draw_series(r.points.iter().map(|p| {
-        let c = if p.outlier { RED } else { BLACK };
-        Circle::new((x(p.t_k), p.rel_dev_pct), 4, c.filled())
-    }))?;
+    draw::line(&mut rc, &[(x(t_hi), 0.0), (x(t_lo), 0.0)], fit, None)?;
+    rc.draw_series(
+        r.points
+            .iter()
+            .filter(|p| !p.outlier)
+            .map(|p| Circle::new((x(p.t_k), p.rel_dev_pct), 4, ink.filled())),
+    )?;
+    rc.draw_series(
+        r.points
+            .iter()
+            .filter(|p| p.outlier)
+            .map(|p| Cross::new((x(p.t_k), p.rel_dev_pct), 7, flag)),
+    )?;
     root.present()?;
     Ok(())
 }

@@ -382,7 +382,11 @@ impl Report {
         h.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         h.push_str("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
         let _ = writeln!(h, "<title>{}</title>", escape(&self.title));
-        let _ = writeln!(h, "<style>\n{CSS}</style>\n</head>\n<body>");
+        let _ = writeln!(
+            h,
+            "<style>\n{}{CSS}</style>\n</head>\n<body>",
+            super::palette::css_custom_properties()
+        );
         let _ = writeln!(h, "<header>\n<h1>{}</h1>", escape(&self.title));
         if let Some(s) = &self.subtitle {
             let _ = writeln!(h, "<p class=\"subtitle\">{}</p>", escape(s));
@@ -540,55 +544,58 @@ pub fn shell_line(args: &[String]) -> String {
         .join(" ")
 }
 
-/// The style sheet: system fonts only, print-friendly, greyscale-safe severities.
+/// The style sheet: system fonts only, print-friendly. Colours only through the
+/// palette's custom properties (`var(--ink)`, ...; see [`super::palette`]);
+/// severities differ by border pattern too, so they survive greyscale printing.
 const CSS: &str = r#"
 :root { color-scheme: light; }
 body { font-family: system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif;
-  color: #111; background: #fff; max-width: 60rem; margin: 0 auto; padding: 1.5rem; line-height: 1.45; }
-header { border-bottom: 3px solid #111; margin-bottom: 1rem; }
+  color: var(--ink); background: var(--paper); max-width: 60rem; margin: 0 auto; padding: 1.5rem; line-height: 1.45; }
+header { border-bottom: 3px solid var(--series-1); margin-bottom: 1rem; }
 h1 { font-size: 1.7rem; margin: 0 0 0.3rem 0; }
-h2 { font-size: 1.35rem; border-bottom: 1px solid #888; padding-bottom: 0.15rem; margin-top: 2rem; }
+h2 { font-size: 1.35rem; border-bottom: 1px solid var(--rule); padding-bottom: 0.15rem; margin-top: 2rem; }
 h3 { font-size: 1.12rem; margin-top: 1.5rem; }
 h4 { font-size: 1rem; }
-.subtitle { color: #333; margin-top: 0; }
-nav { border: 1px solid #aaa; padding: 0.3rem 1rem; margin: 1rem 0; }
+.subtitle { color: var(--ink-soft); margin-top: 0; }
+nav { border: 1px solid var(--rule); padding: 0.3rem 1rem; margin: 1rem 0; }
 nav p { margin: 0.3rem 0; font-weight: bold; }
 nav ol { margin: 0.2rem 0 0.5rem 0; }
-a { color: #111; }
+a { color: var(--series-1); }
 code, pre { font-family: ui-monospace, "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: 0.9em; }
-pre { background: #f2f2f2; border: 1px solid #ccc; padding: 0.5rem; white-space: pre-wrap; word-break: break-all; }
+pre { background: var(--shade); border: 1px solid var(--grid); padding: 0.5rem; white-space: pre-wrap; word-break: break-all; }
 .table { overflow-x: auto; }
 table { border-collapse: collapse; margin: 0.6rem 0 1rem 0; font-size: 0.9rem; }
 caption { text-align: left; font-weight: bold; padding: 0.2rem 0; }
-th, td { border: 1px solid #999; padding: 0.2rem 0.45rem; text-align: left; vertical-align: top; }
-th { background: #e8e8e8; }
-tr.sev-error td { background: #ddd; font-weight: bold; }
-tr.sev-error td:first-child { border-left: 4px double #000; }
-tr.sev-warning td { background: #f0f0f0; }
-tr.sev-warning td:first-child { border-left: 4px dashed #000; }
+th, td { border: 1px solid var(--rule); padding: 0.2rem 0.45rem; text-align: left; vertical-align: top; }
+th { background: var(--shade); }
+tr.sev-error td { background: var(--shade-deep); font-weight: bold; }
+tr.sev-error td:first-child { border-left: 4px double var(--series-2); }
+tr.sev-warning td { background: var(--shade); }
+tr.sev-warning td:first-child { border-left: 4px dashed var(--series-5); }
 ul.findings { list-style: none; padding-left: 0; }
-ul.findings li { margin: 0.35rem 0; padding: 0.3rem 0.5rem; border-left: 4px solid #999; }
-ul.findings li.sev-error { border-left: 6px double #000; background: #e6e6e6; }
-ul.findings li.sev-warning { border-left: 4px dashed #000; background: #f3f3f3; }
-ul.findings li.sev-info { border-left: 2px dotted #000; }
+ul.findings li { margin: 0.35rem 0; padding: 0.3rem 0.5rem; border-left: 4px solid var(--rule); }
+ul.findings li.sev-error { border-left: 6px double var(--series-2); background: var(--shade-deep); }
+ul.findings li.sev-warning { border-left: 4px dashed var(--series-5); background: var(--shade); }
+ul.findings li.sev-info { border-left: 2px dotted var(--ink); }
 .badge { display: inline-block; min-width: 4.5em; font-size: 0.75rem; text-transform: uppercase;
-  border: 1px solid #000; padding: 0 0.3rem; text-align: center; background: #fff; }
-.sev-error .badge { background: #000; color: #fff; }
+  border: 1px solid var(--ink); padding: 0 0.3rem; text-align: center; background: var(--paper); }
+.sev-error .badge { background: var(--series-2); border-color: var(--series-2); color: var(--paper); }
+.sev-warning .badge { border: 1px dashed var(--ink); }
 figure { margin: 1rem 0; }
-figure svg { max-width: 100%; height: auto; border: 1px solid #ccc; background: #fff; }
-figcaption { font-size: 0.9rem; color: #333; }
+figure svg { max-width: 100%; height: auto; border: 1px solid var(--grid); background: var(--paper); }
+figcaption { font-size: 0.9rem; color: var(--ink-soft); }
 dl { display: grid; grid-template-columns: max-content auto; gap: 0.15rem 1rem; }
 dt { font-weight: bold; }
 dd { margin: 0; }
-.cautions { border: 2px solid #000; padding: 0 1rem 0.5rem 1rem; margin-top: 2rem; }
-.none { color: #333; font-style: italic; }
-footer { border-top: 1px solid #888; margin-top: 2rem; font-size: 0.85rem; color: #333; }
+.cautions { border: 2px solid var(--ink); padding: 0 1rem 0.5rem 1rem; margin-top: 2rem; }
+.none { color: var(--ink-soft); font-style: italic; }
+footer { border-top: 1px solid var(--rule); margin-top: 2rem; font-size: 0.85rem; color: var(--ink-soft); }
 @media print {
   body { max-width: none; padding: 0; font-size: 10.5pt; }
   nav { display: none; }
   figure, table, .cautions, ul.findings li { break-inside: avoid; }
   h2, h3 { break-after: avoid; }
-  a { text-decoration: none; }
+  a { text-decoration: none; color: var(--ink); }
 }
 "#;
 

@@ -1,5 +1,6 @@
 //! SVG for a plan: boiling points against pressure for each component, and the Rayleigh batch curve.
 
+use super::palette::{self, draw, font, INK, PAPER, RULE};
 use crate::plan::{Component, Plan};
 use plotters::prelude::*;
 
@@ -12,17 +13,8 @@ fn err<E: std::fmt::Display>(e: E) -> PlotError {
     PlotError(e.to_string())
 }
 
-/// One named, coloured line of points.
-type Line<'a> = (&'a str, RGBColor, Vec<(f64, f64)>);
-
-const COLOURS: [RGBColor; 6] = [
-    RGBColor(31, 119, 180),
-    RGBColor(214, 39, 40),
-    RGBColor(44, 160, 44),
-    RGBColor(148, 103, 189),
-    RGBColor(255, 127, 14),
-    RGBColor(23, 190, 207),
-];
+/// One named line of points in the style of series `usize`.
+type Line<'a> = (&'a str, usize, Vec<(f64, f64)>);
 
 /// Draw the plan as an SVG document (1000 × 450 px): on the left, each
 /// component's boiling point (°C) against pressure (mbar, log scale) with the
@@ -33,7 +25,7 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
     let mut buf = String::new();
     {
         let root = SVGBackend::with_string(&mut buf, (1000, 450)).into_drawing_area();
-        root.fill(&WHITE).map_err(err)?;
+        root.fill(&PAPER.rgb()).map_err(err)?;
         let (left, right) = root.split_horizontally(500);
 
         // Left: boiling point against pressure.
@@ -68,7 +60,7 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
             (0.0, 200.0)
         };
         let mut chart = ChartBuilder::on(&left)
-            .caption("Boiling point against pressure", ("sans-serif", 18))
+            .caption("Boiling point against pressure", font(18))
             .margin(10)
             .x_label_area_size(40)
             .y_label_area_size(50)
@@ -81,17 +73,17 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
             .configure_mesh()
             .x_desc("p / mbar")
             .y_desc("t / °C")
+            .axis_style(INK.rgb())
+            .bold_line_style(palette::GRID.rgb())
+            .light_line_style(palette::SHADE.rgb())
+            .label_style(font(12))
+            .axis_desc_style(font(14))
             .draw()
             .map_err(err)?;
         for (i, (name, pts)) in series.iter().enumerate() {
-            let col = COLOURS[i % COLOURS.len()];
-            chart
-                .draw_series(LineSeries::new(pts.iter().copied(), col.stroke_width(2)))
-                .map_err(err)?
-                .label(name.clone())
-                .legend(move |(x, y)| {
-                    PathElement::new(vec![(x, y), (x + 20, y)], col.stroke_width(2))
-                });
+            let style = palette::series(i);
+            draw::line(&mut chart, pts, style, Some(name.as_str())).map_err(err)?;
+            draw::markers(&mut chart, &every_nth(pts, 12), style).map_err(err)?;
         }
         chart
             .draw_series(LineSeries::new(
@@ -99,25 +91,26 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
                     (crate::units::pa_to_mbar(p_op), t_min),
                     (crate::units::pa_to_mbar(p_op), t_max),
                 ],
-                BLACK.stroke_width(1),
+                RULE.rgb().stroke_width(1),
             ))
             .map_err(err)?
             .label(format!(
                 "operating {:.4} mbar",
                 crate::units::pa_to_mbar(p_op)
             ))
-            .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 20, y)], BLACK));
+            .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 24, y)], RULE.rgb()));
         chart
             .configure_series_labels()
             .position(SeriesLabelPosition::UpperLeft)
-            .background_style(WHITE.mix(0.8))
-            .border_style(BLACK)
+            .background_style(PAPER.rgb().mix(0.85))
+            .border_style(RULE.rgb())
+            .label_font(font(12))
             .draw()
             .map_err(err)?;
 
         // Right: Rayleigh curve.
         let mut chart = ChartBuilder::on(&right)
-            .caption("Simple batch distillation (Rayleigh)", ("sans-serif", 18))
+            .caption("Simple batch distillation (Rayleigh)", font(18))
             .margin(10)
             .x_label_area_size(40)
             .y_label_area_size(50)
@@ -128,13 +121,18 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
             .configure_mesh()
             .x_desc("fraction of charge distilled")
             .y_desc(format!("mole fraction {light}"))
+            .axis_style(INK.rgb())
+            .bold_line_style(palette::GRID.rgb())
+            .light_line_style(palette::SHADE.rgb())
+            .label_style(font(12))
+            .axis_desc_style(font(14))
             .draw()
             .map_err(err)?;
         if let Some(r) = &plan.rayleigh {
             let lines: [Line; 3] = [
                 (
                     "distillate now",
-                    COLOURS[0],
+                    0,
                     r.points
                         .iter()
                         .map(|p| (p.fraction_distilled, p.vapor_y_light))
@@ -142,7 +140,7 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
                 ),
                 (
                     "all distillate so far",
-                    COLOURS[1],
+                    1,
                     r.points
                         .iter()
                         .map(|p| (p.fraction_distilled, p.distillate_avg_x_light))
@@ -150,33 +148,35 @@ pub fn plan_svg(plan: &Plan, components: &[Component]) -> Result<String, PlotErr
                 ),
                 (
                     "pot",
-                    COLOURS[2],
+                    2,
                     r.points
                         .iter()
                         .map(|p| (p.fraction_distilled, p.pot_x_light))
                         .collect(),
                 ),
             ];
-            for (name, col, pts) in lines {
-                chart
-                    .draw_series(LineSeries::new(pts, col.stroke_width(2)))
-                    .map_err(err)?
-                    .label(name)
-                    .legend(move |(x, y)| {
-                        PathElement::new(vec![(x, y), (x + 20, y)], col.stroke_width(2))
-                    });
+            for (name, i, pts) in lines {
+                let style = palette::series(i);
+                draw::line(&mut chart, &pts, style, Some(name)).map_err(err)?;
+                draw::markers(&mut chart, &every_nth(&pts, 8), style).map_err(err)?;
             }
             chart
                 .configure_series_labels()
                 .position(SeriesLabelPosition::UpperRight)
-                .background_style(WHITE.mix(0.8))
-                .border_style(BLACK)
+                .background_style(PAPER.rgb().mix(0.85))
+                .border_style(RULE.rgb())
+                .label_font(font(12))
                 .draw()
                 .map_err(err)?;
         }
         root.present().map_err(err)?;
     }
     Ok(buf)
+}
+
+/// Every `n`th point (from the first), for markers along a line.
+fn every_nth(pts: &[(f64, f64)], n: usize) -> Vec<(f64, f64)> {
+    pts.iter().step_by(n.max(1)).copied().collect()
 }
 
 #[cfg(test)]
