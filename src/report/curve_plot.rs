@@ -19,6 +19,7 @@
 
 use super::palette::{self, draw, font, GRID, INK, PAPER, RULE, SHADE};
 use crate::vapor::Curve;
+use plotters::element::DashedPathElement;
 use plotters::prelude::*;
 
 /// Error drawing a plot.
@@ -181,7 +182,9 @@ impl<'a> CurvePlot<'a> {
                     ))
                     .map_err(|e| err(e.to_string()))?
                     .label(label.clone())
-                    .legend(move |(x, y)| PathElement::new(vec![(x, y), (x + 24, y)], RULE.rgb()));
+                    .legend(move |(x, y)| {
+                        DashedPathElement::new(vec![(x, y), (x + 24, y)], 3, 5, style)
+                    });
             }
 
             for (i, (c, s)) in self.curves.iter().zip(&series).enumerate() {
