@@ -36,7 +36,10 @@ fn demo_writes_a_self_contained_report_with_svg_plots() {
     assert!(html.contains("HV-12 ketone") && html.contains("Cautions"));
     // Every colour in the report (CSS and every plot) is one of the palette's.
     let foreign = ebullio::report::palette::foreign_colours(&html);
-    assert!(foreign.is_empty(), "colours outside the palette: {foreign:?}");
+    assert!(
+        foreign.is_empty(),
+        "colours outside the palette: {foreign:?}"
+    );
     let fits: serde_json::Value =
         serde_json::from_str(&std::fs::read_to_string(out.join("fits.json")).unwrap()).unwrap();
     assert_eq!(fits.as_array().unwrap().len(), 4);

@@ -48,9 +48,13 @@ fn assert_self_contained(html: &str) {
             "a link leaves the page: {}",
             &a[..a.len().min(40)]
         );
-    }    // Colours only from ebullio's palette (CSS and every plot).
+    }
+    // Colours only from ebullio's palette (CSS and every plot).
     let foreign = ebullio::report::palette::foreign_colours(html);
-    assert!(foreign.is_empty(), "colours outside the palette: {foreign:?}");
+    assert!(
+        foreign.is_empty(),
+        "colours outside the palette: {foreign:?}"
+    );
 }
 
 fn inline_svgs(html: &str) -> usize {
