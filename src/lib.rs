@@ -34,6 +34,7 @@
 pub mod boiling;
 pub mod estimate;
 pub mod fit;
+pub mod mixture;
 pub mod molecule;
 pub mod plan;
 pub mod reference;
