@@ -15,6 +15,7 @@ mod estimate;
 mod fit;
 mod plan;
 mod reference;
+mod vle;
 
 use clap::{Parser, Subcommand};
 use std::process::ExitCode;
@@ -43,6 +44,7 @@ enum Command {
     Convert(convert::Args),
     Plan(plan::Args),
     Reference(reference::Args),
+    Vle(vle::Args),
     Demo(demo::Args),
 }
 
@@ -68,6 +70,7 @@ pub fn main() -> ExitCode {
         Command::Convert(a) => convert::run(a),
         Command::Plan(a) => plan::run(a),
         Command::Reference(a) => reference::run(a),
+        Command::Vle(a) => vle::run(a),
         Command::Demo(a) => demo::run(a),
     };
     common::exit_code(result)

@@ -51,7 +51,7 @@ pub struct Azeotrope {
 impl Binary<'_> {
     fn ln_alpha(&self, x1: f64, cond: Condition, t_near: Option<f64>) -> Result<(f64, VlePoint), MixtureError> {
         let pt = self.point(x1, cond, t_near)?;
-        Ok((pt.alpha().ln(), pt))
+        Ok((pt.ln_alpha, pt))
     }
 
     /// Every one-liquid azeotrope, given the diagram on an even grid from x1 = 0 to 1.
@@ -62,7 +62,7 @@ impl Binary<'_> {
     ) -> Result<Vec<Azeotrope>, MixtureError> {
         let mut out = Vec::new();
         for w in diagram.windows(2) {
-            let (fa, fb) = (w[0].alpha().ln(), w[1].alpha().ln());
+            let (fa, fb) = (w[0].ln_alpha, w[1].ln_alpha);
             if !(fa.is_finite() && fb.is_finite()) || fa == 0.0 || fa.signum() == fb.signum() {
                 continue;
             }

@@ -36,12 +36,14 @@ pub struct VlePoint {
     pub gamma: [f64; 2],
     /// Pure vapor pressures [p1°, p2°] at `t_k`, Pa.
     pub p_sat: [f64; 2],
+    /// ln α12 = ln γ1 + ln p1° − ln γ2 − ln p2° (finite at both ends).
+    pub ln_alpha: f64,
 }
 
 impl VlePoint {
     /// Relative volatility α12 = (y1/x1)/(y2/x2) = γ1 p1°/(γ2 p2°) (defined at the ends too).
     pub fn alpha(&self) -> f64 {
-        self.gamma[0] * self.p_sat[0] / (self.gamma[1] * self.p_sat[1])
+        self.ln_alpha.exp()
     }
 }
 
@@ -103,7 +105,8 @@ impl Binary<'_> {
     pub fn bubble_p(&self, x1: f64, t_k: f64) -> Result<VlePoint, MixtureError> {
         let x1 = check_x(x1)?;
         let t_k = check_positive("temperature", t_k)?;
-        let p_sat = [self.ln_psat(0, t_k)?.exp(), self.ln_psat(1, t_k)?.exp()];
+        let lp = [self.ln_psat(0, t_k)?, self.ln_psat(1, t_k)?];
+        let p_sat = [lp[0].exp(), lp[1].exp()];
         let lg = self.model.ln_gamma(x1, t_k);
         let gamma = [lg[0].exp(), lg[1].exp()];
         let p1 = x1 * gamma[0] * p_sat[0];
@@ -116,6 +119,7 @@ impl Binary<'_> {
             p_pa: p,
             gamma,
             p_sat,
+            ln_alpha: (lg[0] + lp[0]) - (lg[1] + lp[1]),
         })
     }
 

@@ -255,9 +255,13 @@ pub fn vle_study(
     azeotropes.sort_by(|a, b| a.x1.total_cmp(&b.x1));
     // Flags about the model and the curves.
     flags.push(model_flag(model));
+    let diagram: Vec<DiagramRow> = pts
+        .iter()
+        .map(|pt| diagram_row(pt, three.as_ref(), isobaric))
+        .collect();
     for (i, c) in comps.iter().enumerate() {
         let ts: Vec<f64> = match cond {
-            Condition::Pressure(_) => pts.iter().map(|p| p.t_k).collect(),
+            Condition::Pressure(_) => diagram.iter().filter_map(|r| r.t_k).collect(),
             Condition::Temperature(t) => vec![t],
         };
         if let Some(t) = ts.iter().find(|&&t| outside(c.curve, t)) {
@@ -334,10 +338,6 @@ pub fn vle_study(
             y1: None,
         },
     };
-    let diagram = pts
-        .iter()
-        .map(|pt| diagram_row(pt, three.as_ref(), isobaric))
-        .collect();
     let (pressure_pa, temperature_k) = match cond {
         Condition::Pressure(p) => (Some(p), None),
         Condition::Temperature(t) => (None, Some(t)),

@@ -15,3 +15,4 @@ pub mod html;
 pub mod palette;
 pub mod plan_plot;
 pub mod plan_section;
+pub mod vle_plot;

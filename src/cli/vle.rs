@@ -1,0 +1,542 @@
+//! `ebullio vle`: vapor–liquid equilibrium of a binary (diagram, azeotropes, liquid split).
+
+use super::common::{Format, OutputArgs};
+use super::{InputError, Outcome};
+use anyhow::Context;
+use ebullio::mixture::{
+    self, ActivityModel, Condition, Ideal, Nrtl, StudyComponent, StudyOptions, Unifac, VleStudy,
+    Wilson,
+};
+use ebullio::units::{parse_pressure, parse_temperature, ATM_PA, CELSIUS_OFFSET};
+use ebullio::vapor::Curve;
+use serde::Serialize;
+use std::fmt::Write as _;
+use std::path::PathBuf;
+
+/// Vapor–liquid equilibrium of two components: the T–x–y diagram at a pressure
+/// (or p–x–y at a temperature), the equilibrium curve y(x), every azeotrope
+/// with how it moves with pressure, and whether the liquid splits in two.
+/// Activity coefficients by original UNIFAC from structure (default when both
+/// structures are known), Wilson or NRTL with your parameters, or ideal.
+///
+/// Component 1 is the first --compound (then the --smiles values in order).
+/// Predicted azeotropes must be confirmed with measured mixture data.
+///
+/// Example: ebullio vle --compound ethanol --compound water --pressure "1 atm"
+#[derive(Debug, clap::Args)]
+pub struct Args {
+    /// A bundled reference compound by name, synonym or CAS number (repeatable).
+    #[arg(long, value_name = "NAME")]
+    pub compound: Vec<String>,
+    /// A component from structure (Joback boiling point, Lee–Kesler curve), a
+    /// name may follow after a space: "CC(=O)C acetone" (repeatable).
+    #[arg(long, value_name = "SMILES")]
+    pub smiles: Vec<String>,
+    /// Fixed pressure with its unit, e.g. "1 atm", "200 mbar" [default: 1 atm].
+    #[arg(long, conflicts_with = "temperature", allow_hyphen_values = true)]
+    pub pressure: Option<String>,
+    /// Fixed temperature with its unit, e.g. "60 degC" (gives the p–x–y diagram).
+    #[arg(long, allow_hyphen_values = true)]
+    pub temperature: Option<String>,
+    /// Liquid activity model [default: unifac when both structures are known, else ideal].
+    #[arg(long, value_enum)]
+    pub model: Option<ModelArg>,
+    /// Wilson parameters "a12,a21" in kelvin, Λ12 = (v2/v1)·exp(−a12/T),
+    /// optionally with molar volumes "a12,a21,v1,v2" (implies --model wilson).
+    #[arg(long, value_name = "a12,a21[,v1,v2]", allow_hyphen_values = true)]
+    pub wilson: Option<String>,
+    /// NRTL parameters "b12,b21,alpha", τ12 = b12/T with b in kelvin (implies --model nrtl).
+    #[arg(long, value_name = "b12,b21,alpha", allow_hyphen_values = true)]
+    pub nrtl: Option<String>,
+    /// Also give the bubble and dew points at this mole fraction of component 1.
+    #[arg(long, value_name = "X1", allow_hyphen_values = true)]
+    pub x1: Option<String>,
+    /// Points in the diagram, 11 to 1001.
+    #[arg(long, default_value_t = 101)]
+    pub points: usize,
+    /// Also draw the T–x–y (or p–x–y) and y–x diagrams to this SVG file.
+    #[arg(long, value_name = "FILE.svg")]
+    pub plot: Option<PathBuf>,
+    #[command(flatten)]
+    pub out: OutputArgs,
+}
+
+/// `--model` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum ModelArg {
+    /// Original UNIFAC from the structures.
+    Unifac,
+    /// Wilson with --wilson parameters.
+    Wilson,
+    /// NRTL with --nrtl parameters.
+    Nrtl,
+    /// Ideal liquid (Raoult's law).
+    Ideal,
+}
+
+struct Comp {
+    name: String,
+    smiles: Option<String>,
+    source: String,
+    curve: Box<dyn Curve>,
+}
+
+fn reference_comp(name: &str) -> Result<Comp, InputError> {
+    let lib = ebullio::reference::Library::bundled();
+    let c = lib
+        .find(name)
+        .map_err(|e| InputError(format!("--compound '{name}': {e}")))?;
+    let curve = c.best_curve().ok_or_else(|| {
+        InputError(format!(
+            "--compound '{name}': the reference has no vapor-pressure curve for {}",
+            c.name
+        ))
+    })?;
+    let source = format!(
+        "reference: {} (u(p)/p = {:.1} %)",
+        curve.source,
+        100.0 * curve.u_p_rel
+    );
+    Ok(Comp {
+        name: c.name.clone(),
+        smiles: c.smiles.clone(),
+        source,
+        curve: Box::new(curve),
+    })
+}
+
+fn smiles_comp(text: &str) -> Result<Comp, InputError> {
+    let mut parts = text.split_whitespace();
+    let smiles = parts.next().ok_or_else(|| {
+        InputError("--smiles: empty value; give a SMILES such as \"CC(=O)C acetone\"".into())
+    })?;
+    let rest: Vec<&str> = parts.collect();
+    let name = if rest.is_empty() {
+        smiles.to_string()
+    } else {
+        rest.join(" ")
+    };
+    let e = ebullio::estimate::estimate_smiles(smiles)
+        .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
+    let curve = e.curve().ok_or_else(|| {
+        InputError(format!(
+            "--smiles '{smiles}': no critical constants could be estimated, so there is no vapor-pressure curve"
+        ))
+    })?;
+    Ok(Comp {
+        name,
+        smiles: Some(smiles.to_string()),
+        source: format!(
+            "structure estimate (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+            e.tb_k, e.tb_typical_error_k
+        ),
+        curve: Box::new(curve),
+    })
+}
+
+fn numbers(text: &str, opt: &str, counts: &[usize], form: &str) -> Result<Vec<f64>, InputError> {
+    let v: Vec<f64> = text
+        .split(',')
+        .map(|s| s.trim().parse::<f64>())
+        .collect::<Result<_, _>>()
+        .map_err(|_| InputError(format!("{opt} '{text}': expected numbers \"{form}\"")))?;
+    if !counts.contains(&v.len()) || v.iter().any(|x| !x.is_finite()) {
+        return Err(InputError(format!(
+            "{opt} '{text}': expected {} finite numbers \"{form}\"",
+            counts
+                .iter()
+                .map(|c| c.to_string())
+                .collect::<Vec<_>>()
+                .join(" or ")
+        )));
+    }
+    Ok(v)
+}
+
+fn model(args: &Args, comps: &[Comp]) -> Result<(Box<dyn ActivityModel>, Option<String>), InputError> {
+    let chosen = args.model.unwrap_or(if args.wilson.is_some() {
+        ModelArg::Wilson
+    } else if args.nrtl.is_some() {
+        ModelArg::Nrtl
+    } else if comps.iter().all(|c| c.smiles.is_some()) {
+        ModelArg::Unifac
+    } else {
+        ModelArg::Ideal
+    });
+    let note = (args.model.is_none() && chosen == ModelArg::Ideal).then(|| {
+        let missing: Vec<&str> = comps
+            .iter()
+            .filter(|c| c.smiles.is_none())
+            .map(|c| c.name.as_str())
+            .collect();
+        format!(
+            "No structure is known for {}, so UNIFAC cannot be used: ideal liquid assumed.",
+            missing.join(", ")
+        )
+    });
+    let m: Box<dyn ActivityModel> = match chosen {
+        ModelArg::Ideal => Box::new(Ideal),
+        ModelArg::Unifac => {
+            let s: Vec<&str> = comps
+                .iter()
+                .map(|c| {
+                    c.smiles.as_deref().ok_or_else(|| {
+                        InputError(format!(
+                            "--model unifac: no structure (SMILES) is known for {}; give it with --smiles",
+                            c.name
+                        ))
+                    })
+                })
+                .collect::<Result<_, _>>()?;
+            Box::new(Unifac::from_smiles([s[0], s[1]]).map_err(|e| InputError(format!("UNIFAC: {e}")))?)
+        }
+        ModelArg::Wilson => {
+            let text = args.wilson.as_deref().ok_or_else(|| {
+                InputError("--model wilson needs --wilson \"a12,a21\" (kelvin)".into())
+            })?;
+            let v = numbers(text, "--wilson", &[2, 4], "a12,a21[,v1,v2]")?;
+            let vol = if v.len() == 4 { [v[2], v[3]] } else { [1.0, 1.0] };
+            Box::new(Wilson::new(v[0], v[1], vol).map_err(|e| InputError(format!("--wilson: {e}")))?)
+        }
+        ModelArg::Nrtl => {
+            let text = args.nrtl.as_deref().ok_or_else(|| {
+                InputError("--model nrtl needs --nrtl \"b12,b21,alpha\" (b in kelvin)".into())
+            })?;
+            let v = numbers(text, "--nrtl", &[3], "b12,b21,alpha")?;
+            Box::new(Nrtl::new(v[0], v[1], v[2]).map_err(|e| InputError(format!("--nrtl: {e}")))?)
+        }
+    };
+    Ok((m, note))
+}
+
+/// Bubble and dew points at one composition.
+#[derive(Debug, Serialize)]
+struct AtX1 {
+    x1: f64,
+    /// Bubble point: T (K) or p (Pa), and the first vapor.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    bubble_t_k: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    bubble_p_pa: Option<f64>,
+    bubble_y1: f64,
+    /// Liquid phases at the bubble point (2 inside the predicted split).
+    liquids: u8,
+    /// Dew point of a vapor with y1 = x1, and the first liquid.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    dew_t_k: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    dew_p_pa: Option<f64>,
+    dew_x1: Option<f64>,
+}
+
+#[derive(Debug, Serialize)]
+struct Output {
+    #[serde(flatten)]
+    study: VleStudy,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    at_x1: Option<AtX1>,
+}
+
+fn round(v: f64, d: i32) -> f64 {
+    let f = 10f64.powi(d);
+    (v * f).round() / f
+}
+
+pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    let mut comps = Vec::new();
+    for c in &args.compound {
+        comps.push(reference_comp(c)?);
+    }
+    for s in &args.smiles {
+        comps.push(smiles_comp(s)?);
+    }
+    if comps.len() != 2 {
+        return Err(InputError(format!(
+            "vle needs exactly two components (--compound or --smiles); {} given",
+            comps.len()
+        ))
+        .into());
+    }
+    if !(11..=1001).contains(&args.points) {
+        return Err(InputError(format!("--points {}: expected 11 to 1001", args.points)).into());
+    }
+    let x1 = args
+        .x1
+        .as_deref()
+        .map(|t| {
+            t.trim()
+                .parse::<f64>()
+                .ok()
+                .filter(|x| (0.0..=1.0).contains(x))
+                .ok_or_else(|| {
+                    InputError(format!("--x1 '{t}': expected a mole fraction from 0 to 1"))
+                })
+        })
+        .transpose()?;
+    let condition = match (&args.pressure, &args.temperature) {
+        (_, Some(t)) => Condition::Temperature(
+            parse_temperature(t)
+                .map_err(|e| InputError(format!("--temperature: {e}")))?
+                .kelvin(),
+        ),
+        (Some(p), None) => Condition::Pressure(
+            parse_pressure(p)
+                .map_err(|e| InputError(format!("--pressure: {e}")))?
+                .pa(),
+        ),
+        (None, None) => Condition::Pressure(ATM_PA),
+    };
+    let (model, note) = model(&args, &comps)?;
+    fn sc(c: &Comp) -> StudyComponent<'_> {
+        StudyComponent {
+            name: &c.name,
+            smiles: c.smiles.as_deref(),
+            source: &c.source,
+            curve: c.curve.as_ref(),
+        }
+    }
+    let opts = StudyOptions {
+        condition,
+        points: args.points,
+    };
+    let mut study = mixture::vle_study([sc(&comps[0]), sc(&comps[1])], model.as_ref(), &opts)
+        .map_err(|e| InputError(e.to_string()))?;
+    if let Some(n) = note {
+        study.flags.insert(
+            0,
+            mixture::Flag {
+                code: "no-structure",
+                severity: ebullio::severity::Severity::Warning,
+                message: n,
+            },
+        );
+    }
+    let at_x1 = match x1 {
+        Some(x) => Some(point_at(&comps, model.as_ref(), condition, x, &study.liquid_split)?),
+        None => None,
+    };
+    let svg = match &args.plot {
+        Some(_) => Some(ebullio::report::vle_plot::vle_svg(&study)?),
+        None => None,
+    };
+    let out = Output { study, at_x1 };
+    let text = match args.out.format() {
+        Format::Json => serde_json::to_string_pretty(&out)? + "\n",
+        Format::Csv => csv_table(&out.study)?,
+        Format::Table => table(&out),
+    };
+    if let (Some(path), Some(svg)) = (&args.plot, svg) {
+        ebullio::table_io::write_atomic(path, svg.as_bytes(), &[])
+            .with_context(|| format!("writing {}", path.display()))?;
+    }
+    args.out.emit(&text, &[])?;
+    Ok(Outcome::Success)
+}
+
+fn point_at(
+    comps: &[Comp],
+    model: &dyn ActivityModel,
+    cond: Condition,
+    x: f64,
+    split: &mixture::LiquidSplit,
+) -> Result<AtX1, InputError> {
+    let b = mixture::Binary {
+        names: [&comps[0].name, &comps[1].name],
+        curves: [comps[0].curve.as_ref(), comps[1].curve.as_ref()],
+        model,
+    };
+    let e = |e: mixture::MixtureError| InputError(format!("--x1 {x}: {e}"));
+    let (bub, dew) = match cond {
+        Condition::Pressure(p) => (b.bubble_t(x, p).map_err(e)?, b.dew_t(x, p).ok()),
+        Condition::Temperature(t) => (b.bubble_p(x, t).map_err(e)?, b.dew_p(x, t).ok()),
+    };
+    let iso = matches!(cond, Condition::Pressure(_));
+    // Inside the predicted split the liquid boils at the three-phase point.
+    let two = split.predicted
+        && split.x1_low.is_some_and(|lo| x > lo)
+        && split.x1_high.is_some_and(|hi| x < hi);
+    let (bt, bp, by) = if two {
+        (split.t_k, split.p_pa, split.y1.unwrap_or(f64::NAN))
+    } else {
+        (
+            iso.then(|| round(bub.t_k, 3)),
+            (!iso).then(|| round(bub.p_pa, 1)),
+            round(bub.y1, 6),
+        )
+    };
+    Ok(AtX1 {
+        x1: x,
+        bubble_t_k: bt,
+        bubble_p_pa: bp,
+        bubble_y1: by,
+        liquids: if two { 2 } else { 1 },
+        dew_t_k: dew.filter(|_| iso).map(|d| round(d.t_k, 3)),
+        dew_p_pa: dew.filter(|_| !iso).map(|d| round(d.p_pa, 1)),
+        dew_x1: dew.map(|d| round(d.x1, 6)),
+    })
+}
+
+fn csv_table(s: &VleStudy) -> anyhow::Result<String> {
+    let mut w = csv::Writer::from_writer(Vec::new());
+    let iso = s.pressure_pa.is_some();
+    w.write_record([
+        "x1",
+        "y1",
+        if iso { "t_k" } else { "p_pa" },
+        "gamma1",
+        "gamma2",
+        "alpha12",
+        "liquids",
+    ])?;
+    for r in &s.diagram {
+        let v = if iso { r.t_k } else { r.p_pa }.unwrap_or(f64::NAN);
+        w.write_record([
+            r.x1.to_string(),
+            r.y1.to_string(),
+            v.to_string(),
+            r.gamma1.to_string(),
+            r.gamma2.to_string(),
+            r.alpha12.to_string(),
+            r.liquids.to_string(),
+        ])?;
+    }
+    Ok(String::from_utf8(w.into_inner()?)?)
+}
+
+fn c(t_k: f64) -> f64 {
+    t_k - CELSIUS_OFFSET
+}
+
+fn table(o: &Output) -> String {
+    let s = &o.study;
+    let mut t = String::new();
+    let iso = s.pressure_pa.is_some();
+    let names: Vec<&str> = s.components.iter().map(|c| c.name.as_str()).collect();
+    let _ = match (s.pressure_pa, s.temperature_k) {
+        (Some(p), _) => writeln!(t, "{} (1) / {} (2) at {:.3} kPa, activity model {}", names[0], names[1], p / 1000.0, s.activity_model),
+        (_, Some(tk)) => writeln!(t, "{} (1) / {} (2) at {:.2} °C, activity model {}", names[0], names[1], c(tk), s.activity_model),
+        _ => Ok(()),
+    };
+    for (i, comp) in s.components.iter().enumerate() {
+        let _ = writeln!(
+            t,
+            "  {} {}{}: vapor pressure from {}",
+            i + 1,
+            comp.name,
+            comp.smiles.as_deref().map(|s| format!(" ({s})")).unwrap_or_default(),
+            comp.vapor_pressure_source
+        );
+    }
+    let _ = writeln!(t);
+    let _ = writeln!(
+        t,
+        "{:>7} {:>8} {:>9} {:>9} {:>9} {:>8}",
+        "x1",
+        "y1",
+        if iso { "t/°C" } else { "p/kPa" },
+        "γ1",
+        "γ2",
+        "α12"
+    );
+    let n = s.diagram.len();
+    let step = ((n - 1) / 20).max(1);
+    for (j, r) in s.diagram.iter().enumerate() {
+        if j % step != 0 && j != n - 1 {
+            continue;
+        }
+        let v = if iso {
+            c(r.t_k.unwrap_or(f64::NAN))
+        } else {
+            r.p_pa.unwrap_or(f64::NAN) / 1000.0
+        };
+        let _ = writeln!(
+            t,
+            "{:>7.3} {:>8.4} {:>9.2} {:>9.4} {:>9.4} {:>8.3}{}",
+            r.x1,
+            r.y1,
+            v,
+            r.gamma1,
+            r.gamma2,
+            r.alpha12,
+            if r.liquids == 2 { "  two liquids" } else { "" }
+        );
+    }
+    if step > 1 {
+        let _ = writeln!(t, "(every {step}th of {n} points; all of them with --format csv or json)");
+    }
+    let _ = writeln!(t);
+    if s.azeotropes.is_empty() {
+        let _ = writeln!(t, "Azeotropes: none predicted.");
+    } else {
+        let _ = writeln!(t, "Azeotropes (predicted; confirm with mixture data):");
+        for a in &s.azeotropes {
+            let where_ = match (a.t_k, a.p_pa) {
+                (Some(tk), _) => format!("{:.2} °C", c(tk)),
+                (_, Some(p)) => format!("{:.3} kPa", p / 1000.0),
+                _ => String::new(),
+            };
+            let _ = writeln!(t, "  {:<16} x1 = {:.3} at {where_}", a.kind_str(), a.x1);
+        }
+    }
+    if !s.azeotrope_pressure_shift.is_empty() {
+        let _ = writeln!(t, "  with pressure:");
+        for r in &s.azeotrope_pressure_shift {
+            let _ = writeln!(
+                t,
+                "    {:>10.2} kPa  {}{}",
+                r.p_pa / 1000.0,
+                match (r.x1, r.t_k) {
+                    (Some(x), Some(tk)) => format!("x1 = {x:.3} at {:.2} °C", c(tk)),
+                    _ => "no azeotrope".into(),
+                },
+                if r.extrapolated { "  (curve extrapolated)" } else { "" }
+            );
+        }
+    }
+    let ls = &s.liquid_split;
+    if ls.predicted {
+        let _ = writeln!(
+            t,
+            "Liquid split: two liquids between x1 = {:.4} and {:.4}{}",
+            ls.x1_low.unwrap_or(f64::NAN),
+            ls.x1_high.unwrap_or(f64::NAN),
+            match (ls.t_k, ls.p_pa) {
+                (Some(tk), _) => format!(" at the three-phase point {:.2} °C", c(tk)),
+                (_, Some(p)) => format!(" at the three-phase point {:.3} kPa", p / 1000.0),
+                _ => String::new(),
+            }
+        );
+    } else {
+        let _ = writeln!(t, "Liquid split: none predicted at the boiling point.");
+    }
+    if let Some(a) = &o.at_x1 {
+        let _ = writeln!(t);
+        match (a.bubble_t_k, a.bubble_p_pa) {
+            (Some(tk), _) => {
+                let _ = writeln!(t, "At x1 = {}: bubble point {:.2} °C, first vapor y1 = {:.4}{}", a.x1, c(tk), a.bubble_y1, if a.liquids == 2 { " (two liquids)" } else { "" });
+            }
+            (_, Some(p)) => {
+                let _ = writeln!(t, "At x1 = {}: bubble pressure {:.3} kPa, first vapor y1 = {:.4}{}", a.x1, p / 1000.0, a.bubble_y1, if a.liquids == 2 { " (two liquids)" } else { "" });
+            }
+            _ => {}
+        }
+        match (a.dew_t_k, a.dew_p_pa, a.dew_x1) {
+            (Some(tk), _, Some(x)) => {
+                let _ = writeln!(t, "  a vapor of y1 = {}: dew point {:.2} °C, first liquid x1 = {:.4}", a.x1, c(tk), x);
+            }
+            (_, Some(p), Some(x)) => {
+                let _ = writeln!(t, "  a vapor of y1 = {}: dew pressure {:.3} kPa, first liquid x1 = {:.4}", a.x1, p / 1000.0, x);
+            }
+            _ => {}
+        }
+    }
+    let _ = writeln!(t);
+    for f in &s.flags {
+        let _ = writeln!(t, "{}: {} [{}]", f.severity.as_str(), f.message, f.code);
+    }
+    let _ = writeln!(t);
+    for caution in s.cautions {
+        let _ = writeln!(t, "Caution: {caution}");
+    }
+    t
+}
