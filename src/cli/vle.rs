@@ -94,7 +94,7 @@ fn reference_comp(name: &str) -> Result<Comp, InputError> {
     })?;
     let source = format!(
         "reference: {} (u(p)/p = {:.1} %)",
-        curve.source,
+        citation(&curve.source),
         100.0 * curve.u_p_rel
     );
     Ok(Comp {
@@ -103,6 +103,22 @@ fn reference_comp(name: &str) -> Result<Comp, InputError> {
         source,
         curve: Box::new(curve),
     })
+}
+
+/// The printed citation of a reference row without any web address the row's
+/// notes carry (output names published works only), keeping file and line.
+fn citation(source: &str) -> String {
+    match source.find("; http") {
+        Some(i) => {
+            let tail = source
+                .rfind(" (reference-data/")
+                .or_else(|| source.rfind(" ("))
+                .filter(|&j| j > i && !source[j..].contains("http"))
+                .map_or("", |j| &source[j..]);
+            format!("{}{tail}", &source[..i])
+        }
+        None => source.to_string(),
+    }
 }
 
 fn smiles_comp(text: &str) -> Result<Comp, InputError> {
