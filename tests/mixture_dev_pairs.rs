@@ -4,7 +4,7 @@
 //! Horsley, *Azeotropic Data*, ACS Advances in Chemistry; see
 //! `reference-data/azeotropes-dev.md`). The list checks; it calibrates nothing.
 
-use ebullio::mixture::{vle_study, StudyComponent, StudyOptions, Condition, Unifac};
+use ebullio::mixture::{vle_study, Condition, StudyComponent, StudyOptions, Unifac};
 use ebullio::reference::Library;
 
 const DEV: &str = include_str!("../reference-data/azeotropes-dev.csv");
@@ -26,17 +26,35 @@ fn unifac_azeotropes_against_the_dev_list_at_one_atmosphere() {
         let model = Unifac::from_smiles([s1, s2]).unwrap();
         let study = vle_study(
             [
-                StudyComponent { name: n1, smiles: Some(s1), source: &c1.source, curve: &c1 },
-                StudyComponent { name: n2, smiles: Some(s2), source: &c2.source, curve: &c2 },
+                StudyComponent {
+                    name: n1,
+                    smiles: Some(s1),
+                    source: &c1.source,
+                    curve: &c1,
+                },
+                StudyComponent {
+                    name: n2,
+                    smiles: Some(s2),
+                    source: &c2.source,
+                    curve: &c2,
+                },
             ],
             &model,
-            &StudyOptions { condition: Condition::Pressure(101_325.0), points: 101 },
+            &StudyOptions {
+                condition: Condition::Pressure(101_325.0),
+                points: 101,
+            },
         )
         .unwrap();
         let predicted = if study.azeotropes.is_empty() {
             "none".to_string()
         } else {
-            study.azeotropes.iter().map(|a| a.kind_str().to_string()).collect::<Vec<_>>().join("+")
+            study
+                .azeotropes
+                .iter()
+                .map(|a| a.kind_str().to_string())
+                .collect::<Vec<_>>()
+                .join("+")
         };
         let first = study.azeotropes.first();
         let ok_kind = predicted == kind;
@@ -58,7 +76,11 @@ fn unifac_azeotropes_against_the_dev_list_at_one_atmosphere() {
             first.map_or("-".into(), |a| format!("{:.1}", a.t_k.unwrap() - 273.15)),
             first.map_or("-".into(), |a| format!("{:.3}", a.x1)),
             if study.liquid_split.predicted {
-                format!("{:.4}-{:.4}", study.liquid_split.x1_low.unwrap(), study.liquid_split.x1_high.unwrap())
+                format!(
+                    "{:.4}-{:.4}",
+                    study.liquid_split.x1_low.unwrap(),
+                    study.liquid_split.x1_high.unwrap()
+                )
             } else {
                 "none".into()
             },
@@ -68,5 +90,8 @@ fn unifac_azeotropes_against_the_dev_list_at_one_atmosphere() {
     }
     println!("right kind {right_kind}/14; homogeneous within 3 K and 0.1: {homogeneous_close}/{homogeneous}");
     assert!(right_kind >= 12, "right kind for {right_kind} of 14");
-    assert!(homogeneous_close >= 7, "{homogeneous_close} of {homogeneous} homogeneous within 3 K and 0.1");
+    assert!(
+        homogeneous_close >= 7,
+        "{homogeneous_close} of {homogeneous} homogeneous within 3 K and 0.1"
+    );
 }

@@ -169,7 +169,10 @@ fn numbers(text: &str, opt: &str, counts: &[usize], form: &str) -> Result<Vec<f6
     Ok(v)
 }
 
-fn model(args: &Args, comps: &[Comp]) -> Result<(Box<dyn ActivityModel>, Option<String>), InputError> {
+fn model(
+    args: &Args,
+    comps: &[Comp],
+) -> Result<(Box<dyn ActivityModel>, Option<String>), InputError> {
     let chosen = args.model.unwrap_or(if args.wilson.is_some() {
         ModelArg::Wilson
     } else if args.nrtl.is_some() {
@@ -204,15 +207,24 @@ fn model(args: &Args, comps: &[Comp]) -> Result<(Box<dyn ActivityModel>, Option<
                     })
                 })
                 .collect::<Result<_, _>>()?;
-            Box::new(Unifac::from_smiles([s[0], s[1]]).map_err(|e| InputError(format!("UNIFAC: {e}")))?)
+            Box::new(
+                Unifac::from_smiles([s[0], s[1]])
+                    .map_err(|e| InputError(format!("UNIFAC: {e}")))?,
+            )
         }
         ModelArg::Wilson => {
             let text = args.wilson.as_deref().ok_or_else(|| {
                 InputError("--model wilson needs --wilson \"a12,a21\" (kelvin)".into())
             })?;
             let v = numbers(text, "--wilson", &[2, 4], "a12,a21[,v1,v2]")?;
-            let vol = if v.len() == 4 { [v[2], v[3]] } else { [1.0, 1.0] };
-            Box::new(Wilson::new(v[0], v[1], vol).map_err(|e| InputError(format!("--wilson: {e}")))?)
+            let vol = if v.len() == 4 {
+                [v[2], v[3]]
+            } else {
+                [1.0, 1.0]
+            };
+            Box::new(
+                Wilson::new(v[0], v[1], vol).map_err(|e| InputError(format!("--wilson: {e}")))?,
+            )
         }
         ModelArg::Nrtl => {
             let text = args.nrtl.as_deref().ok_or_else(|| {
@@ -328,7 +340,13 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         );
     }
     let at_x1 = match x1 {
-        Some(x) => Some(point_at(&comps, model.as_ref(), condition, x, &study.liquid_split)?),
+        Some(x) => Some(point_at(
+            &comps,
+            model.as_ref(),
+            condition,
+            x,
+            &study.liquid_split,
+        )?),
         None => None,
     };
     let svg = match &args.plot {
@@ -429,8 +447,22 @@ fn table(o: &Output) -> String {
     let iso = s.pressure_pa.is_some();
     let names: Vec<&str> = s.components.iter().map(|c| c.name.as_str()).collect();
     let _ = match (s.pressure_pa, s.temperature_k) {
-        (Some(p), _) => writeln!(t, "{} (1) / {} (2) at {:.3} kPa, activity model {}", names[0], names[1], p / 1000.0, s.activity_model),
-        (_, Some(tk)) => writeln!(t, "{} (1) / {} (2) at {:.2} °C, activity model {}", names[0], names[1], c(tk), s.activity_model),
+        (Some(p), _) => writeln!(
+            t,
+            "{} (1) / {} (2) at {:.3} kPa, activity model {}",
+            names[0],
+            names[1],
+            p / 1000.0,
+            s.activity_model
+        ),
+        (_, Some(tk)) => writeln!(
+            t,
+            "{} (1) / {} (2) at {:.2} °C, activity model {}",
+            names[0],
+            names[1],
+            c(tk),
+            s.activity_model
+        ),
         _ => Ok(()),
     };
     for (i, comp) in s.components.iter().enumerate() {
@@ -439,7 +471,10 @@ fn table(o: &Output) -> String {
             "  {} {}{}: vapor pressure from {}",
             i + 1,
             comp.name,
-            comp.smiles.as_deref().map(|s| format!(" ({s})")).unwrap_or_default(),
+            comp.smiles
+                .as_deref()
+                .map(|s| format!(" ({s})"))
+                .unwrap_or_default(),
             comp.vapor_pressure_source
         );
     }
@@ -478,7 +513,10 @@ fn table(o: &Output) -> String {
         );
     }
     if step > 1 {
-        let _ = writeln!(t, "(every {step}th of {n} points; all of them with --format csv or json)");
+        let _ = writeln!(
+            t,
+            "(every {step}th of {n} points; all of them with --format csv or json)"
+        );
     }
     let _ = writeln!(t);
     if s.azeotropes.is_empty() {
@@ -505,7 +543,11 @@ fn table(o: &Output) -> String {
                     (Some(x), Some(tk)) => format!("x1 = {x:.3} at {:.2} °C", c(tk)),
                     _ => "no azeotrope".into(),
                 },
-                if r.extrapolated { "  (curve extrapolated)" } else { "" }
+                if r.extrapolated {
+                    "  (curve extrapolated)"
+                } else {
+                    ""
+                }
             );
         }
     }
@@ -529,19 +571,45 @@ fn table(o: &Output) -> String {
         let _ = writeln!(t);
         match (a.bubble_t_k, a.bubble_p_pa) {
             (Some(tk), _) => {
-                let _ = writeln!(t, "At x1 = {}: bubble point {:.2} °C, first vapor y1 = {:.4}{}", a.x1, c(tk), a.bubble_y1, if a.liquids == 2 { " (two liquids)" } else { "" });
+                let _ = writeln!(
+                    t,
+                    "At x1 = {}: bubble point {:.2} °C, first vapor y1 = {:.4}{}",
+                    a.x1,
+                    c(tk),
+                    a.bubble_y1,
+                    if a.liquids == 2 { " (two liquids)" } else { "" }
+                );
             }
             (_, Some(p)) => {
-                let _ = writeln!(t, "At x1 = {}: bubble pressure {:.3} kPa, first vapor y1 = {:.4}{}", a.x1, p / 1000.0, a.bubble_y1, if a.liquids == 2 { " (two liquids)" } else { "" });
+                let _ = writeln!(
+                    t,
+                    "At x1 = {}: bubble pressure {:.3} kPa, first vapor y1 = {:.4}{}",
+                    a.x1,
+                    p / 1000.0,
+                    a.bubble_y1,
+                    if a.liquids == 2 { " (two liquids)" } else { "" }
+                );
             }
             _ => {}
         }
         match (a.dew_t_k, a.dew_p_pa, a.dew_x1) {
             (Some(tk), _, Some(x)) => {
-                let _ = writeln!(t, "  a vapor of y1 = {}: dew point {:.2} °C, first liquid x1 = {:.4}", a.x1, c(tk), x);
+                let _ = writeln!(
+                    t,
+                    "  a vapor of y1 = {}: dew point {:.2} °C, first liquid x1 = {:.4}",
+                    a.x1,
+                    c(tk),
+                    x
+                );
             }
             (_, Some(p), Some(x)) => {
-                let _ = writeln!(t, "  a vapor of y1 = {}: dew pressure {:.3} kPa, first liquid x1 = {:.4}", a.x1, p / 1000.0, x);
+                let _ = writeln!(
+                    t,
+                    "  a vapor of y1 = {}: dew pressure {:.3} kPa, first liquid x1 = {:.4}",
+                    a.x1,
+                    p / 1000.0,
+                    x
+                );
             }
             _ => {}
         }

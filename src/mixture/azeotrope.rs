@@ -49,7 +49,12 @@ pub struct Azeotrope {
 }
 
 impl Binary<'_> {
-    fn ln_alpha(&self, x1: f64, cond: Condition, t_near: Option<f64>) -> Result<(f64, VlePoint), MixtureError> {
+    fn ln_alpha(
+        &self,
+        x1: f64,
+        cond: Condition,
+        t_near: Option<f64>,
+    ) -> Result<(f64, VlePoint), MixtureError> {
         let pt = self.point(x1, cond, t_near)?;
         Ok((pt.ln_alpha, pt))
     }

@@ -144,7 +144,12 @@ impl Binary<'_> {
     }
 
     /// [`Binary::bubble_t`] starting the search at `t_start` (a neighbour's answer).
-    pub fn bubble_t_near(&self, x1: f64, p_pa: f64, t_start: f64) -> Result<VlePoint, MixtureError> {
+    pub fn bubble_t_near(
+        &self,
+        x1: f64,
+        p_pa: f64,
+        t_start: f64,
+    ) -> Result<VlePoint, MixtureError> {
         let x1 = check_x(x1)?;
         let ln_p = check_positive("pressure", p_pa)?.ln();
         let mut t = t_start;
@@ -155,7 +160,8 @@ impl Binary<'_> {
                 return Ok(pt);
             }
             // Slope with γ held constant (γ varies slowly with T): Σ yi d ln pi°/dT.
-            let s = pt.y1 * self.curves[0].d_ln_p_dt(t) + (1.0 - pt.y1) * self.curves[1].d_ln_p_dt(t);
+            let s =
+                pt.y1 * self.curves[0].d_ln_p_dt(t) + (1.0 - pt.y1) * self.curves[1].d_ln_p_dt(t);
             if !(s.is_finite() && s > 0.0) {
                 break;
             }
@@ -209,7 +215,8 @@ impl Binary<'_> {
             let s = a1 + a2;
             let new_x1 = a1 / s;
             let g = s.ln();
-            let slope = new_x1 * self.curves[0].d_ln_p_dt(t) + (1.0 - new_x1) * self.curves[1].d_ln_p_dt(t);
+            let slope =
+                new_x1 * self.curves[0].d_ln_p_dt(t) + (1.0 - new_x1) * self.curves[1].d_ln_p_dt(t);
             if !(slope.is_finite() && slope > 0.0) {
                 break;
             }

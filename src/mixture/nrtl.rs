@@ -45,7 +45,11 @@ impl Nrtl {
                 expected: "a non-randomness parameter above 0 and at most 1",
             });
         }
-        Ok(Self { b12: b12_k, b21: b21_k, alpha })
+        Ok(Self {
+            b12: b12_k,
+            b21: b21_k,
+            alpha,
+        })
     }
 }
 
@@ -68,7 +72,10 @@ impl ActivityModel for Nrtl {
         let df2 = -2.0 * t12 * g12 * g12 * db / (b * b * b) - 2.0 * t21 * g21 * da / (a * a * a);
         (
             [x2 * x2 * f1, x1 * x1 * f2],
-            [-2.0 * x2 * f1 + x2 * x2 * df1, 2.0 * x1 * f2 + x1 * x1 * df2],
+            [
+                -2.0 * x2 * f1 + x2 * x2 * df1,
+                2.0 * x1 * f2 + x1 * x1 * df2,
+            ],
         )
     }
 }

@@ -180,12 +180,14 @@ impl Binary<'_> {
             if g.abs() < 1e-11 {
                 return Some(tp);
             }
-            let s = tp.y1 * self.curves[0].d_ln_p_dt(t) + (1.0 - tp.y1) * self.curves[1].d_ln_p_dt(t);
+            let s =
+                tp.y1 * self.curves[0].d_ln_p_dt(t) + (1.0 - tp.y1) * self.curves[1].d_ln_p_dt(t);
             if !(s.is_finite() && s > 0.0) {
                 return None;
             }
             t -= (g / s).clamp(-20.0, 20.0);
-            split = polish_split(self.model, t, split).or_else(|| liquid_split_at(self.model, t))?;
+            split =
+                polish_split(self.model, t, split).or_else(|| liquid_split_at(self.model, t))?;
         }
         None
     }

@@ -6,8 +6,7 @@
 //! floating-point noise.
 
 use super::{
-    ActivityModel, Azeotrope, AzeotropeKind, Binary, Condition, MixtureError, ThreePhase,
-    VlePoint,
+    ActivityModel, Azeotrope, AzeotropeKind, Binary, Condition, MixtureError, ThreePhase, VlePoint,
 };
 use crate::severity::Severity;
 use crate::vapor::Curve;
@@ -214,13 +213,19 @@ pub fn vle_study(
     match cond {
         Condition::Pressure(p) => {
             if !(p.is_finite() && p > 0.0) {
-                return Err(MixtureError::BadCondition { what: "pressure", value: p });
+                return Err(MixtureError::BadCondition {
+                    what: "pressure",
+                    value: p,
+                });
             }
             below_both(&comps, p)?;
         }
         Condition::Temperature(t) => {
             if !(t.is_finite() && t > 0.0) {
-                return Err(MixtureError::BadCondition { what: "temperature", value: t });
+                return Err(MixtureError::BadCondition {
+                    what: "temperature",
+                    value: t,
+                });
             }
         }
     }
@@ -302,8 +307,12 @@ pub fn vle_study(
         }
     }
     let mut shift = Vec::new();
-    if let (Condition::Pressure(p), Some(first)) = (cond, homogeneous.first().filter(|_| isobaric)) {
-        if azeotropes.iter().any(|a| a.kind != AzeotropeKind::Heterogeneous) {
+    if let (Condition::Pressure(p), Some(first)) = (cond, homogeneous.first().filter(|_| isobaric))
+    {
+        if azeotropes
+            .iter()
+            .any(|a| a.kind != AzeotropeKind::Heterogeneous)
+        {
             shift = pressure_shift(&b, p, first);
             flags.extend(swing_flag(&shift, first));
         }
@@ -411,7 +420,11 @@ fn model_flag(model: &dyn ActivityModel) -> Flag {
             format!("Activity coefficients from the {other} parameters given; they hold only over the range they were fitted on."),
         ),
     };
-    Flag { code, severity, message }
+    Flag {
+        code,
+        severity,
+        message,
+    }
 }
 
 /// Where the three-phase point is, if the liquid splits at the bubble point.
@@ -460,14 +473,11 @@ fn pressure_shift(b: &Binary<'_>, p: f64, az: &Azeotrope) -> Vec<ShiftRow> {
         let extrapolated = pts
             .iter()
             .any(|pt| b.curves.iter().any(|c| outside(*c, pt.t_k)));
-        let found = b
-            .homogeneous_azeotropes(cond, &pts)
-            .ok()
-            .and_then(|v| {
-                v.into_iter()
-                    .filter(|a| a.kind == az.kind)
-                    .min_by(|x, y| (x.x1 - az.x1).abs().total_cmp(&(y.x1 - az.x1).abs()))
-            });
+        let found = b.homogeneous_azeotropes(cond, &pts).ok().and_then(|v| {
+            v.into_iter()
+                .filter(|a| a.kind == az.kind)
+                .min_by(|x, y| (x.x1 - az.x1).abs().total_cmp(&(y.x1 - az.x1).abs()))
+        });
         rows.push(ShiftRow {
             p_pa: round(pp, 1),
             x1: found.map(|a| rx(a.x1)),

@@ -80,7 +80,12 @@ fn unassigned_atoms_and_missing_pairs_are_named_errors() {
     let e = Unifac::from_smiles(["CCOC(C)=O", "CCCCCCN"]).unwrap_err();
     assert_eq!(
         e,
-        MixtureError::MissingPair { m: 11, m_name: "CCOO".into(), n: 14, n_name: "CNH2".into() }
+        MixtureError::MissingPair {
+            m: 11,
+            m_name: "CCOO".into(),
+            n: 14,
+            n_name: "CNH2".into()
+        }
     );
     assert!(e.to_string().contains("CCOO (11) and CNH2 (14)"), "{e}");
     let e = assign_subgroups(&parse_smiles("CP(C)C").unwrap()).unwrap_err();
@@ -134,8 +139,18 @@ fn gibbs_duhem_and_analytic_derivatives_for_every_model() {
                 let scale = 1.0 + d1.abs() + d2.abs();
                 assert!(gd.abs() < 1e-6 * scale, "{} x={x} T={t}: {gd}", m.name());
                 let (_, an) = m.ln_gamma_dx(x, t);
-                assert!((an[0] - d1).abs() < 1e-5 * scale, "{} dlnγ1 {} vs {d1}", m.name(), an[0]);
-                assert!((an[1] - d2).abs() < 1e-5 * scale, "{} dlnγ2 {} vs {d2}", m.name(), an[1]);
+                assert!(
+                    (an[0] - d1).abs() < 1e-5 * scale,
+                    "{} dlnγ1 {} vs {d1}",
+                    m.name(),
+                    an[0]
+                );
+                assert!(
+                    (an[1] - d2).abs() < 1e-5 * scale,
+                    "{} dlnγ2 {} vs {d2}",
+                    m.name(),
+                    an[1]
+                );
             }
         }
     }
@@ -166,16 +181,26 @@ fn ideal_model_is_raoult_exactly_and_solvers_are_consistent() {
     let bt = b.bubble_t(0.4, 101_325.0).unwrap();
     assert!((bt.p_pa - 101_325.0).abs() < 1e-6);
     let dt = b.dew_t(bt.y1, 101_325.0).unwrap();
-    assert!((dt.t_k - bt.t_k).abs() < 1e-6 && (dt.x1 - 0.4).abs() < 1e-8, "{dt:?}");
+    assert!(
+        (dt.t_k - bt.t_k).abs() < 1e-6 && (dt.x1 - 0.4).abs() < 1e-8,
+        "{dt:?}"
+    );
     let dp = b.dew_p(pt.y1, t).unwrap();
     assert!((dp.p_pa - pt.p_pa).abs() < 1e-4 && (dp.x1 - 0.4).abs() < 1e-8);
     // Non-ideal too: dew of the bubble vapor gives the liquid back.
     let m = Unifac::from_smiles(["CCO", "c1ccccc1"]).unwrap();
     let etoh = AntoineConstants::new(16.8958, 3795.17, 230.918, conv());
-    let b = Binary { names: ["ethanol", "benzene"], curves: [&etoh, &bz], model: &m };
+    let b = Binary {
+        names: ["ethanol", "benzene"],
+        curves: [&etoh, &bz],
+        model: &m,
+    };
     let bt = b.bubble_t(0.2, 101_325.0).unwrap();
     let dt = b.dew_t(bt.y1, 101_325.0).unwrap();
-    assert!((dt.t_k - bt.t_k).abs() < 1e-5 && (dt.x1 - 0.2).abs() < 1e-6, "{bt:?} {dt:?}");
+    assert!(
+        (dt.t_k - bt.t_k).abs() < 1e-5 && (dt.x1 - 0.2).abs() < 1e-6,
+        "{bt:?} {dt:?}"
+    );
     assert!(b.bubble_t(1.2, 101_325.0).is_err());
 }
 

@@ -71,7 +71,11 @@ impl Unifac {
             m.q_k[k] = s.q;
             for (l, u) in subs.iter().enumerate() {
                 m.a[k][l] = t.a(s.main_id, u.main_id).ok_or_else(|| {
-                    let (lo, hi) = if s.main_id < u.main_id { (s, u) } else { (u, s) };
+                    let (lo, hi) = if s.main_id < u.main_id {
+                        (s, u)
+                    } else {
+                        (u, s)
+                    };
                     MixtureError::MissingPair {
                         m: lo.main_id,
                         m_name: lo.main_name.to_string(),
@@ -80,8 +84,8 @@ impl Unifac {
                     }
                 })?;
             }
-            for i in 0..2 {
-                let c = f64::from(groups[i].get(&s.id).copied().unwrap_or(0));
+            for (i, g) in groups.iter().enumerate() {
+                let c = f64::from(g.get(&s.id).copied().unwrap_or(0));
                 m.nu[i][k] = c;
                 m.r[i] += c * s.r;
                 m.q[i] += c * s.q;

@@ -101,7 +101,10 @@ pub fn assign_subgroups(m: &Molecule) -> Result<SubgroupCounts, MixtureError> {
     // Nitro charges are part of the pattern; any other charge is refused.
     for &i in &heavy {
         if m.atoms()[i].charge != 0 && !a.is_nitro_atom(i) {
-            return Err(err(i, "charged atom: electrolytes and salts are outside UNIFAC"));
+            return Err(err(
+                i,
+                "charged atom: electrolytes and salts are outside UNIFAC",
+            ));
         }
     }
     a.functional(&id).map_err(|(i, r)| err(i, r))?;
@@ -110,8 +113,12 @@ pub fn assign_subgroups(m: &Molecule) -> Result<SubgroupCounts, MixtureError> {
     a.sp3_carbons(&id).map_err(|(i, r)| err(i, r))?;
     if let Some(&i) = heavy.iter().find(|&&i| !a.used[i]) {
         let reason = match m.atoms()[i].element {
-            Element::N if m.atoms()[i].aromatic => "aromatic nitrogen other than unsubstituted-ring pyridine is not covered",
-            Element::N => "nitrogen in an environment with no original-UNIFAC subgroup (amide, imine, …)",
+            Element::N if m.atoms()[i].aromatic => {
+                "aromatic nitrogen other than unsubstituted-ring pyridine is not covered"
+            }
+            Element::N => {
+                "nitrogen in an environment with no original-UNIFAC subgroup (amide, imine, …)"
+            }
             Element::O => "oxygen in an environment with no original-UNIFAC subgroup",
             Element::S => "sulfur in an environment with no original-UNIFAC subgroup",
             Element::C => "carbon in an environment with no original-UNIFAC subgroup",
@@ -167,7 +174,10 @@ impl Assigner<'_> {
     fn sp3_c(&self, i: usize) -> bool {
         self.el(i) == Element::C
             && !self.m.atoms()[i].aromatic
-            && self.heavy_nb(i).iter().all(|&(_, o)| o == BondOrder::Single)
+            && self
+                .heavy_nb(i)
+                .iter()
+                .all(|&(_, o)| o == BondOrder::Single)
     }
     /// Terminal O double-bonded to `i`.
     fn carbonyl_o(&self, i: usize) -> Option<usize> {
@@ -231,10 +241,16 @@ impl Assigner<'_> {
                 .map(|&(j, _)| j)
                 .collect();
             if others.iter().any(|&j| self.el(j) == Element::N) {
-                return Err((c, "amide or carbamate carbonyl: no original-UNIFAC subgroup handled here"));
+                return Err((
+                    c,
+                    "amide or carbamate carbonyl: no original-UNIFAC subgroup handled here",
+                ));
             }
             if single_o.len() > 1 {
-                return Err((c, "carbonate or similar: no original-UNIFAC subgroup handled here"));
+                return Err((
+                    c,
+                    "carbonate or similar: no original-UNIFAC subgroup handled here",
+                ));
             }
             if let Some(&o2) = single_o.first() {
                 if self.h(o2) == 1 {
@@ -282,7 +298,10 @@ impl Assigner<'_> {
                 continue;
             };
             let Some(al) = self.alpha(c, &[], 2) else {
-                return Err((c, "nitrile with no CH3 or CH2 beside it: original UNIFAC has no subgroup for it"));
+                return Err((
+                    c,
+                    "nitrile with no CH3 or CH2 beside it: original UNIFAC has no subgroup for it",
+                ));
             };
             let g = if self.h(al) == 3 { "CH3CN" } else { "CH2CN" };
             self.add(id(g), &[al, c, nn]);
@@ -293,7 +312,11 @@ impl Assigner<'_> {
                 continue;
             }
             let nb = self.heavy_nb(nn);
-            let os: Vec<usize> = nb.iter().filter(|&&(j, _)| self.el(j) == Element::O).map(|&(j, _)| j).collect();
+            let os: Vec<usize> = nb
+                .iter()
+                .filter(|&&(j, _)| self.el(j) == Element::O)
+                .map(|&(j, _)| j)
+                .collect();
             let Some(&(c, _)) = nb.iter().find(|&&(j, _)| self.el(j) == Element::C) else {
                 return Err((nn, "nitro group not on carbon"));
             };
@@ -302,7 +325,10 @@ impl Assigner<'_> {
             } else if self.sp3_c(c) && (1..=3).contains(&self.h(c)) {
                 ["", "CHNO2", "CH2NO2", "CH3NO2"][self.h(c) as usize]
             } else {
-                return Err((nn, "nitro group on a carbon with no original-UNIFAC subgroup"));
+                return Err((
+                    nn,
+                    "nitro group on a carbon with no original-UNIFAC subgroup",
+                ));
             };
             let mut atoms = vec![c, nn];
             atoms.extend(os);
@@ -314,7 +340,10 @@ impl Assigner<'_> {
                 continue;
             }
             let nb = self.heavy_nb(nn);
-            if nb.iter().any(|&(j, o)| o != BondOrder::Single || self.el(j) != Element::C) {
+            if nb
+                .iter()
+                .any(|&(j, o)| o != BondOrder::Single || self.el(j) != Element::C)
+            {
                 continue;
             }
             match (self.h(nn), nb.len()) {
@@ -348,7 +377,9 @@ impl Assigner<'_> {
                 continue;
             }
             let nb = self.heavy_nb(o);
-            if nb.iter().any(|&(j, b)| b != BondOrder::Single && !(b == BondOrder::Aromatic && self.el(j) == Element::C)) {
+            if nb.iter().any(|&(j, b)| {
+                b != BondOrder::Single && !(b == BondOrder::Aromatic && self.el(j) == Element::C)
+            }) {
                 continue;
             }
             if self.h(o) == 1 && nb.len() == 1 && self.el(nb[0].0) == Element::C {
@@ -381,7 +412,10 @@ impl Assigner<'_> {
                 continue;
             }
             let nb = self.heavy_nb(s);
-            if nb.iter().any(|&(j, o)| o != BondOrder::Single || self.el(j) != Element::C) {
+            if nb
+                .iter()
+                .any(|&(j, o)| o != BondOrder::Single || self.el(j) != Element::C)
+            {
                 continue;
             }
             match (self.h(s), nb.len()) {
@@ -410,13 +444,24 @@ impl Assigner<'_> {
                 continue;
             }
             let nb = self.heavy_nb(c);
-            let cl: Vec<usize> = nb.iter().filter(|&&(j, _)| self.el(j) == Element::CL).map(|&(j, _)| j).collect();
-            let f: Vec<usize> = nb.iter().filter(|&&(j, _)| self.el(j) == Element::F).map(|&(j, _)| j).collect();
+            let cl: Vec<usize> = nb
+                .iter()
+                .filter(|&&(j, _)| self.el(j) == Element::CL)
+                .map(|&(j, _)| j)
+                .collect();
+            let f: Vec<usize> = nb
+                .iter()
+                .filter(|&&(j, _)| self.el(j) == Element::F)
+                .map(|&(j, _)| j)
+                .collect();
             if cl.is_empty() && f.is_empty() {
                 continue;
             }
             if !cl.is_empty() && !f.is_empty() {
-                return Err((c, "carbon with both Cl and F: the chlorofluoro subgroups are not handled here"));
+                return Err((
+                    c,
+                    "carbon with both Cl and F: the chlorofluoro subgroups are not handled here",
+                ));
             }
             let aromatic = self.m.atoms()[c].aromatic;
             if aromatic {
@@ -433,30 +478,40 @@ impl Assigner<'_> {
                     }
                     continue;
                 }
-                return Err((f[0], "fluorine on a double-bonded carbon: no original-UNIFAC subgroup"));
+                return Err((
+                    f[0],
+                    "fluorine on a double-bonded carbon: no original-UNIFAC subgroup",
+                ));
             }
             let h = self.h(c);
-            let g = if f.is_empty() {
-                match (cl.len(), h) {
-                    (1, 2) => "CH2CL",
-                    (1, 1) => "CHCL",
-                    (1, 0) => "CCL",
-                    (2, 2) => "CH2CL2",
-                    (2, 1) => "CHCL2",
-                    (2, 0) => "CCL2",
-                    (3, 1) => "CHCL3",
-                    (3, 0) => "CCL3",
-                    (4, 0) => "CCL4",
-                    _ => return Err((cl[0], "chlorine on a carbon with no original-UNIFAC subgroup (e.g. CH3Cl)")),
-                }
-            } else {
-                match (f.len(), h) {
+            let g =
+                if f.is_empty() {
+                    match (cl.len(), h) {
+                        (1, 2) => "CH2CL",
+                        (1, 1) => "CHCL",
+                        (1, 0) => "CCL",
+                        (2, 2) => "CH2CL2",
+                        (2, 1) => "CHCL2",
+                        (2, 0) => "CCL2",
+                        (3, 1) => "CHCL3",
+                        (3, 0) => "CCL3",
+                        (4, 0) => "CCL4",
+                        _ => return Err((
+                            cl[0],
+                            "chlorine on a carbon with no original-UNIFAC subgroup (e.g. CH3Cl)",
+                        )),
+                    }
+                } else {
+                    match (f.len(), h) {
                     (3, 0) => "CF3",
                     (2, 0) => "CF2",
                     (1, 0) => "CF",
-                    _ => return Err((f[0], "fluorine on a carbon that carries hydrogen: no original-UNIFAC subgroup")),
+                    _ => return Err((
+                        f[0],
+                        "fluorine on a carbon that carries hydrogen: no original-UNIFAC subgroup",
+                    )),
                 }
-            };
+                };
             let mut atoms = vec![c];
             atoms.extend(cl);
             atoms.extend(f);
@@ -482,9 +537,10 @@ impl Assigner<'_> {
                 continue;
             }
             // Aromatic rings holding anything but carbon are left to the leftover check.
-            let hetero_ring = self.heavy_nb(c).iter().any(|&(j, o)| {
-                o == BondOrder::Aromatic && self.el(j) != Element::C
-            });
+            let hetero_ring = self
+                .heavy_nb(c)
+                .iter()
+                .any(|&(j, o)| o == BondOrder::Aromatic && self.el(j) != Element::C);
             if hetero_ring {
                 continue;
             }
@@ -503,7 +559,8 @@ impl Assigner<'_> {
         let bonds: Vec<(usize, usize, BondOrder)> =
             self.m.bonds().iter().map(|b| (b.a, b.b, b.order)).collect();
         for (a, b, order) in bonds {
-            if self.el(a) != Element::C || self.el(b) != Element::C || self.used[a] || self.used[b] {
+            if self.el(a) != Element::C || self.el(b) != Element::C || self.used[a] || self.used[b]
+            {
                 continue;
             }
             let (ha, hb) = (self.h(a), self.h(b));

@@ -41,7 +41,11 @@ pub fn unifac_table() -> &'static UnifacTable {
     static T: OnceLock<UnifacTable> = OnceLock::new();
     T.get_or_init(|| {
         let mut subgroups = Vec::new();
-        for line in SUBGROUPS_CSV.lines().skip(1).filter(|l| !l.trim().is_empty()) {
+        for line in SUBGROUPS_CSV
+            .lines()
+            .skip(1)
+            .filter(|l| !l.trim().is_empty())
+        {
             let f: Vec<&'static str> = line.split(',').map(str::trim).collect();
             // The embedded file is checked by the tests; a malformed row would fail them.
             let num = |i: usize| f.get(i).and_then(|s| s.parse::<f64>().ok());
@@ -62,7 +66,11 @@ pub fn unifac_table() -> &'static UnifacTable {
             }
         }
         let mut a = HashMap::new();
-        for line in INTERACTIONS_CSV.lines().skip(1).filter(|l| !l.trim().is_empty()) {
+        for line in INTERACTIONS_CSV
+            .lines()
+            .skip(1)
+            .filter(|l| !l.trim().is_empty())
+        {
             let f: Vec<&str> = line.split(',').map(str::trim).collect();
             if let (Some(m), Some(n), Some(v)) = (
                 f.first().and_then(|s| s.parse().ok()),
@@ -131,7 +139,7 @@ mod tests {
         // Hansen et al. (1991): CH3CO R = 1.6724, Q = 1.488.
         assert_eq!((ch3co.r, ch3co.q, ch3co.main_id), (1.6724, 1.488, 9));
         // Every pair listed both ways, every subgroup's main group has a name.
-        for (&(m, n), _) in &t.a {
+        for &(m, n) in t.a.keys() {
             assert!(t.a(n, m).is_some(), "pair ({m},{n}) listed one way only");
         }
     }

@@ -70,7 +70,7 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .map_err(err)?;
         ch.draw_series(LineSeries::new(liquid.clone(), LIQUID.stroke_width(2)))
             .map_err(err)?
-            .label(if isobaric { "bubble (liquid)" } else { "bubble (liquid)" })
+            .label("bubble (liquid)")
             .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 18, y)], LIQUID.stroke_width(2)));
         ch.draw_series(LineSeries::new(vapor, VAPOR.stroke_width(2)))
             .map_err(err)?
@@ -113,13 +113,20 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .light_line_style(WHITE)
             .draw()
             .map_err(err)?;
-        ch.draw_series(LineSeries::new(vec![(0.0, 0.0), (1.0, 1.0)], GUIDE.stroke_width(1)))
-            .map_err(err)?;
+        ch.draw_series(LineSeries::new(
+            vec![(0.0, 0.0), (1.0, 1.0)],
+            GUIDE.stroke_width(1),
+        ))
+        .map_err(err)?;
         let yx: Vec<(f64, f64)> = study.diagram.iter().map(|r| (r.x1, r.y1)).collect();
         ch.draw_series(LineSeries::new(yx, LIQUID.stroke_width(2)))
             .map_err(err)?;
-        ch.draw_series(marks.iter().map(|&(x, _)| Circle::new((x, x), 5, MARK.filled())))
-            .map_err(err)?;
+        ch.draw_series(
+            marks
+                .iter()
+                .map(|&(x, _)| Circle::new((x, x), 5, MARK.filled())),
+        )
+        .map_err(err)?;
         root.present().map_err(err)?;
     }
     Ok(buf)
