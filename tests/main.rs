@@ -16,6 +16,7 @@ mod interrupt;
 mod plan;
 mod reference;
 mod report;
+mod vle;
 
 // Themed suites.
 mod antoine_published_and_statistics;
@@ -25,5 +26,6 @@ mod fit_hostile_data;
 mod fuzz_regressions;
 mod iapws_if97;
 mod layers;
+mod mixture_dev_pairs;
 mod smiles_properties;
 mod strd;

@@ -290,7 +290,7 @@ pub fn vle_study(
                 az.kind.as_str(),
                 az.x1,
                 match cond {
-                    Condition::Pressure(_) => format!(", {:.2} °C", az.t_k - 273.15),
+                    Condition::Pressure(_) => format!(", {:.2} °C", az.t_k - crate::units::CELSIUS_OFFSET),
                     Condition::Temperature(_) => format!(", {:.0} Pa", az.p_pa),
                 }
             ),

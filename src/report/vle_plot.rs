@@ -21,7 +21,7 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
     let isobaric = study.pressure_pa.is_some();
     let val = |r: &crate::mixture::DiagramRow| {
         if isobaric {
-            r.t_k.unwrap_or(f64::NAN) - 273.15
+            r.t_k.unwrap_or(f64::NAN) - crate::units::CELSIUS_OFFSET
         } else {
             r.p_pa.unwrap_or(f64::NAN) / 1000.0
         }
@@ -43,7 +43,7 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
     let n1 = names.first().copied().unwrap_or("1");
     let fixed = match (study.pressure_pa, study.temperature_k) {
         (Some(p), _) => format!("at {:.2} kPa", p / 1000.0),
-        (_, Some(t)) => format!("at {:.2} °C", t - 273.15),
+        (_, Some(t)) => format!("at {:.2} °C", t - crate::units::CELSIUS_OFFSET),
         _ => String::new(),
     };
     let mut buf = String::new();
@@ -81,7 +81,7 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .iter()
             .filter_map(|a| {
                 let v = if isobaric {
-                    a.t_k? - 273.15
+                    a.t_k? - crate::units::CELSIUS_OFFSET
                 } else {
                     a.p_pa? / 1000.0
                 };

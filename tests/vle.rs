@@ -1,10 +1,6 @@
 //! `ebullio vle` run as a real binary in a scratch folder, and the ideal case against `plan`.
 
-use std::process::Command;
-
-fn ebullio() -> Command {
-    Command::new(env!("CARGO_BIN_EXE_ebullio"))
-}
+use crate::support::ebullio;
 
 fn run(args: &[&str]) -> std::process::Output {
     ebullio().args(args).output().unwrap()
