@@ -4,8 +4,9 @@
 //! closed form t = B/(A − log p) − C. When it differs from the listed value by
 //! more than the tolerance (default 1 K: published Antoine sets reproduce
 //! their source's normal boiling point to a few tenths of a kelvin), the row
-//! gets `tb-antoine-mismatch` and, when one of the usual slips explains it, a
-//! second finding naming the slip ([`super::slip`]).
+//! gets `tb-antoine-mismatch` and, only when one usual slip explains it and
+//! the evidence singles it out (far beyond the tolerance, the only candidate),
+//! a second finding naming the slip ([`super::slip`]).
 
 use super::finding::{Code, Finding};
 use super::slip::diagnose;
@@ -31,7 +32,7 @@ pub fn check_implied_vs_listed(
     out.push(Finding::new(
         Code::TbAntoineMismatch,
         format!(
-            "The Antoine constants imply a normal boiling point of {implied_tb_k:.1} K, {:.1} K from the listed {listed_tb_k:.1} K (tolerance {tol_k} K).",
+            "The Antoine constants imply a normal boiling point of {implied_tb_k:.1} K; the listed {listed_tb_k:.1} K disagrees by {:.1} K (tolerance {tol_k} K).",
             d.abs()
         ),
     ));

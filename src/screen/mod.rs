@@ -32,6 +32,8 @@ pub mod bundled;
 pub mod constants;
 pub mod critical;
 pub mod duplicates;
+#[cfg(test)]
+mod false_cause;
 mod finding;
 pub mod identity;
 pub mod outliers;
