@@ -1,5 +1,6 @@
 //! `ebullio boil`: boiling temperature at pressures, or vapor pressure at temperatures.
 
+use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::convert::parse_abc;
 use super::{InputError, Outcome};
@@ -7,7 +8,7 @@ use anyhow::Context;
 use ebullio::boiling::{self, BoilResult, VACUUM_CAUTIONS};
 use ebullio::fit::FittedCurve;
 use ebullio::reference::Library;
-use ebullio::units::{parse_pressure, parse_temperature, ATM_PA};
+use ebullio::units::{parse_temperature, ATM_PA};
 use ebullio::vapor::{AntoineConstants, AntoineConvention, Curve};
 use std::path::{Path, PathBuf};
 

@@ -6,6 +6,41 @@ use std::path::{Path, PathBuf};
 use std::process::ExitCode;
 use std::sync::atomic::{AtomicU64, Ordering};
 
+/// The site's barometric pressure from `--barometric`, set once at start.
+static BAROMETRIC: std::sync::OnceLock<Option<ebullio::units::Pressure>> =
+    std::sync::OnceLock::new();
+
+/// Read `--barometric` once (it must itself be absolute).
+pub fn set_barometric(text: Option<&str>) -> Result<(), InputError> {
+    let p = text
+        .map(|t| {
+            ebullio::units::parse_pressure(t).map_err(|e| InputError(format!("--barometric: {e}")))
+        })
+        .transpose()?;
+    let _ = BAROMETRIC.set(p);
+    Ok(())
+}
+
+/// The site's barometric pressure, if `--barometric` was given.
+pub fn barometric() -> Option<ebullio::units::Pressure> {
+    BAROMETRIC.get().copied().flatten()
+}
+
+/// Parse a pressure given on the command line: absolute, or gauge with `--barometric`.
+pub fn parse_pressure(s: &str) -> Result<ebullio::units::Pressure, ebullio::units::UnitError> {
+    ebullio::units::parse_pressure_at(s, barometric())
+}
+
+/// Parse a temperature or a pressure given on the command line (gauge with `--barometric`).
+pub fn parse_quantity(s: &str) -> Result<ebullio::units::Quantity, ebullio::units::UnitError> {
+    match ebullio::units::parse_quantity(s) {
+        Err(ebullio::units::UnitError::GaugePressure { .. }) if barometric().is_some() => {
+            parse_pressure(s).map(ebullio::units::Quantity::Pressure)
+        }
+        r => r,
+    }
+}
+
 /// What a command achieved, mapped to an exit code by [`exit_code`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 #[allow(dead_code)] // Findings is used by `check`

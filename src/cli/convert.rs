@@ -1,10 +1,11 @@
 //! `ebullio convert`: Antoine constants from one convention to another.
 
+use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use ebullio::fit::options::ModelSelection;
 use ebullio::refit::refit;
-use ebullio::units::{parse_pressure, parse_temperature};
+use ebullio::units::parse_temperature;
 use ebullio::vapor::{convert, AntoineConstants, AntoineConvention};
 
 /// Convert Antoine constants between conventions (log base, pressure unit,

@@ -1,5 +1,6 @@
 //! `ebullio estimate`: boiling points, critical constants and a vapor-pressure curve from structure.
 
+use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use ebullio::estimate::anchor::MeasuredPoint;
@@ -8,7 +9,7 @@ use ebullio::estimate::{
     calibration, estimate_groups, estimate_smiles, group, parse_groups, Estimate, EstimateError,
 };
 use ebullio::table_io::read_text_table;
-use ebullio::units::{parse_pressure, parse_temperature, PressureUnit};
+use ebullio::units::{parse_temperature, PressureUnit};
 use rayon::prelude::*;
 use std::io::IsTerminal;
 use std::path::PathBuf;

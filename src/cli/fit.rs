@@ -1,13 +1,12 @@
 //! `ebullio fit`: fit vapor-pressure equations to measured (T, p) data.
 
+use super::common::{parse_pressure, parse_quantity};
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::fit::{At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
 use ebullio::table_io::{fit_set, read_measured, ReadOptions};
-use ebullio::units::{
-    parse_pressure, parse_quantity, parse_temperature, PressureUnit, Quantity, TemperatureUnit,
-};
+use ebullio::units::{parse_temperature, PressureUnit, Quantity, TemperatureUnit};
 use ebullio::vapor::AntoineConvention;
 use rayon::prelude::*;
 use std::io::IsTerminal;
@@ -125,6 +124,7 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
             t_unit,
             p_unit,
             decimal_comma: a.decimal_comma,
+            barometric_pa: super::common::barometric().map(|p| p.pa()),
         },
         fit: FitOptions {
             model,

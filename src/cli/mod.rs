@@ -33,6 +33,11 @@ pub use common::{InputError, Outcome};
 pub struct Cli {
     #[command(subcommand)]
     command: Command,
+    /// The site's barometric pressure (e.g. "1013 mbar"): gauge pressures
+    /// (barg, psig, kPa(g)) on the command line or in a file heading are made
+    /// absolute with it, and refused without it.
+    #[arg(long, global = true, value_name = "PRESSURE")]
+    barometric: Option<String>,
 }
 
 #[derive(Debug, Subcommand)]
@@ -61,6 +66,10 @@ pub fn main() -> ExitCode {
             return ExitCode::from(code);
         }
     };
+    if let Err(e) = common::set_barometric(cli.barometric.as_deref()) {
+        eprintln!("error: {e}");
+        return ExitCode::from(2);
+    }
     common::install_interrupt_handler();
     let result = match cli.command {
         Command::Fit(a) => fit::run(a),

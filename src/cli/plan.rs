@@ -1,10 +1,11 @@
 //! `ebullio plan`: separation plan for two or more components (pressure, α, Fenske stages, Rayleigh curve, verdict).
 
+use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::plan::{self, Component, Plan, PlanOptions, PressureRequest, RayleighModel};
-use ebullio::units::{parse_pressure, parse_temperature};
+use ebullio::units::parse_temperature;
 use ebullio::vapor::{AntoineConstants, AntoineConvention};
 use std::fmt::Write as _;
 use std::path::PathBuf;

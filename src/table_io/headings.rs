@@ -1,7 +1,7 @@
 //! Column headings: the IUPAC quantity/unit form (`T/K`, `p/kPa`, `u(T)/K`) and
 //! the bracket forms (`T [K]`, `p (kPa)`), mapped to roles and units.
 
-use crate::units::{PressureUnit, TemperatureUnit};
+use crate::units::{parse_pressure_scale, PressureScale, PressureUnit, TemperatureUnit};
 
 /// What a column holds.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -10,6 +10,8 @@ pub enum Role {
     Temperature(Option<TemperatureUnit>),
     /// Pressure, with its unit when the heading gives one.
     Pressure(Option<PressureUnit>),
+    /// Gauge pressure (`p/barg`, `p (kPa(g))`): needs the barometric pressure.
+    GaugePressure(PressureUnit),
     /// Standard uncertainty of temperature.
     UTemperature(Option<TemperatureUnit>),
     /// Standard uncertainty of pressure.
@@ -92,7 +94,10 @@ pub fn classify(h: &str) -> Result<Role, HeadingError> {
     let ql = q.to_ascii_lowercase();
     let role = match ql.as_str() {
         "t" | "temperature" | "temp" => Role::Temperature(t_unit(&u)?),
-        "p" | "pressure" | "p_sat" | "psat" => Role::Pressure(p_unit(&u)?),
+        "p" | "pressure" | "p_sat" | "psat" => match u.as_deref().map(parse_pressure_scale) {
+            Some(Ok(PressureScale::Gauge(g))) => Role::GaugePressure(g),
+            _ => Role::Pressure(p_unit(&u)?),
+        },
         "u(t)" => Role::UTemperature(t_unit(&u)?),
         "u(p)" => Role::UPressure(p_unit(&u)?),
         "compound" | "name" => Role::Compound,
@@ -118,6 +123,12 @@ mod tests {
             ("p (kPa)", Role::Pressure(Some(P::KPa))),
             ("u(p)/kPa", Role::UPressure(Some(P::KPa))),
             ("u(T) [K]", Role::UTemperature(Some(T::Kelvin))),
+            ("p/mbar(a)", Role::Pressure(Some(P::MBar))),
+            ("p (mm Hg)", Role::Pressure(Some(P::MmHg))),
+            ("p/TORR", Role::Pressure(Some(P::Torr))),
+            ("t/ºC", Role::Temperature(Some(T::Celsius))),
+            ("p/barg", Role::GaugePressure(P::Bar)),
+            ("p [kPa(g)]", Role::GaugePressure(P::KPa)),
             ("T", Role::Temperature(None)),
             ("compound", Role::Compound),
             ("note", Role::Other),

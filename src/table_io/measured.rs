@@ -40,6 +40,9 @@ pub struct ReadOptions {
     pub p_unit: Option<PressureUnit>,
     /// Semicolon-separated with decimal commas (`--decimal-comma`).
     pub decimal_comma: bool,
+    /// The site's barometric pressure in pascal (`--barometric`): gauge
+    /// pressure columns (`p/barg`) are made absolute with it, refused without.
+    pub barometric_pa: Option<f64>,
 }
 
 /// A non-fatal remark about the input (e.g. exact duplicate rows).
@@ -227,7 +230,7 @@ fn find_columns(path: &Path, headers: &[String], locus: Locus) -> Result<Columns
         })?;
         let slot = match role {
             Role::Temperature(_) => &mut t,
-            Role::Pressure(_) => &mut p,
+            Role::Pressure(_) | Role::GaugePressure(_) => &mut p,
             Role::UTemperature(_) => &mut ut,
             Role::UPressure(_) => &mut up,
             Role::Compound => {
@@ -337,8 +340,26 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
     let (ti, Role::Temperature(t_head)) = cols.t else {
         unreachable!("find_columns returns a temperature role")
     };
-    let (pi, Role::Pressure(p_head)) = cols.p else {
-        unreachable!("find_columns returns a pressure role")
+    let (pi, p_head, gauge) = match cols.p {
+        (i, Role::Pressure(u)) => (i, u, false),
+        (i, Role::GaugePressure(u)) => (i, Some(u), true),
+        _ => unreachable!("find_columns returns a pressure role"),
+    };
+    let barometric = if gauge && opts.p_unit.is_none() {
+        let Some(b) = opts.barometric_pa else {
+            return Err(ReadError::file(
+                path,
+                ReadErrorKind::HeadingUnit,
+                format!(
+                    "heading '{}' is a gauge pressure (relative to the atmosphere); give the site's barometric pressure, e.g. --barometric \"1013 mbar\", to convert it to absolute",
+                    heading(pi)
+                ),
+            )
+            .at_column(pi, heading(pi)));
+        };
+        b
+    } else {
+        0.0
     };
     let t_unit = opts.t_unit.or(t_head).ok_or_else(|| {
         ReadError::file(
@@ -390,6 +411,11 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
                 .at_column(ti, heading(ti))
         })?;
         let pv = number(path, line, locus, pi, heading(pi), cell(pi))?;
+        let pv = if barometric > 0.0 {
+            p_unit.from_pa(p_unit.to_pa(pv) + barometric)
+        } else {
+            pv
+        };
         let p = Pressure::new(pv, p_unit).map_err(|e| {
             ReadError::file(path, ReadErrorKind::NonPositivePressure, e.to_string())
                 .at_line(line, locus)

@@ -19,8 +19,10 @@ mod pressure;
 mod quantity;
 mod temperature;
 
-pub use pressure::{Pressure, PressureUnit};
-pub use quantity::{parse_pressure, parse_quantity, parse_temperature, Quantity};
+pub use pressure::{parse_pressure_scale, Pressure, PressureScale, PressureUnit};
+pub use quantity::{
+    parse_pressure, parse_pressure_at, parse_quantity, parse_temperature, Quantity,
+};
 pub use temperature::{Temperature, TemperatureUnit};
 
 /// Standard atmosphere in pascal (exact, NIST SP 811 App. B).
@@ -54,6 +56,16 @@ pub enum UnitError {
         /// The accepted symbols, comma-separated.
         accepted: String,
     },
+    /// A gauge pressure unit given where no barometric pressure is known.
+    #[error(
+        "'{unit}' is a gauge pressure (relative to the atmosphere); give the site's barometric pressure, e.g. --barometric \"1013 mbar\", to convert it to absolute, or write the value in absolute {base}"
+    )]
+    GaugePressure {
+        /// The unit as written.
+        unit: String,
+        /// The absolute unit it is a gauge form of.
+        base: String,
+    },
     /// A number with no unit after it.
     #[error("'{text}' has no unit; write it with one, e.g. {example}")]
     MissingUnit {
@@ -86,7 +98,7 @@ pub enum UnitError {
     },
     /// A zero or negative absolute pressure.
     #[error(
-        "{value} {unit} is not a positive absolute pressure (gauge pressures are not accepted)"
+        "{value} {unit} is not a positive absolute pressure (a gauge reading needs a gauge unit such as barg and the barometric pressure)"
     )]
     NonPositivePressure {
         /// The value as given.

@@ -39,7 +39,7 @@ pub enum PressureUnit {
     InHg,
 }
 
-pub(crate) const ACCEPTED_P: &str = "Pa, hPa, kPa, MPa, bar, mbar, atm, mmHg, Torr, psi, inHg";
+pub(crate) const ACCEPTED_P: &str = "Pa, hPa, kPa, MPa, bar, mbar, atm, mmHg, Torr, psi, inHg (any case; absolute markers bara, psia, mbar(a), mmHg abs; gauge barg, psig, kPa(g) with a barometric pressure)";
 
 impl PressureUnit {
     /// All units, in display order.
@@ -57,37 +57,30 @@ impl PressureUnit {
         PressureUnit::InHg,
     ];
 
-    /// Parse a unit symbol (case-sensitive where SI prefixes matter: `mPa` is not `MPa`).
+    /// Parse an absolute-pressure unit as people write it: any case except
+    /// where SI prefixes matter (`mPa` is not `MPa`), with an absolute marker
+    /// (`bara`, `psia`, `mbar(a)`, `mmHg abs`) or a space (`mm Hg`). Gauge
+    /// units (`barg`, `psig`, `kPa(g)`) are refused with
+    /// [`UnitError::GaugePressure`]: they need the barometric pressure
+    /// ([`parse_pressure_scale`] reads them).
     ///
     /// ```
     /// use ebullio::units::PressureUnit;
     /// assert_eq!(PressureUnit::parse("mmHg").unwrap(), PressureUnit::MmHg);
-    /// assert_eq!(PressureUnit::parse("torr").unwrap(), PressureUnit::Torr);
+    /// assert_eq!(PressureUnit::parse("TORR").unwrap(), PressureUnit::Torr);
+    /// assert_eq!(PressureUnit::parse("mbar(a)").unwrap(), PressureUnit::MBar);
+    /// assert_eq!(PressureUnit::parse("mmHg abs").unwrap(), PressureUnit::MmHg);
+    /// assert!(PressureUnit::parse("barg").is_err());
     /// assert!(PressureUnit::parse("furlong").is_err());
     /// ```
     pub fn parse(s: &str) -> Result<Self, UnitError> {
-        let t = s.trim();
-        let u = match t {
-            "Pa" | "pa" => Self::Pa,
-            "hPa" => Self::HPa,
-            "kPa" | "kpa" | "KPa" => Self::KPa,
-            "MPa" | "Mpa" => Self::MPa,
-            "bar" | "Bar" | "bara" => Self::Bar,
-            "mbar" | "mBar" | "mbara" => Self::MBar,
-            "atm" | "Atm" | "ATM" => Self::Atm,
-            "mmHg" | "mmhg" | "mm Hg" | "MMHG" => Self::MmHg,
-            "Torr" | "torr" => Self::Torr,
-            "psi" | "psia" | "PSI" | "PSIA" => Self::Psi,
-            "inHg" | "inhg" | "in Hg" => Self::InHg,
-            _ => {
-                return Err(UnitError::UnknownUnit {
-                    kind: "pressure",
-                    unit: t.to_string(),
-                    accepted: ACCEPTED_P.to_string(),
-                })
-            }
-        };
-        Ok(u)
+        match parse_pressure_scale(s)? {
+            PressureScale::Absolute(u) => Ok(u),
+            PressureScale::Gauge(u) => Err(UnitError::GaugePressure {
+                unit: s.trim().to_string(),
+                base: u.symbol().to_string(),
+            }),
+        }
     }
 
     /// The symbol used in ebullio's own output.
@@ -139,6 +132,135 @@ impl fmt::Display for PressureUnit {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(self.symbol())
     }
+}
+
+/// A pressure unit as written: absolute, or gauge (relative to the barometric pressure).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum PressureScale {
+    /// An absolute unit (`bar`, `bara`, `mbar(a)`, `mmHg abs`).
+    Absolute(PressureUnit),
+    /// A gauge unit (`barg`, `psig`, `kPa(g)`, `bar gauge`): add the barometric pressure.
+    Gauge(PressureUnit),
+}
+
+impl PressureScale {
+    /// The unit, absolute or gauge.
+    pub fn unit(self) -> PressureUnit {
+        match self {
+            Self::Absolute(u) | Self::Gauge(u) => u,
+        }
+    }
+
+    /// Absolute pascal from a value in this scale; a gauge value needs the
+    /// barometric pressure in pascal, else [`UnitError::GaugePressure`].
+    pub fn to_absolute_pa(self, v: f64, barometric_pa: Option<f64>) -> Result<f64, UnitError> {
+        match self {
+            Self::Absolute(u) => Ok(u.to_pa(v)),
+            Self::Gauge(u) => match barometric_pa {
+                Some(b) => Ok(u.to_pa(v) + b),
+                None => Err(UnitError::GaugePressure {
+                    unit: format!("{}g", u.symbol()),
+                    base: u.symbol().to_string(),
+                }),
+            },
+        }
+    }
+}
+
+/// Read a pressure unit as people write it, absolute or gauge.
+///
+/// Case is ignored except for the `Pa` prefixes (`MPa`, and `mPa` is refused
+/// rather than guessed). Absolute markers: a trailing `a` on `bara`, `mbara`,
+/// `psia`, `(a)`, `(abs)`, ` abs`, ` absolute`. Gauge markers: a trailing `g`
+/// on `barg`, `mbarg`, `psig`, `kPag`, `(g)`, ` g`, ` gauge`, `(gauge)`.
+///
+/// ```
+/// use ebullio::units::{parse_pressure_scale, PressureScale, PressureUnit};
+/// assert_eq!(parse_pressure_scale("barg").unwrap(), PressureScale::Gauge(PressureUnit::Bar));
+/// assert_eq!(parse_pressure_scale("kPa(g)").unwrap(), PressureScale::Gauge(PressureUnit::KPa));
+/// assert_eq!(parse_pressure_scale("Kpa").unwrap(), PressureScale::Absolute(PressureUnit::KPa));
+/// ```
+pub fn parse_pressure_scale(s: &str) -> Result<PressureScale, UnitError> {
+    let t = s.trim();
+    let unknown = || UnitError::UnknownUnit {
+        kind: "pressure",
+        unit: t.to_string(),
+        accepted: ACCEPTED_P.to_string(),
+    };
+    // Marker words and bracketed markers first, then the unit itself.
+    let lower = t.to_ascii_lowercase();
+    let (body, gauge) = strip_marker(t, &lower);
+    if let Some(u) = base_unit(body) {
+        return Ok(if gauge {
+            PressureScale::Gauge(u)
+        } else {
+            PressureScale::Absolute(u)
+        });
+    }
+    if body.len() == t.len() {
+        // A glued suffix: bara, psia, mbara, kPaa; barg, psig, mbarg, kPag.
+        for (suffix, g) in [('a', false), ('g', true), ('A', false), ('G', true)] {
+            if let Some(stem) = t.strip_suffix(suffix) {
+                if let Some(u) = base_unit(stem) {
+                    // "Pa"+"a" etc. fine; but never read a plain unit ending in a/g twice.
+                    return Ok(if g {
+                        PressureScale::Gauge(u)
+                    } else {
+                        PressureScale::Absolute(u)
+                    });
+                }
+            }
+        }
+    }
+    Err(unknown())
+}
+
+/// Strip an absolute or gauge marker written apart from the unit:
+/// `(a)`, `(abs)`, ` abs`, ` absolute`, `(g)`, `(gauge)`, ` g`, ` gauge`.
+fn strip_marker<'a>(t: &'a str, lower: &str) -> (&'a str, bool) {
+    const ABS: [&str; 5] = ["(a)", "(abs)", "(absolute)", " absolute", " abs"];
+    const GAUGE: [&str; 4] = ["(g)", "(gauge)", " gauge", " g"];
+    for m in ABS {
+        if lower.ends_with(m) && t.len() >= m.len() {
+            return (t[..t.len() - m.len()].trim_end(), false);
+        }
+    }
+    for m in GAUGE {
+        if lower.ends_with(m) && t.len() >= m.len() {
+            return (t[..t.len() - m.len()].trim_end(), true);
+        }
+    }
+    (t, false)
+}
+
+/// The plain unit: case-insensitive except the pascal prefixes.
+fn base_unit(t: &str) -> Option<PressureUnit> {
+    let t = t.trim();
+    // Pascal family: the prefix decides, so case matters for M/m.
+    match t {
+        "MPa" | "Mpa" | "MPA" => return Some(PressureUnit::MPa),
+        "mPa" | "mpa" => return None, // millipascal: never a vapor-pressure unit, never guessed
+        _ => {}
+    }
+    let squeezed: String = t
+        .chars()
+        .filter(|c| !c.is_whitespace() && *c != '.')
+        .collect::<String>()
+        .to_lowercase();
+    let u = match squeezed.as_str() {
+        "pa" => PressureUnit::Pa,
+        "hpa" => PressureUnit::HPa,
+        "kpa" => PressureUnit::KPa,
+        "bar" => PressureUnit::Bar,
+        "mbar" => PressureUnit::MBar,
+        "atm" => PressureUnit::Atm,
+        "mmhg" => PressureUnit::MmHg,
+        "torr" => PressureUnit::Torr,
+        "psi" => PressureUnit::Psi,
+        "inhg" => PressureUnit::InHg,
+        _ => return None,
+    };
+    Some(u)
 }
 
 /// An absolute pressure, stored in pascal; always finite and positive.

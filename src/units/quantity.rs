@@ -1,8 +1,9 @@
 //! Parsing quantities written with their unit, such as `"20 mbar"` or `"85 °C"`.
 
 use super::pressure::ACCEPTED_P;
+use super::pressure::{parse_pressure_scale, PressureScale};
 use super::temperature::ACCEPTED_T;
-use super::{Pressure, PressureUnit, Temperature, TemperatureUnit, UnitError};
+use super::{Pressure, Temperature, TemperatureUnit, UnitError};
 
 /// A temperature or a pressure read from text.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -84,13 +85,30 @@ pub fn parse_temperature(s: &str) -> Result<Temperature, UnitError> {
 }
 
 /// Parse a pressure with its unit: `"20 mbar"`, `"0.5 mmHg"`, `"1 atm"`, `"14.7 psi"`.
+/// A gauge pressure (`"0.5 barg"`) is refused with a hint: see [`parse_pressure_at`].
 ///
 /// ```
 /// use ebullio::units::parse_pressure;
 /// assert!((parse_pressure("1 atm").unwrap().pa() - 101_325.0).abs() < 1e-9);
 /// assert!(parse_pressure("0 mbar").is_err());
+/// assert!(parse_pressure("0.5 barg").unwrap_err().to_string().contains("--barometric"));
 /// ```
 pub fn parse_pressure(s: &str) -> Result<Pressure, UnitError> {
+    parse_pressure_at(s, None)
+}
+
+/// Parse a pressure, absolute or gauge; a gauge value is made absolute by
+/// adding `barometric` (the site's barometric pressure), and refused without it.
+///
+/// ```
+/// use ebullio::units::{parse_pressure, parse_pressure_at};
+/// let site = parse_pressure("1013 mbar").unwrap();
+/// let p = parse_pressure_at("0.5 barg", Some(site)).unwrap();
+/// assert!((p.pa() - 151_300.0).abs() < 1e-6);
+/// let vac = parse_pressure_at("-950 mbarg", Some(site)).unwrap();
+/// assert!((vac.pa() - 6_300.0).abs() < 1e-6);
+/// ```
+pub fn parse_pressure_at(s: &str, barometric: Option<Pressure>) -> Result<Pressure, UnitError> {
     const EX: &str = "\"20 mbar\" or \"101.325 kPa\"";
     let (num, unit) = split_number(s);
     let v = number(s, num, EX)?;
@@ -100,8 +118,25 @@ pub fn parse_pressure(s: &str) -> Result<Pressure, UnitError> {
             example: EX,
         });
     }
-    let u = PressureUnit::parse(unit)?;
-    Pressure::new(v, u)
+    match parse_pressure_scale(unit)? {
+        PressureScale::Absolute(u) => Pressure::new(v, u),
+        PressureScale::Gauge(u) => {
+            let Some(b) = barometric else {
+                return Err(UnitError::GaugePressure {
+                    unit: unit.to_string(),
+                    base: u.symbol().to_string(),
+                });
+            };
+            let pa = u.to_pa(v) + b.pa();
+            if pa <= 0.0 {
+                return Err(UnitError::NonPositivePressure {
+                    value: v,
+                    unit: unit.to_string(),
+                });
+            }
+            Pressure::from_pa(pa)
+        }
+    }
 }
 
 /// Parse either kind of quantity, deciding by the unit.
@@ -121,8 +156,15 @@ pub fn parse_quantity(s: &str) -> Result<Quantity, UnitError> {
             example: EX,
         });
     }
-    if let Ok(u) = PressureUnit::parse(unit) {
-        return Ok(Quantity::Pressure(Pressure::new(v, u)?));
+    match parse_pressure_scale(unit) {
+        Ok(PressureScale::Absolute(u)) => return Ok(Quantity::Pressure(Pressure::new(v, u)?)),
+        Ok(PressureScale::Gauge(u)) => {
+            return Err(UnitError::GaugePressure {
+                unit: unit.to_string(),
+                base: u.symbol().to_string(),
+            })
+        }
+        Err(_) => {}
     }
     if let Ok(u) = TemperatureUnit::parse(unit) {
         return Ok(Quantity::Temperature(Temperature::new(v, u)?));
@@ -137,6 +179,7 @@ pub fn parse_quantity(s: &str) -> Result<Quantity, UnitError> {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::units::PressureUnit;
     use proptest::prelude::*;
 
     #[test]
@@ -184,6 +227,89 @@ mod tests {
             Err(UnitError::NotANumber { .. })
         ));
         assert!(parse_quantity("3 parsecs").is_err());
+    }
+
+    // Units as people write them (spreadsheets, lab notebooks, supplier sheets).
+    #[test]
+    fn units_as_people_write_them() {
+        let p = |s: &str| {
+            parse_pressure(s)
+                .unwrap_or_else(|e| panic!("{s}: {e}"))
+                .pa()
+        };
+        let t = |s: &str| {
+            parse_temperature(s)
+                .unwrap_or_else(|e| panic!("{s}: {e}"))
+                .kelvin()
+        };
+        assert!((t("85 ºC") - 358.15).abs() < 1e-9); // U+00BA ordinal sign
+        assert!((t("85 ˚C") - 358.15).abs() < 1e-9);
+        assert!((t("300 °K") - 300.0).abs() < 1e-12);
+        assert!((t("85 DEGC") - 358.15).abs() < 1e-9);
+        assert!((t("85 °c") - 358.15).abs() < 1e-9);
+        for (text, pa) in [
+            ("760 TORR", 101_325.0),
+            ("20 MBAR", 2000.0),
+            ("20 Mbar", 2000.0),
+            ("101.325 Kpa", 101_325.0),
+            ("101.325 KPA", 101_325.0),
+            ("20 mbar(a)", 2000.0),
+            ("20 mbara", 2000.0),
+            ("1.01325 bara", 101_325.0),
+            ("1.01325 bar(abs)", 101_325.0),
+            (
+                "760 mm Hg",
+                101_325.0 * 133.322_387_415 / (101_325.0 / 760.0),
+            ),
+            (
+                "760 mmHg abs",
+                101_325.0 * 133.322_387_415 / (101_325.0 / 760.0),
+            ),
+            ("14.7 PSIA", 14.7 * 6_894.757_293),
+            ("2 MPa", 2.0e6),
+        ] {
+            assert!(
+                (p(text) - pa).abs() < 1e-6 * pa,
+                "{text}: {} vs {pa}",
+                p(text)
+            );
+        }
+        // mPa is millipascal, never read as MPa.
+        assert!(parse_pressure("2 mPa").is_err());
+    }
+
+    #[test]
+    fn gauge_units_need_a_barometric_pressure() {
+        for text in [
+            "0.5 barg",
+            "7 psig",
+            "50 kPa(g)",
+            "50 kPag",
+            "-900 mbarg",
+            "0.2 bar gauge",
+        ] {
+            let e = parse_pressure(text).unwrap_err();
+            assert!(matches!(e, UnitError::GaugePressure { .. }), "{text}: {e}");
+            let msg = e.to_string();
+            assert!(
+                msg.contains("gauge") && msg.contains("--barometric"),
+                "{msg}"
+            );
+            assert!(!msg.contains("unknown"), "{msg}");
+            assert!(matches!(
+                parse_quantity(text),
+                Err(UnitError::GaugePressure { .. })
+            ));
+        }
+        let site = parse_pressure("1013 mbar").unwrap();
+        let at = |s: &str| parse_pressure_at(s, Some(site)).unwrap().pa();
+        assert!((at("0.5 barg") - 151_300.0).abs() < 1e-6);
+        assert!((at("7 psig") - (7.0 * 6_894.757_293 + 101_300.0)).abs() < 1e-6);
+        assert!((at("50 kPa(g)") - 151_300.0).abs() < 1e-6);
+        // A vacuum below the site's pressure: -1013 mbarg is no pressure at all.
+        assert!(parse_pressure_at("-1013 mbarg", Some(site)).is_err());
+        // Absolute units ignore the barometric pressure.
+        assert!((at("20 mbar") - 2000.0).abs() < 1e-9);
     }
 
     fn any_t_unit() -> impl Strategy<Value = TemperatureUnit> {

@@ -22,7 +22,7 @@ pub enum TemperatureUnit {
 }
 
 /// Symbols accepted for temperature, for error messages.
-pub(crate) const ACCEPTED_T: &str = "K, °C (degC, C), °F (degF, F), °R (degR, R)";
+pub(crate) const ACCEPTED_T: &str = "K, °C (degC, C, ºC), °F (degF, F), °R (degR, R), in any case";
 
 impl TemperatureUnit {
     /// All units, in display order.
@@ -33,24 +33,36 @@ impl TemperatureUnit {
         TemperatureUnit::Rankine,
     ];
 
-    /// Parse a unit symbol: `K`, `°C`/`degC`/`C`, `°F`/`degF`/`F`, `°R`/`degR`/`R`.
+    /// Parse a unit symbol as people write it: `K`, `°C`/`degC`/`C`,
+    /// `°F`/`degF`/`F`, `°R`/`degR`/`R`, in any case, with the degree sign,
+    /// the ordinal sign `º` many spreadsheets produce, or a ring `˚`; `°K`
+    /// (an old form of kelvin) is read as kelvin.
     ///
     /// ```
     /// use ebullio::units::TemperatureUnit;
     /// assert_eq!(TemperatureUnit::parse("degC").unwrap(), TemperatureUnit::Celsius);
+    /// assert_eq!(TemperatureUnit::parse("ºC").unwrap(), TemperatureUnit::Celsius);
+    /// assert_eq!(TemperatureUnit::parse("°K").unwrap(), TemperatureUnit::Kelvin);
     /// assert!(TemperatureUnit::parse("kelvins?").is_err());
     /// ```
     pub fn parse(s: &str) -> Result<Self, UnitError> {
         let t = s.trim();
-        let u = match t {
-            "K" | "k" | "kelvin" | "Kelvin" => Self::Kelvin,
-            "°C" | "℃" | "degC" | "deg C" | "C" | "c" | "celsius" | "Celsius" | "oC" => {
-                Self::Celsius
-            }
-            "°F" | "℉" | "degF" | "deg F" | "F" | "fahrenheit" | "Fahrenheit" | "oF" => {
-                Self::Fahrenheit
-            }
-            "°R" | "degR" | "deg R" | "R" | "rankine" | "Rankine" => Self::Rankine,
+        let key: String = t
+            .chars()
+            .filter(|c| !c.is_whitespace())
+            .map(|c| match c {
+                'º' | '˚' | 'o' | 'O' => '°',
+                c => c.to_ascii_lowercase(),
+            })
+            .collect();
+        let key = key
+            .strip_prefix("deg")
+            .map_or(key.clone(), |r| format!("°{r}"));
+        let u = match key.as_str() {
+            "k" | "°k" | "kelvin" => Self::Kelvin,
+            "°c" | "℃" | "c" | "celsius" | "°celsius" => Self::Celsius,
+            "°f" | "℉" | "f" | "fahrenheit" | "°fahrenheit" => Self::Fahrenheit,
+            "°r" | "r" | "rankine" | "°rankine" => Self::Rankine,
             _ => {
                 return Err(UnitError::UnknownUnit {
                     kind: "temperature",
