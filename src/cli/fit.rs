@@ -186,13 +186,26 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .map(|(r, s)| match r {
             Ok(mut rep) => {
                 let smiles = args.smiles.as_deref().or(s.smiles.as_deref());
-                ebullio::reference::fit_check::check_fit(
+                let chk = ebullio::reference::fit_check::check_fit(
                     &mut rep,
                     lib,
                     args.compound.as_deref(),
                     smiles,
                     tol,
                 );
+                if let Some(units) = data.units {
+                    let pts: Vec<ebullio::fit::Point> = s
+                        .points
+                        .iter()
+                        .map(|p| ebullio::fit::Point {
+                            t_k: p.t_k,
+                            p_pa: p.p_pa,
+                            u_t_k: p.u_t_k,
+                            u_p_pa: p.u_p_pa,
+                        })
+                        .collect();
+                    ebullio::reference::fit_check::check_labels(&mut rep, &chk, &pts, units);
+                }
                 Row::Ok(Box::new(rep))
             }
             Err(e) => Row::Failed {

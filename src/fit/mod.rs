@@ -30,6 +30,7 @@ pub mod findings;
 pub mod linear;
 pub mod lsq;
 pub mod options;
+pub mod plausibility;
 pub mod report;
 pub mod stats;
 pub mod svd;

@@ -15,6 +15,7 @@ use super::options::{At, FitOptions, ModelSelection};
 use super::report::*;
 use super::stats::{external_studentized, runs_test, t_quantile};
 use crate::units::ATM_PA;
+use crate::units::tidy;
 use crate::vapor::{slope, Antoine, AntoineConvention, Curve, Equation, VaporEquation};
 use crate::vapor::{Clapeyron, Riedel, Wagner};
 
@@ -300,12 +301,14 @@ fn report_parameters(
     let params = (0..th.len())
         .map(|i| {
             let s = se.get(i).copied().unwrap_or(f64::NAN) * scale[i];
+            // 12 significant digits: the conversion to the convention leaves
+            // noise in the last places (2420.639999999931).
             ParameterEstimate {
                 name: names[i].into(),
-                value: vals[i],
-                std_error: s,
-                ci95_low: vals[i] - t95 * s,
-                ci95_high: vals[i] + t95 * s,
+                value: tidy(vals[i]),
+                std_error: tidy(s),
+                ci95_low: tidy(vals[i] - t95 * s),
+                ci95_high: tidy(vals[i] + t95 * s),
             }
         })
         .collect();

@@ -193,21 +193,31 @@ pub fn compare_with(
     out
 }
 
-/// Fitted Tb against a structure estimate: a finding when the difference is
-/// beyond three times the method's typical error for the structure.
+/// Fitted Tb against a structure estimate: a finding when the fitted value
+/// lies outside the estimate's own calibrated 90 % prediction interval
+/// `pi90_k` (and the message says when it is also beyond three times the
+/// method's typical error for the structure).
 pub fn compare_structure(
     fitted_tb_k: f64,
     estimate_tb_k: f64,
+    pi90_k: (f64, f64),
     typical_error_k: f64,
     smiles: &str,
 ) -> Option<Finding> {
     let d = fitted_tb_k - estimate_tb_k;
-    (d.abs() > 3.0 * typical_error_k).then(|| {
+    let (lo, hi) = pi90_k;
+    let outside = fitted_tb_k < lo || fitted_tb_k > hi;
+    outside.then(|| {
+        let far = if d.abs() > 3.0 * typical_error_k {
+            format!(", and more than three times the method's typical error ({typical_error_k:.1} K)")
+        } else {
+            String::new()
+        };
         finding(
             "structure-tb-disagrees",
             crate::severity::Severity::Warning,
             format!(
-                "The fitted normal boiling point {fitted_tb_k:.1} K differs from the structure estimate {estimate_tb_k:.1} K for {smiles} by {d:+.1} K, more than three times the method's typical error ({typical_error_k:.1} K)."
+                "The fitted normal boiling point {fitted_tb_k:.1} K lies outside the structure estimate's 90 % interval {lo:.1}–{hi:.1} K for {smiles} (estimate {estimate_tb_k:.1} K, difference {d:+.1} K{far}); check the data's units and the structure."
             ),
         )
     })

@@ -21,6 +21,9 @@ pub struct FitCheck {
     pub reference: Option<Comparison>,
     /// Structure estimate Tb (K) and its typical error, when compared.
     pub structure_tb_k: Option<(f64, f64)>,
+    /// The structure estimate's calibrated 90 % prediction interval, K, and
+    /// whether the fitted Tb lies inside it.
+    pub structure_tb_pi90_k: Option<(f64, f64, bool)>,
     /// Findings (also appended to the report's flags).
     pub findings: Vec<Finding>,
 }
@@ -45,6 +48,7 @@ pub fn check_fit(
         tolerances: tol,
         reference: None,
         structure_tb_k: None,
+        structure_tb_pi90_k: None,
         findings: Vec::new(),
     };
     let name = name.or(report.compound.as_deref());
@@ -71,7 +75,10 @@ pub fn check_fit(
     if let (Some(s), Some(tb)) = (smiles, report.normal_boiling_point_k.as_ref()) {
         if let Ok(e) = crate::estimate::estimate_smiles(s) {
             out.structure_tb_k = Some((e.tb_k, e.tb_typical_error_k));
-            if let Some(f) = compare_structure(tb.value, e.tb_k, e.tb_typical_error_k, s) {
+            let pi = (e.tb_pi90_low_k, e.tb_pi90_high_k);
+            let inside = tb.value >= pi.0 && tb.value <= pi.1;
+            out.structure_tb_pi90_k = Some((pi.0, pi.1, inside));
+            if let Some(f) = compare_structure(tb.value, e.tb_k, pi, e.tb_typical_error_k, s) {
                 out.findings.push(f);
             }
         }
@@ -79,6 +86,44 @@ pub fn check_fit(
     report.flags.extend(out.findings.iter().map(to_fit));
     report.reference_comparison = serde_json::to_value(&out).ok();
     out
+}
+
+/// Plausibility of the data as labelled ([`crate::fit::plausibility`]):
+/// swapped columns, pressure falling with temperature, ΔHvap outside what
+/// liquids show, and a pressure column that meets the reference (or the
+/// structure estimate's 90 % interval) only in another unit. `units` are the
+/// units the columns were read in. Findings go to the report's flags.
+pub fn check_labels(
+    report: &mut FitReport,
+    chk: &FitCheck,
+    points: &[crate::fit::Point],
+    units: (crate::units::TemperatureUnit, crate::units::PressureUnit),
+) {
+    use crate::fit::plausibility::{check_columns, check_pressure_unit};
+    let mut found = check_columns(points, units.0, units.1);
+    if found.is_empty() {
+        // A Clausius–Clapeyron extrapolation to Tb is good to a few kelvin
+        // over a typical range (common practice): allow 2 % of Tb, at least 3 K.
+        let known = match (&chk.reference, chk.structure_tb_k, chk.structure_tb_pi90_k) {
+            (Some(c), _, _) if c.tb_reference_k.is_some() => c.tb_reference_k.map(|t| {
+                (
+                    t,
+                    (0.02 * t).max(3.0),
+                    format!("the reference Tb of {}", c.compound),
+                )
+            }),
+            (_, Some((tb, _)), Some((lo, hi, _))) => Some((
+                tb,
+                (0.5 * (hi - lo)).max(3.0),
+                "the structure estimate's Tb".to_string(),
+            )),
+            _ => None,
+        };
+        if let Some((tb, tol, what)) = known {
+            found.extend(check_pressure_unit(points, units.1, tb, tol, &what));
+        }
+    }
+    report.flags.extend(found);
 }
 
 #[cfg(test)]
@@ -136,13 +181,47 @@ mod tests {
         let chk = check_fit(&mut r, lib, None, Some("CCCOC(C)=O"), Tolerances::default());
         assert!(chk.structure_tb_k.is_some());
         assert!(chk.findings.iter().any(|f| f.code == "reference-not-found"));
-        // The flag is raised exactly when the difference exceeds three typical errors.
-        let (tb_e, err) = chk.structure_tb_k.unwrap();
+        // The flag is raised exactly when the fitted Tb leaves the 90 % interval.
+        let (lo, hi, inside) = chk.structure_tb_pi90_k.unwrap();
         let tb_fit = r.normal_boiling_point_k.as_ref().unwrap().value;
+        assert_eq!(inside, (lo..=hi).contains(&tb_fit));
         let flagged = chk
             .findings
             .iter()
             .any(|f| f.code == "structure-tb-disagrees");
-        assert_eq!(flagged, (tb_fit - tb_e).abs() > 3.0 * err);
+        assert_eq!(flagged, !inside);
+    }
+
+    // Ethyl acetate points shifted 30 % in p: the fitted Tb moves about 8 K,
+    // inside three typical errors of the estimate but outside its 90 % interval.
+    #[test]
+    fn fitted_tb_outside_the_structure_90_percent_interval_is_a_finding() {
+        let lib = Library::bundled();
+        let ref_curve = lib.find("ethyl acetate").unwrap().best_curve().unwrap();
+        let e = crate::estimate::estimate_smiles("CCOC(C)=O").unwrap();
+        let mut hit = false;
+        for factor in [0.3, 0.5, 0.7, 1.4, 2.0, 3.0] {
+            let pts = points_from(&ref_curve, 280.0, 370.0, factor);
+            let mut r = fit_points(None, &pts, &FitOptions::default()).unwrap();
+            let chk = check_fit(
+                &mut r,
+                lib,
+                Some("no such compound"),
+                Some("CCOC(C)=O"),
+                Tolerances::default(),
+            );
+            let tb = r.normal_boiling_point_k.as_ref().unwrap().value;
+            let outside = tb < e.tb_pi90_low_k || tb > e.tb_pi90_high_k;
+            let f = chk
+                .findings
+                .iter()
+                .find(|f| f.code == "structure-tb-disagrees");
+            assert_eq!(f.is_some(), outside, "factor {factor}: Tb {tb}");
+            if let Some(f) = f {
+                assert!(f.message.contains("90 % interval"), "{}", f.message);
+                hit = true;
+            }
+        }
+        assert!(hit, "no shift left the interval");
     }
 }

@@ -67,6 +67,9 @@ pub struct MeasuredData {
     pub sets: Vec<MeasuredSet>,
     /// Non-fatal remarks.
     pub warnings: Vec<ReadWarning>,
+    /// The units the temperature and pressure columns were read in (for
+    /// output in the user's units and for re-reading the numbers as written).
+    pub units: Option<(TemperatureUnit, PressureUnit)>,
 }
 
 use super::error::{display_name, Locus, ReadError, ReadErrorKind};
@@ -396,6 +399,7 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
         source: display_name(path),
         sets: Vec::new(),
         warnings: Vec::new(),
+        units: Some((t_unit, p_unit)),
     };
     // Rows are borrowed as keys (no copy per row) and the maps sized once: on a batch of
     // 10,000 compounds the copies and rehashes cost as much as the fits.

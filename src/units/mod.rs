@@ -43,6 +43,40 @@ pub fn pa_to_mbar(p_pa: f64) -> f64 {
     p_pa / PA_PER_MBAR
 }
 
+/// Significant digits kept by [`tidy`].
+pub const TIDY_DIGITS: i32 = 12;
+
+/// Round to [`TIDY_DIGITS`] (12) significant digits. Unit conversions leave
+/// noise in the last places of a double (80.05 °C is 353.20000000000005 K,
+/// 1 mbar is 100.00000000000001 Pa); 12 digits remove it while keeping a
+/// thousand times more precision than any vapor-pressure measurement.
+/// Non-finite values and zero pass through.
+///
+/// ```
+/// use ebullio::units::tidy;
+/// assert_eq!(tidy(80.05 + 273.15), 353.2);
+/// assert_eq!(tidy(100.00000000000004), 100.0);
+/// assert_eq!(tidy(2420.639999999931), 2420.64);
+/// assert_eq!(tidy(1.0e-3 * 3.0), 0.003);
+/// ```
+pub fn tidy(x: f64) -> f64 {
+    if !x.is_finite() || x == 0.0 {
+        return x;
+    }
+    let e = x.abs().log10().floor() as i32;
+    let k = TIDY_DIGITS - 1 - e;
+    if k >= 0 {
+        if k > 22 {
+            return x; // 10^k would not be exact; such tiny numbers come from no conversion
+        }
+        let s = 10f64.powi(k);
+        (x * s).round() / s
+    } else {
+        let s = 10f64.powi(-k);
+        (x / s).round() * s
+    }
+}
+
 /// Error from reading a unit or a quantity.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum UnitError {

@@ -293,7 +293,7 @@ impl Pressure {
                 unit: unit.symbol().to_string(),
             });
         }
-        Ok(Self(unit.to_pa(v)))
+        Ok(Self(super::tidy(unit.to_pa(v))))
     }
 
     /// The value in pascal.

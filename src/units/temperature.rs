@@ -151,7 +151,7 @@ impl Temperature {
                 unit: unit.symbol().to_string(),
             });
         }
-        Ok(Self(k.max(0.0)))
+        Ok(Self(super::tidy(k.max(0.0))))
     }
 
     /// The value in kelvin.
