@@ -75,7 +75,12 @@ pub fn boiling_points(curve: &dyn Curve, pressures_pa: &[f64], k95: f64) -> Vec<
                 ci95_low_pa: None,
                 ci95_high_pa: None,
                 extrapolated: true,
-                error: format!("the curve does not reach {p} Pa"),
+                error: match curve.triple_point() {
+                    Some((tt, pt)) if p < pt => format!(
+                        "below the triple point ({pt} Pa at {tt} K): the substance sublimes there and has no boiling point"
+                    ),
+                    _ => format!("the curve does not reach {} Pa", crate::units::tidy(p)),
+                },
             },
         })
         .collect()
@@ -102,14 +107,41 @@ pub fn vapor_pressures(curve: &dyn Curve, temps_k: &[f64], k95: f64) -> Vec<Boil
                 ci95_low_pa: u_ln.map(|u| p * (-k95 * u).exp()),
                 ci95_high_pa: u_ln.map(|u| p * (k95 * u).exp()),
                 extrapolated: outside(curve, t),
-                error: if ok {
-                    String::new()
-                } else {
-                    format!("the curve is undefined at {t} K")
+                error: match curve.triple_point() {
+                    _ if ok => String::new(),
+                    Some((tt, pt)) if t < tt => format!(
+                        "below the triple point ({pt} Pa at {tt} K): the substance is solid there and its vapor pressure is a sublimation pressure"
+                    ),
+                    _ => format!("the curve is undefined at {} K", crate::units::tidy(t)),
                 },
             }
         })
         .collect()
+}
+
+#[cfg(test)]
+mod triple_point_tests {
+    use super::*;
+    use crate::reference::water::If97Saturation;
+
+    // IAPWS R7-97(2012): the IF97 saturation line starts at 273.15 K; the
+    // triple point is 273.16 K, 611.657 Pa.
+    #[test]
+    fn iapws_below_the_triple_point_is_said_in_words() {
+        let r = boiling_points(&If97Saturation, &[100.0], 1.96);
+        assert!(
+            r[0].error
+                .contains("below the triple point (611.657 Pa at 273.16 K)"),
+            "{}",
+            r[0].error
+        );
+        let r = vapor_pressures(&If97Saturation, &[260.0], 1.96);
+        assert!(
+            r[0].error.contains("below the triple point"),
+            "{}",
+            r[0].error
+        );
+    }
 }
 
 /// `steps` values from `lo` to `hi` spaced evenly in log (pressures).

@@ -79,4 +79,7 @@ impl Curve for ReferenceCurve {
     fn t_at(&self, p_pa: f64) -> Option<f64> {
         self.curve().t_at(p_pa)
     }
+    fn triple_point(&self) -> Option<(f64, f64)> {
+        self.curve().triple_point()
+    }
 }

@@ -78,6 +78,11 @@ impl Curve for If97Saturation {
     fn t_at(&self, p_pa: f64) -> Option<f64> {
         ts_k(p_pa)
     }
+    /// 273.16 K (exact by definition of the kelvin before 2019) and 611.657 Pa,
+    /// IAPWS R7-97(2012) Sect. 8.1 (triple-point pressure from the IF97 line).
+    fn triple_point(&self) -> Option<(f64, f64)> {
+        Some((273.16, 611.657))
+    }
 }
 
 #[cfg(test)]

@@ -623,7 +623,8 @@ mod tests {
             let _ = read(&s, &ReadOptions { decimal_comma: true, ..Default::default() });
         }
 
-        // Round trip: values written in a random unit read back in SI within 1e-12.
+        // Round trip: values written in a random unit read back in SI within
+        // 1e-11 (conversion results are kept to 12 significant digits, units::tidy).
         #[test]
         fn written_values_read_back(
             pts in proptest::collection::vec((1.0f64..2000.0, 1e-2f64..1e7), 1..20),
@@ -636,8 +637,8 @@ mod tests {
             }
             let d = read(&text, &ReadOptions::default()).unwrap();
             for ((t, p), got) in pts.iter().zip(&d.sets[0].points) {
-                prop_assert!(((got.t_k - t) / t).abs() < 1e-12);
-                prop_assert!(((got.p_pa - p) / p).abs() < 1e-12);
+                prop_assert!(((got.t_k - t) / t).abs() < 1e-11);
+                prop_assert!(((got.p_pa - p) / p).abs() < 1e-11);
             }
         }
     }

@@ -25,6 +25,12 @@ pub trait Curve: Send + Sync {
         None
     }
 
+    /// Triple point (K, Pa) when the source knows it: below it the substance
+    /// sublimes and has no boiling point, which messages say in those words.
+    fn triple_point(&self) -> Option<(f64, f64)> {
+        None
+    }
+
     /// Vapor pressure in pascal.
     fn p_pa(&self, t_k: f64) -> f64 {
         self.ln_p(t_k).exp()
