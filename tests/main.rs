@@ -14,6 +14,7 @@ mod fit;
 #[cfg(unix)]
 mod interrupt;
 mod plan;
+mod practitioner;
 mod reference;
 mod report;
 mod vle;

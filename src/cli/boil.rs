@@ -273,17 +273,22 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         cautions,
     };
     let text = match args.out.format() {
-        Format::Json => serde_json::to_string_pretty(&rep)? + "\n",
+        Format::Json => super::common::json_text(&rep)? + "\n",
         Format::Csv => {
             let mut s = String::from(
                 "p_pa,t_k,ci95_low_k,ci95_high_k,ci95_low_pa,ci95_high_pa,extrapolated,error\n",
             );
-            let o = |x: Option<f64>| x.map_or(String::new(), |v| format!("{v}"));
+            // A value that could not be computed is an empty cell (the error
+            // column says why), never NaN text; numbers to 12 significant digits.
+            let o = |x: Option<f64>| {
+                x.filter(|v| v.is_finite())
+                    .map_or(String::new(), |v| format!("{}", ebullio::units::tidy(v)))
+            };
             for r in &rep.results {
                 s.push_str(&format!(
                     "{},{},{},{},{},{},{},\"{}\"\n",
-                    r.p_pa,
-                    r.t_k,
+                    o(Some(r.p_pa)),
+                    o(Some(r.t_k)),
                     o(r.ci95_low_k),
                     o(r.ci95_high_k),
                     o(r.ci95_low_pa),
@@ -301,20 +306,31 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
 }
 
 fn table(rep: &Report) -> String {
+    use ebullio::units::{pa_to_mbar, CELSIUS_OFFSET};
     let mut s = format!("Source: {}\n\n", rep.source);
-    s.push_str("   p / mbar     t / degC    95 % interval / degC   note\n");
+    let vapor = rep.mode == "vapor-pressure";
+    // The interval is in the unit of the computed quantity: °C for a boiling
+    // temperature, mbar for a vapor pressure.
+    if vapor {
+        s.push_str("   t / degC     p / mbar    95 % interval / mbar   note\n");
+    } else {
+        s.push_str("   p / mbar     t / degC    95 % interval / degC   note\n");
+    }
+    let num = |x: f64, w: usize, d: usize| {
+        if x.is_finite() {
+            format!("{x:w$.d$}")
+        } else {
+            format!("{:>w$}", "-")
+        }
+    };
     for r in &rep.results {
         let ci = match (r.ci95_low_k, r.ci95_high_k, r.ci95_low_pa, r.ci95_high_pa) {
-            (Some(a), Some(b), _, _) => format!(
-                "{:8.2} .. {:8.2}",
-                a - ebullio::units::CELSIUS_OFFSET,
-                b - ebullio::units::CELSIUS_OFFSET
-            ),
-            (_, _, Some(a), Some(b)) => format!(
-                "{:7.2} .. {:7.2} mbar",
-                ebullio::units::pa_to_mbar(a),
-                ebullio::units::pa_to_mbar(b)
-            ),
+            (Some(a), Some(b), _, _) => {
+                format!("{:8.2} .. {:8.2}", a - CELSIUS_OFFSET, b - CELSIUS_OFFSET)
+            }
+            (_, _, Some(a), Some(b)) => {
+                format!("{:8.3} .. {:8.3}", pa_to_mbar(a), pa_to_mbar(b))
+            }
             _ => "-".into(),
         };
         let note = if !r.error.is_empty() {
@@ -324,13 +340,18 @@ fn table(rep: &Report) -> String {
         } else {
             String::new()
         };
-        s.push_str(&format!(
-            "{:11.3} {:12.2}    {:22} {}\n",
-            ebullio::units::pa_to_mbar(r.p_pa),
-            r.t_k - ebullio::units::CELSIUS_OFFSET,
-            ci,
-            note
-        ));
+        let (first, second) = if vapor {
+            (
+                num(r.t_k - CELSIUS_OFFSET, 11, 2),
+                num(pa_to_mbar(r.p_pa), 12, 3),
+            )
+        } else {
+            (
+                num(pa_to_mbar(r.p_pa), 11, 3),
+                num(r.t_k - CELSIUS_OFFSET, 12, 2),
+            )
+        };
+        s.push_str(&format!("{first} {second}    {ci:22} {note}\n"));
     }
     for n in &rep.notes {
         s.push_str(&format!("\nNote: {n}"));

@@ -133,7 +133,7 @@ fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow:
         max_rel_dev_pct: r.max_rel_dev_pct,
     };
     let text = match args.out.format() {
-        Format::Json => serde_json::to_string_pretty(&out)? + "\n",
+        Format::Json => super::common::json_text(&out)? + "\n",
         Format::Csv => {
             let mut s = String::from("model,name,value,convention,exact,max_rel_dev_pct\n");
             for p in &out.parameters {
@@ -193,7 +193,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         exact: true,
     };
     let text = match args.out.format() {
-        Format::Json => serde_json::to_string_pretty(&r)? + "\n",
+        Format::Json => super::common::json_text(&r)? + "\n",
         Format::Csv => format!(
             "A,B,C,convention,exact\n{},{},{},\"{}\",true\n",
             r.a, r.b, r.c, r.convention

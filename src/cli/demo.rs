@@ -42,13 +42,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             .with_context(|| format!("writing {}", p.display()))
     };
     w("report.html", &crate::demo::html(&run, &cmd))?;
-    w(
-        "fits.json",
-        &(serde_json::to_string_pretty(&run.fits)? + "\n"),
-    )?;
+    w("fits.json", &(super::common::json_text(&run.fits)? + "\n"))?;
     w(
         "estimates.json",
-        &(serde_json::to_string_pretty(&run.estimates)? + "\n"),
+        &(super::common::json_text(&run.estimates)? + "\n"),
     )?;
     w(
         "estimates.csv",
@@ -57,7 +54,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     if let Some(p) = &run.plan {
         w(
             "plan-result.json",
-            &(serde_json::to_string_pretty(&p.plan)? + "\n"),
+            &(super::common::json_text(&p.plan)? + "\n"),
         )?;
     }
     #[cfg(feature = "tables")]

@@ -301,9 +301,9 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let text = match args.out.format() {
         Format::Json => {
             if rows.len() == 1 {
-                serde_json::to_string_pretty(&rows[0])? + "\n"
+                super::common::json_text(&rows[0])? + "\n"
             } else {
-                serde_json::to_string_pretty(&rows)? + "\n"
+                super::common::json_text(&rows)? + "\n"
             }
         }
         Format::Csv => ebullio::table_io::estimates_csv(&rows, &ps)?,

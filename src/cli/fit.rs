@@ -247,8 +247,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .into());
     }
     let text = match args.out.format() {
-        Format::Json if rows.len() == 1 => serde_json::to_string_pretty(&rows[0])? + "\n",
-        Format::Json => serde_json::to_string_pretty(&rows)? + "\n",
+        Format::Json if rows.len() == 1 => super::common::json_text(&rows[0])? + "\n",
+        Format::Json => super::common::json_text(&rows)? + "\n",
         Format::Csv => csv_rows(&rows)?,
         Format::Table => rows.iter().map(table).collect::<Vec<_>>().join("\n"),
     };
@@ -458,6 +458,21 @@ fn table(r: &Row) -> String {
             p.leverage,
             if p.outlier { "  OUTLIER" } else { "" }
         );
+    }
+    if let (Some(tb), Some(v)) = (&rep.normal_boiling_point_k, &rep.reference_comparison) {
+        let est = v.get("structure_tb_k").and_then(|x| x.as_array());
+        let pi = v.get("structure_tb_pi90_k").and_then(|x| x.as_array());
+        if let (Some(est), Some(pi)) = (est, pi) {
+            let f = |a: &Vec<serde_json::Value>, i: usize| a.get(i).and_then(|x| x.as_f64());
+            if let (Some(e), Some(lo), Some(hi)) = (f(est, 0), f(pi, 0), f(pi, 1)) {
+                let inside = (lo..=hi).contains(&tb.value);
+                s += &format!(
+                    "  structure estimate: Tb {e:.1} K, 90 % interval {lo:.1}–{hi:.1} K; the fitted {:.2} K lies {}\n",
+                    tb.value,
+                    if inside { "inside it" } else { "OUTSIDE it" }
+                );
+            }
+        }
     }
     for f in &rep.flags {
         s += &format!("  [{}] {}: {}\n", f.severity, f.code, f.message);

@@ -265,7 +265,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             .with_context(|| format!("writing {}", path.display()))?;
     }
     let text = match args.out.format() {
-        Format::Json => serde_json::to_string_pretty(&p)? + "\n",
+        Format::Json => super::common::json_text(&p)? + "\n",
         Format::Csv => csv_table(&p)?,
         Format::Table => table(&p),
     };

@@ -136,7 +136,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
 
 fn list_text(list: &[CompoundOut], f: Format, user: Option<&str>) -> anyhow::Result<String> {
     Ok(match f {
-        Format::Json => serde_json::to_string_pretty(list)? + "\n",
+        Format::Json => super::common::json_text(list)? + "\n",
         Format::Csv => {
             let mut s = String::from("name,smiles,cas,tb_k,antoine_rows,synonyms\n");
             for c in list {
@@ -176,7 +176,7 @@ fn list_text(list: &[CompoundOut], f: Format, user: Option<&str>) -> anyhow::Res
 
 fn show(c: &CompoundOut, f: Format) -> anyhow::Result<String> {
     Ok(match f {
-        Format::Json => serde_json::to_string_pretty(c)? + "\n",
+        Format::Json => super::common::json_text(c)? + "\n",
         Format::Csv => {
             let mut s = String::from(
                 "name,A,B,C,convention,t_min_k,t_max_k,tb_implied_k,u_p_pct,source,note,file,line\n",

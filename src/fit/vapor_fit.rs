@@ -14,8 +14,8 @@ use super::findings::{Finding, Severity};
 use super::options::{At, FitOptions, ModelSelection};
 use super::report::*;
 use super::stats::{external_studentized, runs_test, t_quantile};
-use crate::units::ATM_PA;
 use crate::units::tidy;
+use crate::units::ATM_PA;
 use crate::vapor::{slope, Antoine, AntoineConvention, Curve, Equation, VaporEquation};
 use crate::vapor::{Clapeyron, Riedel, Wagner};
 
