@@ -51,13 +51,13 @@ pub(crate) fn clean_rows(
 }
 
 /// Fraction of rows that get any `slip-*` finding, and the fraction flagged as mismatched.
-pub(crate) fn false_cause_rate(rows: &Vec<RowInput<'_>>, tol_k: f64) -> (f64, f64) {
+pub(crate) fn false_cause_rate(rows: &dyn super::Rows, tol_k: f64) -> (f64, f64) {
     let mut ctx = ScreenContext::default();
     ctx.options.tolerance_k = tol_k;
     let report = screen(rows, None, &ctx);
     let mut slips = 0usize;
     let mut mism = 0usize;
-    for i in 0..rows.len() {
+    for i in 0..rows.n_rows() {
         let f = report.findings(i);
         if f.iter().any(|x| x.code.as_str().starts_with("slip-")) {
             slips += 1;
@@ -67,8 +67,8 @@ pub(crate) fn false_cause_rate(rows: &Vec<RowInput<'_>>, tol_k: f64) -> (f64, f6
         }
     }
     (
-        slips as f64 / rows.len() as f64,
-        mism as f64 / rows.len() as f64,
+        slips as f64 / rows.n_rows() as f64,
+        mism as f64 / rows.n_rows() as f64,
     )
 }
 
