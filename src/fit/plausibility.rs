@@ -273,8 +273,8 @@ mod tests {
         let pts: Vec<Point> = toluene_points(1.0)
             .iter()
             .map(|p| Point {
-                t_k: p.p_pa / 1000.0 + 273.15,
-                p_pa: (p.t_k - 273.15) * 1000.0,
+                t_k: p.p_pa / 1000.0 + crate::units::CELSIUS_OFFSET,
+                p_pa: (p.t_k - crate::units::CELSIUS_OFFSET) * 1000.0,
                 u_t_k: None,
                 u_p_pa: None,
             })
