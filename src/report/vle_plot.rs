@@ -1,27 +1,24 @@
 //! SVG for a binary's vapor–liquid equilibrium: the T–x–y (or p–x–y) diagram and the y–x curve.
 
+use super::palette::{self, draw, font, INK, PAPER, RULE};
 use super::plan_plot::PlotError;
-use crate::mixture::VleStudy;
+use crate::mixture::{DiagramRow, VleStudy};
+use crate::units::CELSIUS_OFFSET;
 use plotters::prelude::*;
 
 fn err<E: std::fmt::Display>(e: E) -> PlotError {
     PlotError(e.to_string())
 }
 
-/// Liquid (bubble) line, vapor (dew) line, diagonal, markers: our own muted set.
-const LIQUID: RGBColor = RGBColor(38, 70, 110);
-const VAPOR: RGBColor = RGBColor(176, 96, 40);
-const GUIDE: RGBColor = RGBColor(150, 150, 150);
-const MARK: RGBColor = RGBColor(30, 30, 30);
-
 /// Draw the study as one SVG document (1000 × 450 px): on the left the bubble
-/// and dew lines (t/°C against x1, y1 at a pressure; p/kPa at a temperature)
-/// with azeotropes marked; on the right y1 against x1 with the diagonal.
+/// (series 1) and dew (series 2) lines, t/°C against x1 and y1 at a pressure or
+/// p/kPa at a temperature, azeotropes as ink discs; on the right y1 against x1
+/// with the diagonal as a rule line.
 pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
     let isobaric = study.pressure_pa.is_some();
-    let val = |r: &crate::mixture::DiagramRow| {
+    let val = |r: &DiagramRow| {
         if isobaric {
-            r.t_k.unwrap_or(f64::NAN) - crate::units::CELSIUS_OFFSET
+            r.t_k.unwrap_or(f64::NAN) - CELSIUS_OFFSET
         } else {
             r.p_pa.unwrap_or(f64::NAN) / 1000.0
         }
@@ -35,27 +32,34 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
         return Err(PlotError("the diagram has no finite points".into()));
     }
     let pad = ((hi - lo) * 0.08).max(0.5);
-    let names = study
-        .components
-        .iter()
-        .map(|c| c.name.as_str())
-        .collect::<Vec<_>>();
+    let names: Vec<&str> = study.components.iter().map(|c| c.name.as_str()).collect();
     let n1 = names.first().copied().unwrap_or("1");
     let fixed = match (study.pressure_pa, study.temperature_k) {
         (Some(p), _) => format!("at {:.2} kPa", p / 1000.0),
-        (_, Some(t)) => format!("at {:.2} °C", t - crate::units::CELSIUS_OFFSET),
+        (_, Some(t)) => format!("at {:.2} °C", t - CELSIUS_OFFSET),
         _ => String::new(),
     };
+    let marks: Vec<(f64, f64)> = study
+        .azeotropes
+        .iter()
+        .filter_map(|a| {
+            let v = if isobaric {
+                a.t_k? - CELSIUS_OFFSET
+            } else {
+                a.p_pa? / 1000.0
+            };
+            Some((a.x1, v))
+        })
+        .collect();
     let mut buf = String::new();
     {
         let root = SVGBackend::with_string(&mut buf, (1000, 450)).into_drawing_area();
-        root.fill(&WHITE).map_err(err)?;
+        root.fill(&PAPER.rgb()).map_err(err)?;
         let (left, right) = root.split_horizontally(500);
-        let ylabel = if isobaric { "t / °C" } else { "p / kPa" };
         let mut ch = ChartBuilder::on(&left)
             .caption(
                 format!("{} {fixed} ({})", names.join(" / "), study.activity_model),
-                ("sans-serif", 16),
+                font(16),
             )
             .margin(12)
             .x_label_area_size(40)
@@ -64,44 +68,37 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .map_err(err)?;
         ch.configure_mesh()
             .x_desc(format!("x1, y1 (mole fraction {n1})"))
-            .y_desc(ylabel)
-            .light_line_style(WHITE)
+            .y_desc(if isobaric { "t / °C" } else { "p / kPa" })
+            .axis_style(INK.rgb())
+            .bold_line_style(palette::GRID.rgb())
+            .light_line_style(palette::SHADE.rgb())
+            .label_style(font(12))
+            .axis_desc_style(font(14))
             .draw()
             .map_err(err)?;
-        ch.draw_series(LineSeries::new(liquid.clone(), LIQUID.stroke_width(2)))
-            .map_err(err)?
-            .label("bubble (liquid)")
-            .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 18, y)], LIQUID.stroke_width(2)));
-        ch.draw_series(LineSeries::new(vapor, VAPOR.stroke_width(2)))
-            .map_err(err)?
-            .label("dew (vapor)")
-            .legend(|(x, y)| PathElement::new(vec![(x, y), (x + 18, y)], VAPOR.stroke_width(2)));
-        let marks: Vec<(f64, f64)> = study
-            .azeotropes
-            .iter()
-            .filter_map(|a| {
-                let v = if isobaric {
-                    a.t_k? - crate::units::CELSIUS_OFFSET
-                } else {
-                    a.p_pa? / 1000.0
-                };
-                Some((a.x1, v))
-            })
-            .collect();
+        draw::line(
+            &mut ch,
+            &liquid,
+            palette::series(0),
+            Some("bubble (liquid)"),
+        )
+        .map_err(err)?;
+        draw::line(&mut ch, &vapor, palette::series(1), Some("dew (vapor)")).map_err(err)?;
         if !marks.is_empty() {
-            ch.draw_series(marks.iter().map(|&p| Circle::new(p, 5, MARK.filled())))
+            ch.draw_series(marks.iter().map(|&p| Circle::new(p, 5, INK.rgb().filled())))
                 .map_err(err)?
                 .label("azeotrope (predicted)")
-                .legend(|(x, y)| Circle::new((x + 9, y), 4, MARK.filled()));
+                .legend(|(x, y)| Circle::new((x + 12, y), 4, INK.rgb().filled()));
         }
         ch.configure_series_labels()
-            .border_style(GUIDE)
-            .background_style(WHITE.mix(0.9))
+            .background_style(PAPER.rgb().mix(0.85))
+            .border_style(RULE.rgb())
+            .label_font(font(12))
             .draw()
             .map_err(err)?;
 
         let mut ch = ChartBuilder::on(&right)
-            .caption("equilibrium curve y1(x1)", ("sans-serif", 16))
+            .caption("equilibrium curve y1(x1)", font(16))
             .margin(12)
             .x_label_area_size(40)
             .y_label_area_size(55)
@@ -110,24 +107,63 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
         ch.configure_mesh()
             .x_desc("x1 (liquid)")
             .y_desc("y1 (vapor)")
-            .light_line_style(WHITE)
+            .axis_style(INK.rgb())
+            .bold_line_style(palette::GRID.rgb())
+            .light_line_style(palette::SHADE.rgb())
+            .label_style(font(12))
+            .axis_desc_style(font(14))
             .draw()
             .map_err(err)?;
         ch.draw_series(LineSeries::new(
             vec![(0.0, 0.0), (1.0, 1.0)],
-            GUIDE.stroke_width(1),
+            RULE.rgb().stroke_width(1),
         ))
         .map_err(err)?;
         let yx: Vec<(f64, f64)> = study.diagram.iter().map(|r| (r.x1, r.y1)).collect();
-        ch.draw_series(LineSeries::new(yx, LIQUID.stroke_width(2)))
-            .map_err(err)?;
+        draw::line(&mut ch, &yx, palette::series(0), None).map_err(err)?;
         ch.draw_series(
             marks
                 .iter()
-                .map(|&(x, _)| Circle::new((x, x), 5, MARK.filled())),
+                .map(|&(x, _)| Circle::new((x, x), 5, INK.rgb().filled())),
         )
         .map_err(err)?;
         root.present().map_err(err)?;
     }
     Ok(buf)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::mixture::{vle_study, Condition, StudyComponent, StudyOptions, Unifac};
+    use crate::vapor::{AntoineConstants, AntoineConvention};
+
+    /// Ethanol / water with Smith, Van Ness & Abbott App. B Table B.2 constants:
+    /// the drawing keeps to the palette and marks the azeotrope.
+    #[test]
+    fn vle_plot_keeps_to_the_palette() {
+        let conv: AntoineConvention = "ln,kPa,degC".parse().unwrap();
+        let e = AntoineConstants::new(16.8958, 3795.17, 230.918, conv);
+        let w = AntoineConstants::new(16.3872, 3885.70, 230.170, conv);
+        let m = Unifac::from_smiles(["CCO", "O"]).unwrap();
+        let c = |name, curve| StudyComponent {
+            name,
+            smiles: None,
+            source: "test",
+            curve,
+        };
+        let s = vle_study(
+            [c("ethanol", &e), c("water", &w)],
+            &m,
+            &StudyOptions {
+                condition: Condition::Pressure(crate::units::ATM_PA),
+                points: 51,
+            },
+        )
+        .unwrap();
+        let svg = vle_svg(&s).unwrap();
+        let foreign = palette::foreign_colours(&svg);
+        assert!(foreign.is_empty(), "{foreign:?}");
+        assert!(svg.contains("azeotrope (predicted)"));
+    }
 }
