@@ -61,6 +61,10 @@ fn unifac_textbook_group_assignments() {
         ("CCCS", "CH2SH 1, CH3 1, CH2 1"),
         ("CC(C)=O", "CH3CO 1, CH3 1"),
         ("CC(=O)c1ccccc1", "ACH 5, AC 1, CH3CO 1"),
+        ("c1ccncc1", "C5H5N 1"),
+        ("Cc1ccccn1", "C5H4N 1, CH3 1"),
+        ("c1ccsc1", "C4H4S 1"),
+        ("Cc1cccs1", "C4H3S 1, CH3 1"),
     ];
     for (smiles, want) in cases {
         assert_eq!(groups(smiles), want, "{smiles}");
@@ -88,6 +92,9 @@ fn unassigned_atoms_and_missing_pairs_are_named_errors() {
         }
     );
     assert!(e.to_string().contains("CCOO (11) and CNH2 (14)"), "{e}");
+    // Fused heteroaromatics (quinoline) have no original-UNIFAC subgroup here.
+    let e = assign_subgroups(&parse_smiles("c1ccc2ncccc2c1").unwrap()).unwrap_err();
+    assert!(e.to_string().contains("atom N at position 7"), "{e}");
     let e = assign_subgroups(&parse_smiles("CP(C)C").unwrap()).unwrap_err();
     assert!(e.to_string().contains("atom P at position 2"), "{e}");
 }

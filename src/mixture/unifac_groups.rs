@@ -3,7 +3,8 @@
 //! Every heavy atom goes to exactly one subgroup. Whole molecules that are
 //! their own subgroup (water, methanol, formic acid, CS2, DMSO, DMF, NMP,
 //! furfural, ethylene glycol, acrylonitrile, morpholine) are recognised by
-//! structure. Then multi-atom functional subgroups take their atoms (acid,
+//! structure. Simple (not fused) pyridine and thiophene rings are one subgroup
+//! each, named by the hydrogens left on the ring. Then multi-atom functional subgroups take their atoms (acid,
 //! ester, aldehyde, ketone, nitrile, nitro, amines, alcohol, ether, thiol and
 //! sulfide, halogens), each taking the neighbouring alkyl carbon the published
 //! subgroup includes (CH3 before CH2 before CH), then aromatic carbons (ACH,
@@ -107,14 +108,20 @@ pub fn assign_subgroups(m: &Molecule) -> Result<SubgroupCounts, MixtureError> {
             ));
         }
     }
+    a.hetero_rings(&id);
     a.functional(&id).map_err(|(i, r)| err(i, r))?;
     a.aromatic_carbons(&id);
     a.multiple_bonds(&id).map_err(|(i, r)| err(i, r))?;
     a.sp3_carbons(&id).map_err(|(i, r)| err(i, r))?;
-    if let Some(&i) = heavy.iter().find(|&&i| !a.used[i]) {
+    // Name a hetero atom first when one is left: it is usually the cause.
+    let left = heavy
+        .iter()
+        .find(|&&i| !a.used[i] && m.atoms()[i].element != Element::C)
+        .or_else(|| heavy.iter().find(|&&i| !a.used[i]));
+    if let Some(&i) = left {
         let reason = match m.atoms()[i].element {
             Element::N if m.atoms()[i].aromatic => {
-                "aromatic nitrogen other than unsubstituted-ring pyridine is not covered"
+                "aromatic nitrogen other than in a simple pyridine ring is not covered"
             }
             Element::N => {
                 "nitrogen in an environment with no original-UNIFAC subgroup (amide, imine, …)"
@@ -166,6 +173,8 @@ impl Assigner<'_> {
     }
     fn add(&mut self, id: u16, atoms: &[usize]) {
         for &i in atoms {
+            // Every pass checks `used` before taking an atom: each is taken once.
+            debug_assert!(!self.used[i], "atom {i} assigned twice");
             self.used[i] = true;
         }
         *self.out.entry(id).or_insert(0) += 1;
@@ -528,6 +537,67 @@ impl Assigner<'_> {
             }
         }
         Ok(())
+    }
+
+    /// Pyridine (aromatic N in a six-ring of five carbons) and thiophene
+    /// (aromatic S in a five-ring of four carbons), not fused: the ring is one
+    /// subgroup named by the hydrogens left on its carbons (C5H4N = one
+    /// substituent); substituents are assigned by the later passes.
+    fn hetero_rings(&mut self, id: &dyn Fn(&str) -> u16) {
+        let n = self.m.atoms().len();
+        for h in 0..n {
+            let (size, names): (usize, [&str; 3]) = match self.el(h) {
+                Element::N => (6, ["C5H5N", "C5H4N", "C5H3N"]),
+                Element::S => (5, ["C4H4S", "C4H3S", "C4H2S"]),
+                _ => continue,
+            };
+            if self.used[h] || !self.m.atoms()[h].aromatic || self.h(h) != 0 {
+                continue;
+            }
+            let Some(ring) = self.simple_aromatic_ring(h, size) else {
+                continue;
+            };
+            let hydrogens: u32 = ring[1..].iter().map(|&c| self.h(c)).sum();
+            let full = (size - 1) as u32;
+            let k = full.saturating_sub(hydrogens) as usize;
+            if hydrogens > full || k > 2 {
+                continue;
+            }
+            self.add(id(names[k]), &ring);
+        }
+    }
+
+    /// The ring `[h, c1, …]` of `size` atoms through `h` whose other atoms are
+    /// aromatic carbons each with exactly two aromatic ring neighbours (no fusion).
+    fn simple_aromatic_ring(&self, h: usize, size: usize) -> Option<Vec<usize>> {
+        let arom = |i: usize| -> Vec<usize> {
+            self.heavy_nb(i)
+                .into_iter()
+                .filter(|&(j, o)| o == BondOrder::Aromatic && self.m.atoms()[j].aromatic)
+                .map(|(j, _)| j)
+                .collect()
+        };
+        let start = arom(h);
+        if start.len() != 2 {
+            return None;
+        }
+        let mut ring = vec![h, start[0]];
+        while ring.len() < size {
+            let cur = ring[ring.len() - 1];
+            let prev = ring[ring.len() - 2];
+            let nb = arom(cur);
+            if self.el(cur) != Element::C || nb.len() != 2 || self.used[cur] {
+                return None;
+            }
+            ring.push(*nb.iter().find(|&&j| j != prev)?);
+        }
+        let last = ring[size - 1];
+        let closes = self.el(last) == Element::C
+            && !self.used[last]
+            && arom(last).len() == 2
+            && arom(last).contains(&h)
+            && ring.iter().filter(|&&a| a == h).count() == 1;
+        closes.then_some(ring)
     }
 
     fn aromatic_carbons(&mut self, id: &dyn Fn(&str) -> u16) {
