@@ -34,6 +34,7 @@
 //! assert!(n > 9.0 && n < 11.0);
 //! ```
 
+pub mod column;
 mod component;
 pub mod fenske;
 pub mod limits;
