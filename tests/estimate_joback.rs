@@ -1,10 +1,10 @@
 //! Joback estimation: the group table pinned cell by cell to the verified
 //! transcription, self-consistency vectors computed from that table, hand-counted
-//! groups, and the measured dev set.
+//! groups. The measured accuracy (cross-validated and held-out, replacing the
+//! earlier in-sample dev-set checks) is in `estimate_tb_model.rs`.
 
 use ebullio::estimate::{
-    assign_groups, calibration, estimate_groups, estimate_smiles, joback, parse_groups,
-    EstimateError,
+    assign_groups, estimate_groups, estimate_smiles, joback, parse_groups, EstimateError,
 };
 use ebullio::molecule::parse_smiles;
 
@@ -86,15 +86,23 @@ fn acetone_self_consistency_joback_md_section6() {
     assert_eq!(e.groups.get("ch3"), Some(&2));
     assert_eq!(e.groups.get("co_chain"), Some(&1));
     assert_eq!(e.n_atoms, 10);
-    assert!(close(e.tb_joback_k, 321.91, 0.005), "{}", e.tb_joback_k);
     assert!(
-        close(e.tb_stein_brown_k, 326.76, 0.01),
-        "{}",
+        close(e.tb_joback_k.unwrap(), 321.91, 0.005),
+        "{:?}",
+        e.tb_joback_k
+    );
+    assert!(
+        close(e.tb_stein_brown_k.unwrap(), 326.76, 0.01),
+        "{:?}",
         e.tb_stein_brown_k
     );
     assert!(close(e.tm_k.unwrap(), 173.5, 0.005));
     // Tc from the Joback Tb, as in the worked example.
-    assert!(close(joback::tc_k(e.tb_joback_k, 0.0662), 500.248, 0.01));
+    assert!(close(
+        joback::tc_k(e.tb_joback_k.unwrap(), 0.0662),
+        500.248,
+        0.01
+    ));
     assert!(close(e.pc_bar.unwrap(), 48.025, 0.005), "{:?}", e.pc_bar);
     assert!(close(e.vc_cm3_mol.unwrap(), 209.5, 1e-9));
     assert!(close(e.hf_kj_mol.unwrap(), -217.83, 0.005));
@@ -112,15 +120,15 @@ fn acetone_self_consistency_joback_md_section6() {
 #[test]
 fn ethanol_toluene_thiophene_joback_md_section6() {
     let e = estimate_smiles("CCO").unwrap();
-    assert!(close(e.tb_joback_k, 337.34, 0.005));
+    assert!(close(e.tb_joback_k.unwrap(), 337.34, 0.005));
     assert!(close(e.pc_bar.unwrap(), 57.566, 0.005));
     assert!(close(e.hvap_tb_kj_mol.unwrap(), 36.725, 0.001));
     let t = estimate_smiles("Cc1ccccc1").unwrap();
-    assert!(close(t.tb_joback_k, 386.24, 0.005));
+    assert!(close(t.tb_joback_k.unwrap(), 386.24, 0.005));
     assert!(close(t.pc_bar.unwrap(), 41.144, 0.005));
     assert!(close(t.cp.unwrap().at(298.15), 106.583, 0.005));
     let s = estimate_smiles("c1ccsc1").unwrap();
-    assert!(close(s.tb_joback_k, 357.02, 0.005));
+    assert!(close(s.tb_joback_k.unwrap(), 357.02, 0.005));
     assert!(close(s.pc_bar.unwrap(), 57.132, 0.005));
 }
 
@@ -187,8 +195,11 @@ fn atoms_without_a_group_are_named_with_position() {
         "{e}"
     );
     assert!(e.to_string().contains("phosphorus"), "{e}");
-    let e = estimate_smiles("CN1CCCC1").unwrap_err();
+    // The published table has no ring >N-: the published assignment says so, while the
+    // estimate goes on with this project's n_ring_tert group.
+    let e = assign_groups(&parse_smiles("CN1CCCC1").unwrap()).unwrap_err();
     assert!(e.to_string().contains("ring tertiary nitrogen"), "{e}");
+    assert!(estimate_smiles("CN1CCCC1").unwrap().tb_joback_k.is_none());
     let e = estimate_smiles("CCO.Cl").unwrap_err();
     assert!(e.to_string().contains("estimate each component"), "{e}");
 }
@@ -200,41 +211,4 @@ fn manual_groups_match_the_smiles_route() {
     let b = estimate_smiles("CCCCC").unwrap();
     assert_eq!(a.tb_k, b.tb_k);
     assert_eq!(a.pc_bar, b.pc_bar);
-}
-
-/// Source: reference-data/normal-boiling-points-dev.csv (each row names its
-/// handbook source). Bound set before measuring: 20 K (the method's commonly
-/// quoted error is about 13 K on its own fitting set, from memory; the dev set
-/// holds very small molecules where it is known to be poor).
-#[test]
-fn dev_set_mean_absolute_error_normal_boiling_points_dev_csv() {
-    let c = calibration();
-    println!(
-        "dev set: {} of {} estimated; MAE joback {:.2} K, stein-brown {:.2} K, switched {:.2} K; recommended {} MAE {:.2} K bias {:+.2} K; q90 {:.4}; coverage in-sample {:.3}, leave-one-out {:.3}",
-        c.n_estimated, c.n_total, c.mae_joback_k, c.mae_stein_brown_k, c.mae_switched_k,
-        c.variant.name(), c.mae_recommended_k, c.bias_recommended_k, c.q90,
-        c.coverage_in_sample, c.coverage_leave_one_out
-    );
-    for r in &c.rows {
-        if let Some(e) = &r.error {
-            println!("  not estimated: {} {}: {e}", r.compound, r.smiles);
-        }
-    }
-    assert!(
-        c.n_estimated * 10 >= c.n_total * 9,
-        "coverage of structures"
-    );
-    assert!(c.mae_joback_k < 20.0, "joback MAE {}", c.mae_joback_k);
-    assert!(
-        c.mae_recommended_k < 20.0,
-        "recommended MAE {}",
-        c.mae_recommended_k
-    );
-    assert!(c.mae_recommended_k <= c.mae_joback_k + 1e-12);
-    assert!(c.coverage_in_sample >= 0.9);
-    assert!(
-        c.coverage_leave_one_out >= 0.8,
-        "{}",
-        c.coverage_leave_one_out
-    );
 }

@@ -23,6 +23,7 @@ mod vle;
 mod antoine_published_and_statistics;
 mod estimate_joback;
 mod estimate_lee_kesler_published;
+mod estimate_tb_model;
 mod fit_hostile_data;
 mod fuzz_regressions;
 mod iapws_if97;

@@ -164,7 +164,7 @@ fn estimate_report_has_group_breakdown_intervals_and_curves() {
         "Joback groups: Tb(Joback) = 198 K",
         "count × ΔTb/K",
         "Boiling points at chosen pressures",
-        "Calibrated on the bundled dev set",
+        "Calibration: 10-fold cross-validated",
         "Estimates are not measurements",
     ] {
         assert!(html.contains(needle), "report lacks {needle}");

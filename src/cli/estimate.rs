@@ -137,19 +137,30 @@ fn table_text(rows: &[Row]) -> String {
             e.formula.clone().unwrap_or_default()
         ));
         s.push_str(&format!(
-            "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}; Joback {:.1} K]\n",
+            "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}, {} family; published Joback {}]\n",
             e.tb_k,
             e.tb_k - ebullio::units::CELSIUS_OFFSET,
             e.tb_pi90_low_k,
             e.tb_pi90_high_k,
             e.tb_variant.name(),
+            e.family.name(),
             e.tb_joback_k
+                .map_or("has no group for this structure".to_string(), |t| format!("{t:.1} K"))
         ));
-        if !e.comfort.reasons.is_empty() {
+        if let Some(rf) = &r.reference {
             s.push_str(&format!(
-                "         interval widened: {}\n",
-                e.comfort.reasons.join(", ")
+                "  reference Tb {:.2} K ({}): the estimate is {:+.1} K off  [{}]\n",
+                rf.tb_k, rf.compound, rf.estimate_error_k, rf.source
             ));
+        }
+        for d in &e.comfort.details {
+            s.push_str(&format!(
+                "         interval widened ×{:.1}: {d}\n",
+                e.comfort.factor
+            ));
+        }
+        for n in &e.notes {
+            s.push_str(&format!("  note: {n}\n"));
         }
         s.push_str(&format!(
             "  Tc {} K   pc {} bar   Vc {} cm³/mol   ω {}   Tm {} K\n",
@@ -205,6 +216,28 @@ fn table_text(rows: &[Row]) -> String {
             s.push_str(&format!("  {id} ×{n} ({name})"));
         }
         s.push('\n');
+        if !e.tb_terms.is_empty() {
+            s.push_str(&format!(
+                "  Tb terms ({}; values are this project's regression):",
+                e.tb_variant.name()
+            ));
+            for t in &e.tb_terms {
+                s.push_str(&format!(
+                    "  {} ×{} {:.4}{}{}",
+                    t.id,
+                    t.count,
+                    t.value,
+                    t.se.map_or(String::new(), |se| format!(" ±{se:.4}")),
+                    match (t.origin, t.published_joback_dtb_k) {
+                        ("prior-not-fitted", _) => " (not fitted: prior)".to_string(),
+                        (_, Some(p)) => format!(" (published Joback ΔTb {p:.2} K)"),
+                        (_, None) =>
+                            format!(" (project's own {}, {} compounds)", t.kind, t.n_compounds),
+                    }
+                ));
+            }
+            s.push('\n');
+        }
         if !r.error.is_empty() {
             s.push_str(&format!("  error: {}\n", r.error));
         }

@@ -22,6 +22,43 @@ pub struct AtPressure {
     pub extrapolated: bool,
 }
 
+/// The bundled reference compound with the same structure, beside the estimate.
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct ReferenceMatch {
+    /// Reference compound name.
+    pub compound: String,
+    /// Its reference normal boiling point, K.
+    pub tb_k: f64,
+    /// Where that value comes from.
+    pub source: String,
+    /// The structure estimate's error against it (tb_k estimate − reference), K.
+    pub estimate_error_k: f64,
+}
+
+impl ReferenceMatch {
+    /// The bundled reference compound with this estimate's structure, if any.
+    pub fn find(e: &Estimate) -> Option<ReferenceMatch> {
+        let smiles = e.smiles.as_deref()?;
+        let c = crate::reference::Library::bundled()
+            .find_smiles(smiles)
+            .ok()?;
+        let row = c.tb_row()?;
+        Some(ReferenceMatch {
+            compound: c.name.clone(),
+            tb_k: row.tb_k,
+            // Sources are cited as published works: any web-address part is left out.
+            source: row
+                .source
+                .split(';')
+                .filter(|p| !p.contains("http"))
+                .map(str::trim)
+                .collect::<Vec<_>>()
+                .join("; "),
+            estimate_error_k: e.tb_k - row.tb_k,
+        })
+    }
+}
+
 /// One structure's result: the estimate or why there is none.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
 pub struct EstimateRow {
@@ -32,6 +69,8 @@ pub struct EstimateRow {
     pub estimate: Option<Estimate>,
     /// The SMILES as given.
     pub smiles_given: Option<String>,
+    /// The reference compound of the same structure, when one is bundled.
+    pub reference: Option<ReferenceMatch>,
     /// Boiling points at the requested pressures.
     pub at: Vec<AtPressure>,
     /// The curve anchored to measured points, when given.
@@ -77,6 +116,7 @@ impl EstimateRow {
             compound,
             estimate: None,
             smiles_given: given,
+            reference: None,
             at: Vec::new(),
             anchored: None,
             cautions: Estimate::cautions().to_vec(),
@@ -105,6 +145,7 @@ impl EstimateRow {
                     _ => None,
                 };
                 row.at = at_pressures(curve, ps);
+                row.reference = ReferenceMatch::find(&e);
                 row.estimate = Some(e);
             }
         }

@@ -151,6 +151,26 @@ fn no_group(m: &Molecule, i: usize, reason: impl Into<String>) -> EstimateError 
 /// assert_eq!(g["co_chain"], 1);
 /// ```
 pub fn assign_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
+    assign(m, false)
+}
+
+/// Groups of this project's boiling-point model: the published Joback groups,
+/// plus three first-order groups the published table lacks: `n_ring_tert`
+/// (a ring >N- with three heavy neighbours, not aromatic), `n_arom_sub` (an
+/// aromatic N with three heavy neighbours, as in N-methylpyrrole) and `s_oxo`
+/// (each terminal =O on sulfur, so a sulfoxide is -S- + one `s_oxo` and a sulfone
+/// -S- + two). Second-order corrections are added by [`super::tb_features`].
+///
+/// ```
+/// use ebullio::molecule::parse_smiles;
+/// let g = ebullio::estimate::assign_tb_groups(&parse_smiles("CS(C)=O").unwrap()).unwrap();
+/// assert_eq!((g["ch3"], g["s_chain"], g["s_oxo"]), (2, 1, 1));
+/// ```
+pub fn assign_tb_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
+    assign(m, true)
+}
+
+fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
     let atoms = m.atoms();
     let n = atoms.len();
     let mut used = vec![false; n];
@@ -276,6 +296,22 @@ pub fn assign_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
             continue;
         }
     }
+    // 3b. Sulfur oxo groups (project's extension only): each terminal =O on S.
+    let mut s_oxo = vec![0usize; n];
+    if extended {
+        for i in 0..n {
+            if el(i) != Element::S || atoms[i].charge != 0 {
+                continue;
+            }
+            for o in terminal_o(i, BondOrder::Double) {
+                if !used[o] && atoms[o].charge == 0 {
+                    used[o] = true;
+                    s_oxo[i] += 1;
+                    add("s_oxo");
+                }
+            }
+        }
+    }
     // 4. Single atoms.
     for i in 0..n {
         if used[i] || el(i) == Element::H {
@@ -346,6 +382,8 @@ pub fn assign_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
                     (0, 1, 2, false) => if ring { "nh_ring" } else { "nh_chain" },
                     (_, 1, 2, true) => "nh_ring",
                     (0, 0, 3, false) if !ring => "n_chain",
+                    (0, 0, 3, false) if extended => "n_ring_tert",
+                    (0, 0, 3, true) if extended => "n_arom_sub",
                     (0, 0, 3, _) => return Err(no_group(m, i, "ring tertiary nitrogen >N-: the table has >N- only outside rings")),
                     (1, 0, 2, false) => if ring { "eq_n_ring" } else { "eq_n_chain" },
                     (0, 0, 2, true) => "eq_n_ring",
@@ -353,7 +391,7 @@ pub fn assign_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
                     _ => return Err(no_group(m, i, "nitrogen bonded in a way the table does not cover")),
                 }
             }
-            e if e == Element::S => match (double, h, deg) {
+            e if e == Element::S => match (double - s_oxo[i] as i32, h, deg - s_oxo[i] as usize) {
                 (0, 1, 1) => "sh",
                 (0, 0, 2) => if ring { "s_ring" } else { "s_chain" },
                 _ => return Err(no_group(m, i, "sulfur other than -SH or -S- (e.g. sulfoxide, sulfone) has no Joback group")),

@@ -1,271 +1,210 @@
-//! Calibrated 90 % prediction interval for the boiling point, from the dev set.
+//! The committed calibration of the boiling-point estimate: which variant
+//! ships, its cross-validated figures, and the per-family 90 % interval.
 //!
-//! The method's error is measured on `reference-data/normal-boiling-points-dev.csv`
-//! (embedded). Relative errors grow with Tb, so the half-width is
-//! `q · Tb · f`, where `f` is the comfort factor of the structure:
-//! 1, plus 0.5 for a very small molecule (three heavy atoms or fewer),
-//! plus 0.5 for an amide-like N–C=O (scored by Joback only as a sum of simpler
-//! groups), plus 0.5 for two or more strongly polar groups (OH, COOH, NH2, NH,
-//! CN, NO2). `q` is the smallest value that puts 90 % of the dev-set compounds
-//! inside their interval. The recommended variant (Joback, Stein–Brown, or
-//! Joback below 500 K and Stein–Brown above) is the one with the lowest mean
-//! absolute error on the same set. Coverage is reported in-sample and by
-//! leave-one-out (q refitted without each compound in turn).
+//! The figures are read from `reference-data/tb-model-cv.csv` and
+//! `reference-data/tb-intervals.csv`, written by `cargo run --example fit_tb_model`
+//! (see [`super::tb_fit`] for the procedure; `tests/estimate_tb_model.rs`
+//! recomputes them). The half-width of the interval is `q · Tb · f`, where `q`
+//! is the family's conformal 90 % quantile of out-of-fold relative errors and
+//! `f` is 1, or [`OUTSIDE_FACTOR`] for a molecule outside the calibration (a
+//! term with fewer than three calibration compounds, or more than two strongly
+//! polar groups).
 //!
-//! Reference: the rule is this program's own (common practice for empirical
-//! prediction intervals); the data set's sources are listed in its `source` column.
+//! Reference: the rule is this program's own (split conformal prediction,
+//! V. Vovk, A. Gammerman, G. Shafer, Algorithmic Learning in a Random World, 2005).
 
-use super::{raw_from_smiles, Raw};
+use super::tb_features::Family;
+pub use super::tb_fit::OUTSIDE_FACTOR;
+pub use super::tb_model::TbVariant;
+use std::collections::BTreeMap;
 use std::sync::OnceLock;
 
-const DEV_CSV: &str = include_str!("../../reference-data/normal-boiling-points-dev.csv");
-
-/// Which boiling-point variant `tb_k` is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum TbVariant {
-    /// Joback & Reid (1987): Tb = 198 + ΣΔTb.
-    Joback,
-    /// Stein & Brown (1994) correction applied to the Joback Tb.
-    SteinBrown,
-    /// Joback below [`SWITCH_K`], Stein & Brown at and above.
-    JobackThenSteinBrown,
-}
-
-/// Switching point of [`TbVariant::JobackThenSteinBrown`], K (fixed before measuring).
-pub const SWITCH_K: f64 = 500.0;
-
-impl TbVariant {
-    /// Stable name used in output.
-    pub fn name(self) -> &'static str {
-        match self {
-            TbVariant::Joback => "joback",
-            TbVariant::SteinBrown => "stein-brown",
-            TbVariant::JobackThenSteinBrown => "joback-below-500K-stein-brown-above",
-        }
-    }
-
-    /// The recommended Tb from the two raw values.
-    pub fn pick(self, joback: f64, stein_brown: f64) -> f64 {
-        match self {
-            TbVariant::Joback => joback,
-            TbVariant::SteinBrown => stein_brown,
-            TbVariant::JobackThenSteinBrown => {
-                if joback < SWITCH_K {
-                    joback
-                } else {
-                    stein_brown
-                }
-            }
-        }
-    }
-}
+const CV_CSV: &str = include_str!("../../reference-data/tb-model-cv.csv");
+const INTERVALS_CSV: &str = include_str!("../../reference-data/tb-intervals.csv");
 
 /// Comfort factor of a structure and the reasons for widening.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
 pub struct Comfort {
-    /// Multiplier of the interval half-width (1 = inside the comfort zone).
+    /// Multiplier of the interval half-width (1 = inside the calibration).
     pub factor: f64,
     /// Why the interval was widened (stable kebab-case codes).
     pub reasons: Vec<&'static str>,
+    /// One sentence per reason.
+    pub details: Vec<String>,
 }
 
-/// The comfort rule (see the module text).
-pub fn comfort(heavy_atoms: u32, amide_like: bool, strongly_polar: u32) -> Comfort {
+/// The comfort rule: terms without a fitted value, or more than two strongly polar groups,
+/// put a molecule outside the calibration.
+pub fn comfort(outside_terms: &[String], strongly_polar: u32) -> Comfort {
     let mut c = Comfort {
         factor: 1.0,
         reasons: Vec::new(),
+        details: Vec::new(),
     };
-    if heavy_atoms <= 3 {
-        c.factor += 0.5;
-        c.reasons.push("very-small-molecule");
+    if !outside_terms.is_empty() {
+        c.reasons.push("outside-calibration");
+        c.details.push(format!(
+            "outside-calibration: {} had fewer than three calibration compounds, so its value is a prior, not a fit",
+            outside_terms.join(", ")
+        ));
     }
-    if amide_like {
-        c.factor += 0.5;
-        c.reasons.push("amide-scored-as-sum");
+    if strongly_polar > 2 {
+        if c.reasons.is_empty() {
+            c.reasons.push("outside-calibration");
+        }
+        c.details.push(format!(
+            "outside-calibration: {strongly_polar} strongly polar groups (more than two are not covered by the calibration)"
+        ));
     }
-    if strongly_polar >= 2 {
-        c.factor += 0.5;
-        c.reasons.push("several-polar-groups");
+    if !c.reasons.is_empty() {
+        c.factor = OUTSIDE_FACTOR;
     }
     c
 }
 
-/// One dev-set compound as estimated.
+/// One committed figure.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
-pub struct DevRow {
-    /// Compound name.
-    pub compound: String,
-    /// SMILES.
-    pub smiles: String,
-    /// Measured normal boiling point, K.
-    pub measured_k: f64,
-    /// Joback Tb, K (None if the structure could not be estimated).
-    pub joback_k: Option<f64>,
-    /// Stein–Brown Tb, K.
-    pub stein_brown_k: Option<f64>,
-    /// Comfort factor.
-    pub factor: f64,
-    /// Why not estimated, if not.
-    pub error: Option<String>,
+pub struct Figure {
+    /// Variant.
+    pub variant: TbVariant,
+    /// `cv-common`, `cv-all`, `heldout-common` or `heldout-all`.
+    pub subset: String,
+    /// Compounds.
+    pub n: usize,
+    /// Mean absolute error, K.
+    pub mae_k: f64,
+    /// RMS error, K.
+    pub rms_k: f64,
+}
+
+/// One family's committed interval.
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct FamilyQ {
+    /// Out-of-fold residuals it rests on.
+    pub n_cv: usize,
+    /// Relative half-width.
+    pub q90_rel: f64,
+    /// Held-out compounds.
+    pub n_heldout: usize,
+    /// Held-out compounds inside.
+    pub inside_heldout: usize,
 }
 
 /// The measured calibration of the boiling-point estimate.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
 pub struct Calibration {
-    /// Compounds in the dev set.
-    pub n_total: usize,
-    /// Compounds the estimator could handle.
-    pub n_estimated: usize,
-    /// Mean absolute error of the Joback Tb, K.
-    pub mae_joback_k: f64,
-    /// Mean absolute error of the Stein–Brown Tb, K.
-    pub mae_stein_brown_k: f64,
-    /// Mean absolute error of the switched variant, K.
-    pub mae_switched_k: f64,
-    /// The recommended variant (lowest MAE).
+    /// The shipped variant.
     pub variant: TbVariant,
-    /// Mean absolute error of the recommended variant, K.
-    pub mae_recommended_k: f64,
-    /// Mean signed error (estimate − measured) of the recommended variant, K.
-    pub bias_recommended_k: f64,
-    /// Relative half-width coefficient q (half-width = q · Tb · factor).
-    pub q90: f64,
-    /// Mean of |error| / (Tb · factor): the typical relative error per unit factor.
-    pub typical_rel: f64,
-    /// Share of dev-set compounds inside their own 90 % interval (in-sample).
-    pub coverage_in_sample: f64,
-    /// Share inside when q is refitted without the compound (leave-one-out).
-    pub coverage_leave_one_out: f64,
-    /// Every dev-set row.
-    pub rows: Vec<DevRow>,
+    /// Every committed figure.
+    pub figures: Vec<Figure>,
+    /// Interval per family.
+    pub families: BTreeMap<Family, FamilyQ>,
 }
 
 impl Calibration {
+    /// A committed figure.
+    pub fn figure(&self, v: TbVariant, subset: &str) -> Option<&Figure> {
+        self.figures
+            .iter()
+            .find(|f| f.variant == v && f.subset == subset)
+    }
+
+    /// Relative 90 % half-width of a family (the largest family's value if none is committed).
+    pub fn q90(&self, f: Family) -> f64 {
+        self.families.get(&f).map(|q| q.q90_rel).unwrap_or_else(|| {
+            self.families
+                .values()
+                .map(|q| q.q90_rel)
+                .fold(0.1, f64::max)
+        })
+    }
+
     /// One sentence on the measured calibration, for reports and the terminal.
     pub fn summary(&self) -> String {
+        let (Some(s), Some(j), Some(h)) = (
+            self.figure(self.variant, "cv-common"),
+            self.figure(TbVariant::Joback, "cv-common"),
+            self.figure(self.variant, "heldout-all"),
+        ) else {
+            return "The boiling-point calibration files hold no figures; tb_k is the published Joback value.".into();
+        };
+        let (n, inside) = self
+            .families
+            .values()
+            .fold((0, 0), |a, q| (a.0 + q.n_heldout, a.1 + q.inside_heldout));
         format!(
-            "Calibrated on the bundled dev set: {} of {} compounds estimated, mean absolute error {:.1} K ({}), Joback alone {:.1} K; {:.0} % of the dev set lie inside their 90 % interval ({:.0} % leave-one-out).",
-            self.n_estimated,
-            self.n_total,
-            self.mae_recommended_k,
+            "Calibration: 10-fold cross-validated mean absolute error {:.1} K ({}) against {:.1} K for published Joback on the same {} compounds; {:.1} K on {} held-out compounds, {:.0} % of which lie inside their 90 % interval.",
+            s.mae_k,
             self.variant.name(),
-            self.mae_joback_k,
-            100.0 * self.coverage_in_sample,
-            100.0 * self.coverage_leave_one_out
+            j.mae_k,
+            j.n,
+            h.mae_k,
+            h.n,
+            100.0 * inside as f64 / n.max(1) as f64
         )
     }
 }
 
-fn quantile90(mut v: Vec<f64>) -> f64 {
-    if v.is_empty() {
-        return f64::NAN;
-    }
-    v.sort_by(f64::total_cmp);
-    let k = ((0.9 * v.len() as f64).ceil() as usize).clamp(1, v.len());
-    v[k - 1]
+fn data_lines(text: &str) -> impl Iterator<Item = Vec<&str>> {
+    text.lines()
+        .filter(|l| !l.starts_with('#') && !l.trim().is_empty())
+        .skip(1)
+        .map(|l| l.split(',').collect())
 }
 
-fn mae(rows: &[(f64, f64)]) -> f64 {
-    rows.iter().map(|(e, m)| (e - m).abs()).sum::<f64>() / rows.len().max(1) as f64
-}
-
-fn compute() -> Calibration {
-    let mut rdr = csv::Reader::from_reader(DEV_CSV.as_bytes());
-    let mut rows = Vec::new();
-    for rec in rdr.records().flatten() {
-        let (Some(name), Some(smiles), Some(tb)) = (rec.get(0), rec.get(1), rec.get(2)) else {
+fn parse() -> Calibration {
+    let mut variant = TbVariant::Joback;
+    let mut figures = Vec::new();
+    for f in data_lines(CV_CSV) {
+        let (Some(v), Some(n), Some(mae), Some(rms)) = (
+            f.first().and_then(|s| TbVariant::from_name(s)),
+            f.get(2).and_then(|s| s.parse().ok()),
+            f.get(3).and_then(|s| s.parse().ok()),
+            f.get(4).and_then(|s| s.parse().ok()),
+        ) else {
             continue;
         };
-        let Ok(measured_k) = tb.trim().parse::<f64>() else {
-            continue;
-        };
-        let raw: Result<Raw, _> = raw_from_smiles(smiles);
-        rows.push(match raw {
-            Ok(r) => DevRow {
-                compound: name.to_string(),
-                smiles: smiles.to_string(),
-                measured_k,
-                joback_k: Some(r.tb_joback_k),
-                stein_brown_k: Some(r.tb_stein_brown_k),
-                factor: r.comfort.factor,
-                error: None,
-            },
-            Err(e) => DevRow {
-                compound: name.to_string(),
-                smiles: smiles.to_string(),
-                measured_k,
-                joback_k: None,
-                stein_brown_k: None,
-                factor: 1.0,
-                error: Some(e.to_string()),
-            },
+        if f.get(5) == Some(&"true") {
+            variant = v;
+        }
+        figures.push(Figure {
+            variant: v,
+            subset: f.get(1).unwrap_or(&"").to_string(),
+            n,
+            mae_k: mae,
+            rms_k: rms,
         });
     }
-    let ok: Vec<&DevRow> = rows.iter().filter(|r| r.joback_k.is_some()).collect();
-    let pairs = |v: TbVariant| -> Vec<(f64, f64)> {
-        ok.iter()
-            .map(|r| {
-                (
-                    v.pick(
-                        r.joback_k.unwrap_or(f64::NAN),
-                        r.stein_brown_k.unwrap_or(f64::NAN),
-                    ),
-                    r.measured_k,
-                )
-            })
-            .collect()
-    };
-    let mj = mae(&pairs(TbVariant::Joback));
-    let ms = mae(&pairs(TbVariant::SteinBrown));
-    let mw = mae(&pairs(TbVariant::JobackThenSteinBrown));
-    let variant = if mj <= ms && mj <= mw {
-        TbVariant::Joback
-    } else if ms <= mw {
-        TbVariant::SteinBrown
-    } else {
-        TbVariant::JobackThenSteinBrown
-    };
-    let p = pairs(variant);
-    let scaled: Vec<f64> = p
-        .iter()
-        .zip(&ok)
-        .map(|((e, m), r)| (e - m).abs() / (e * r.factor))
-        .collect();
-    let q90 = quantile90(scaled.clone());
-    let inside = scaled.iter().filter(|&&s| s <= q90).count();
-    let mut loo_inside = 0;
-    for i in 0..scaled.len() {
-        let rest: Vec<f64> = scaled
-            .iter()
-            .enumerate()
-            .filter(|&(j, _)| j != i)
-            .map(|(_, &s)| s)
-            .collect();
-        if scaled[i] <= quantile90(rest) {
-            loo_inside += 1;
-        }
+    let mut families = BTreeMap::new();
+    for f in data_lines(INTERVALS_CSV) {
+        let (Some(fam), Some(n_cv), Some(q), Some(nh), Some(ins)) = (
+            f.first().and_then(|s| Family::from_name(s)),
+            f.get(1).and_then(|s| s.parse().ok()),
+            f.get(2).and_then(|s| s.parse().ok()),
+            f.get(3).and_then(|s| s.parse().ok()),
+            f.get(4).and_then(|s| s.parse().ok()),
+        ) else {
+            continue;
+        };
+        families.insert(
+            fam,
+            FamilyQ {
+                n_cv,
+                q90_rel: q,
+                n_heldout: nh,
+                inside_heldout: ins,
+            },
+        );
     }
-    let n = ok.len().max(1) as f64;
     Calibration {
-        n_total: rows.len(),
-        n_estimated: ok.len(),
-        mae_joback_k: mj,
-        mae_stein_brown_k: ms,
-        mae_switched_k: mw,
         variant,
-        mae_recommended_k: mae(&p),
-        bias_recommended_k: p.iter().map(|(e, m)| e - m).sum::<f64>() / n,
-        q90,
-        typical_rel: scaled.iter().sum::<f64>() / n,
-        coverage_in_sample: inside as f64 / n,
-        coverage_leave_one_out: loo_inside as f64 / n,
-        rows,
+        figures,
+        families,
     }
 }
 
-/// The calibration, measured once on the embedded dev set.
+/// The committed calibration, parsed once.
 pub fn calibration() -> &'static Calibration {
     static C: OnceLock<Calibration> = OnceLock::new();
-    C.get_or_init(compute)
+    C.get_or_init(parse)
 }

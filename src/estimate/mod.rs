@@ -4,10 +4,15 @@
 //!
 //! Every heavy atom is assigned to one of the 41 Joback groups
 //! ([`assign_groups`]); the group sums give Tb, Tm, Tc, pc, Vc, ΔHf°, ΔGf°,
-//! Cp(T), ΔHvap(Tb) and ΔHfus ([`joback`]). The recommended `tb_k` is the
-//! variant that measured best on the embedded dev set ([`calibration`]); Tc is
-//! computed from that Tb. The acentric factor and curve follow from Tb, Tc,
-//! pc by Lee–Kesler ([`Estimate::curve`]).
+//! Cp(T), ΔHvap(Tb) and ΔHfus ([`joback`]). The recommended `tb_k` comes from
+//! the variant that cross-validated best on the project's calibration set
+//! ([`tb_model`], [`tb_fit`], [`calibration`]): groups refitted in a published
+//! form, with this project's extra groups and second-order corrections
+//! ([`tb_features`]) for amides, carbamates, ureas, sulfoxides, sulfones, ring
+//! tertiary amines, pyrrole-type N–H and fused aromatic rings. The published
+//! Joback value stays available as `tb_joback_k`. Tc is computed from `tb_k`.
+//! The acentric factor and curve follow from Tb, Tc, pc by Lee–Kesler
+//! ([`Estimate::curve`]).
 //!
 //! Estimates are not measurements: check them against data before a
 //! distillation is planned on them.
@@ -18,7 +23,7 @@
 //!
 //! ```
 //! let e = ebullio::estimate::estimate_smiles("CCCCCC").unwrap();
-//! assert!((e.tb_joback_k - 336.68).abs() < 0.01); // 198 + 2·23.58 + 4·22.88
+//! assert!((e.tb_joback_k.unwrap() - 336.68).abs() < 0.01); // 198 + 2·23.58 + 4·22.88
 //! assert!(e.tb_pi90_low_k < e.tb_k && e.tb_k < e.tb_pi90_high_k);
 //! use ebullio::vapor::Curve;
 //! let t = e.curve().unwrap().t_at(101_325.0).unwrap();
@@ -32,12 +37,16 @@ pub mod interval;
 pub mod joback;
 pub mod lee_kesler;
 pub mod stein_brown;
+pub mod tb_features;
+pub mod tb_fit;
+pub mod tb_model;
 
-pub use groups::{assign_groups, group, parse_groups, table, Group, GroupCounts};
+pub use groups::{assign_groups, assign_tb_groups, group, parse_groups, table, Group, GroupCounts};
 pub use interval::{calibration, Calibration, Comfort, TbVariant};
 pub use lee_kesler::LeeKeslerCurve;
+pub use tb_features::Family;
 
-use crate::molecule::{parse_smiles, Element, Molecule, SmilesError};
+use crate::molecule::{parse_smiles, Molecule, SmilesError};
 
 /// Why a structure could not be estimated.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
@@ -125,16 +134,25 @@ pub struct Estimate {
     pub tb_pi90_low_k: f64,
     /// Upper end of the calibrated 90 % prediction interval, K.
     pub tb_pi90_high_k: f64,
-    /// Typical error of `tb_k` for this structure, K (mean absolute error scaled to its Tb and comfort factor).
+    /// Standard uncertainty of `tb_k` implied by the interval (half-width / 1.645), K.
     pub tb_typical_error_k: f64,
-    /// Joback & Reid boiling point, K (always given).
-    pub tb_joback_k: f64,
-    /// Stein & Brown corrected boiling point, K.
-    pub tb_stein_brown_k: f64,
+    /// Joback & Reid boiling point with the published values, K (None where the
+    /// published table has no group for an atom, e.g. a sulfoxide or a ring >N-).
+    pub tb_joback_k: Option<f64>,
+    /// Stein & Brown correction of the published Joback value, K.
+    pub tb_stein_brown_k: Option<f64>,
     /// Which variant `tb_k` is.
     pub tb_variant: TbVariant,
+    /// Every variant's boiling point, K, by variant name.
+    pub tb_variants: std::collections::BTreeMap<&'static str, f64>,
+    /// Structural family whose calibrated interval applies.
+    pub family: Family,
+    /// Groups and corrections behind `tb_k`, each with its value and origin.
+    pub tb_terms: Vec<TbTerm>,
     /// Comfort-zone factor and reasons for a wider interval.
     pub comfort: Comfort,
+    /// Caveats on how the values were obtained.
+    pub notes: Vec<String>,
     /// Melting point, K.
     pub tm_k: Option<f64>,
     /// Critical temperature, K (from `tb_k`).
@@ -161,64 +179,56 @@ pub struct Estimate {
     pub groups: GroupCounts,
 }
 
+/// One group or correction behind `tb_k`.
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct TbTerm {
+    /// Group or correction id.
+    pub id: String,
+    /// `group` (first order) or `correction` (second order).
+    pub kind: &'static str,
+    /// Occurrences.
+    pub count: u32,
+    /// Value in the shipped model (on its form's scale), this project's regression.
+    pub value: f64,
+    /// Standard error of the value (None when not fitted).
+    pub se: Option<f64>,
+    /// Calibration compounds containing the term.
+    pub n_compounds: u32,
+    /// `project-fit` (regressed on the calibration set) or `prior-not-fitted`.
+    pub origin: &'static str,
+    /// The published Joback ΔTb of the group, K (None for this project's own terms).
+    pub published_joback_dtb_k: Option<f64>,
+}
+
 /// Group-level result before the recommended variant is chosen.
 #[derive(Debug, Clone)]
 pub(crate) struct Raw {
+    /// Joback groups for the published property equations (nearest published group
+    /// standing in for this project's new groups; see `approximated`).
     pub groups: GroupCounts,
     pub sums: joback::GroupSums,
     pub n_atoms: u32,
-    pub tb_joback_k: f64,
-    pub tb_stein_brown_k: f64,
-    pub comfort: Comfort,
+    pub tb_joback_k: Option<f64>,
+    /// Extended terms of the boiling-point model.
+    pub terms: GroupCounts,
+    pub family: Family,
+    pub polar: u32,
+    /// New groups that stand in as their nearest published group.
+    pub approximated: Vec<String>,
     pub smiles: Option<String>,
     pub formula: Option<String>,
 }
 
-const STRONGLY_POLAR: [&str; 8] = [
-    "oh_alcohol",
-    "oh_phenol",
-    "cooh",
-    "nh2",
-    "nh_chain",
-    "nh_ring",
-    "cn",
-    "no2",
-];
-
-fn polar_count(g: &GroupCounts) -> u32 {
-    STRONGLY_POLAR.iter().filter_map(|id| g.get(*id)).sum()
-}
-
-fn raw_from_groups(
-    groups: GroupCounts,
-    n_atoms: u32,
-    heavy: u32,
-    amide_like: bool,
-) -> Result<Raw, EstimateError> {
-    let sums = joback::sums(&groups);
-    let Some(stb) = sums.tb else {
-        let g = groups
-            .keys()
-            .find(|id| group(id).is_some_and(|g| g.tb.is_none()))
-            .cloned()
-            .unwrap_or_default();
-        return Err(EstimateError::MissingContribution {
-            group: g,
-            property: "boiling-point",
-        });
-    };
-    let tb = joback::tb_k(stb);
-    let comfort = interval::comfort(heavy, amide_like, polar_count(&groups));
-    Ok(Raw {
-        groups,
-        sums,
-        n_atoms,
-        tb_joback_k: tb,
-        tb_stein_brown_k: stein_brown::corrected_tb_k(tb),
-        comfort,
-        smiles: None,
-        formula: None,
-    })
+fn missing_tb(groups: &GroupCounts) -> EstimateError {
+    let g = groups
+        .keys()
+        .find(|id| group(id).is_some_and(|g| g.tb.is_none()))
+        .cloned()
+        .unwrap_or_default();
+    EstimateError::MissingContribution {
+        group: g,
+        property: "boiling-point",
+    }
 }
 
 fn raw_from_molecule(m: &Molecule) -> Result<Raw, EstimateError> {
@@ -227,23 +237,49 @@ fn raw_from_molecule(m: &Molecule) -> Result<Raw, EstimateError> {
             count: m.components(),
         });
     }
-    let groups = assign_groups(m)?;
-    let heavy = (0..m.atoms().len()).filter(|&i| m.is_heavy(i)).count() as u32;
-    // Amide-like: a nitrogen bonded to a carbon that carries a double-bonded oxygen.
-    let amide_like = (0..m.atoms().len()).any(|i| {
-        m.atoms()[i].element == Element::N
-            && m.neighbours(i).iter().any(|&(c, _)| {
-                m.atoms()[c].element == Element::C
-                    && m.neighbours(c).iter().any(|&(o, k)| {
-                        m.atoms()[o].element == Element::O
-                            && m.bonds()[k].order == crate::molecule::BondOrder::Double
-                    })
-            })
-    });
-    let mut r = raw_from_groups(groups, m.atom_count_with_hydrogens(), heavy, amide_like)?;
-    r.smiles = Some(m.smiles().to_string());
-    r.formula = Some(m.formula());
-    Ok(r)
+    let published = assign_groups(m);
+    let f = match tb_features::features(m) {
+        Ok(f) => f,
+        Err(e) => return Err(published.err().unwrap_or(e)),
+    };
+    let (groups, approximated) = match published {
+        Ok(g) => (g, Vec::new()),
+        Err(_) => {
+            let mut g = GroupCounts::new();
+            let mut approx = Vec::new();
+            for (id, &n) in &f.terms {
+                if tb_features::CORRECTIONS.contains(&id.as_str()) {
+                    continue;
+                }
+                let p = tb_features::nearest_published(id);
+                if p != id {
+                    approx.push(id.clone());
+                }
+                *g.entry(p.to_string()).or_insert(0) += n;
+            }
+            (g, approx)
+        }
+    };
+    let sums = joback::sums(&groups);
+    if sums.tb.is_none() {
+        return Err(missing_tb(&groups));
+    }
+    let tb_joback_k = approximated
+        .is_empty()
+        .then(|| sums.tb.map(joback::tb_k))
+        .flatten();
+    Ok(Raw {
+        groups,
+        sums,
+        n_atoms: m.atom_count_with_hydrogens(),
+        tb_joback_k,
+        terms: f.terms,
+        family: f.family,
+        polar: f.polar,
+        approximated,
+        smiles: Some(m.smiles().to_string()),
+        formula: Some(m.formula()),
+    })
 }
 
 pub(crate) fn raw_from_smiles(s: &str) -> Result<Raw, EstimateError> {
@@ -252,9 +288,72 @@ pub(crate) fn raw_from_smiles(s: &str) -> Result<Raw, EstimateError> {
 
 fn finish(r: Raw) -> Estimate {
     let cal = calibration();
-    let variant = cal.variant;
-    let tb = variant.pick(r.tb_joback_k, r.tb_stein_brown_k);
-    let hw = cal.q90 * tb * r.comfort.factor;
+    let mut variants = std::collections::BTreeMap::new();
+    if let Some(j) = r.tb_joback_k {
+        variants.insert(TbVariant::Joback.name(), j);
+        variants.insert(TbVariant::SteinBrown.name(), stein_brown::corrected_tb_k(j));
+    }
+    let mut shipped = None;
+    for m in tb_model::models() {
+        let p = m.predict(&r.terms);
+        if p.tb_k.is_finite() {
+            variants.insert(m.variant.name(), p.tb_k);
+            if m.variant == cal.variant {
+                shipped = Some((m, p));
+            }
+        }
+    }
+    let mut notes = Vec::new();
+    // Without a committed model (or outside its domain) the published value ships.
+    let (tb, variant, outside, terms) = match &shipped {
+        Some((m, p)) => {
+            let terms = tb_model::terms_for(m.variant, &r.terms)
+                .into_iter()
+                .map(|(id, count)| {
+                    let c = m.contributions.get(&id);
+                    TbTerm {
+                        kind: if tb_features::CORRECTIONS.contains(&id.as_str()) {
+                            "correction"
+                        } else {
+                            "group"
+                        },
+                        count,
+                        value: c.map_or(0.0, |c| c.value),
+                        se: c.and_then(|c| c.se),
+                        n_compounds: c.map_or(0, |c| c.n_compounds),
+                        origin: if c.is_some_and(|c| c.fitted) {
+                            "project-fit"
+                        } else {
+                            "prior-not-fitted"
+                        },
+                        published_joback_dtb_k: group(&id).and_then(|g| g.tb),
+                        id,
+                    }
+                })
+                .collect();
+            (p.tb_k, m.variant, p.outside.clone(), terms)
+        }
+        None => {
+            let j = joback::tb_k(r.sums.tb.unwrap_or(0.0));
+            if r.tb_joback_k.is_none() {
+                notes.push("no fitted model covers this structure: tb_k is Joback with the nearest published groups".into());
+            }
+            (j, TbVariant::Joback, r.approximated.clone(), Vec::new())
+        }
+    };
+    let comfort = interval::comfort(&outside, r.polar);
+    if !r.approximated.is_empty() {
+        notes.push(format!(
+            "the published Joback table has no group for {}: Tc, pc, Vc and the other Joback properties use the nearest published group ({}), an approximation of this project",
+            r.approximated.join(", "),
+            r.approximated
+                .iter()
+                .map(|id| format!("{id} as {}", tb_features::nearest_published(id)))
+                .collect::<Vec<_>>()
+                .join(", ")
+        ));
+    }
+    let hw = cal.q90(r.family) * tb * comfort.factor;
     let s = &r.sums;
     let tc =
         s.tc.map(|x| joback::tc_k(tb, x))
@@ -285,11 +384,15 @@ fn finish(r: Raw) -> Estimate {
         tb_k: tb,
         tb_pi90_low_k: tb - hw,
         tb_pi90_high_k: tb + hw,
-        tb_typical_error_k: cal.typical_rel * tb * r.comfort.factor,
+        tb_typical_error_k: hw / 1.645,
         tb_joback_k: r.tb_joback_k,
-        tb_stein_brown_k: r.tb_stein_brown_k,
+        tb_stein_brown_k: r.tb_joback_k.map(stein_brown::corrected_tb_k),
         tb_variant: variant,
-        comfort: r.comfort,
+        tb_variants: variants,
+        family: r.family,
+        tb_terms: terms,
+        comfort,
+        notes,
         tm_k: s.tm.map(joback::tm_k),
         tc_k: tc,
         pc_bar: pc,
@@ -321,7 +424,7 @@ pub fn estimate_molecule(m: &Molecule) -> Result<Estimate, EstimateError> {
 /// ```
 /// let g = ebullio::estimate::parse_groups("ch3=2,co_chain=1").unwrap();
 /// let e = ebullio::estimate::estimate_groups(&g).unwrap();
-/// assert!((e.tb_joback_k - 321.91).abs() < 1e-9); // acetone, JOBACK.md §6
+/// assert!((e.tb_joback_k.unwrap() - 321.91).abs() < 1e-9); // acetone, JOBACK.md §6
 /// ```
 pub fn estimate_groups(g: &GroupCounts) -> Result<Estimate, EstimateError> {
     if g.is_empty() {
@@ -333,9 +436,34 @@ pub fn estimate_groups(g: &GroupCounts) -> Result<Estimate, EstimateError> {
         }
     }
     let s = joback::sums(g);
-    let has_n = g.keys().any(|k| k.starts_with("nh") || k.contains("n_"));
-    let has_co = g.keys().any(|k| k.starts_with("co") || k == "cho");
-    raw_from_groups(g.clone(), s.atoms.0 + s.atoms.1, s.atoms.0, has_n && has_co).map(finish)
+    let Some(stb) = s.tb else {
+        return Err(missing_tb(g));
+    };
+    let polar = [
+        "oh_alcohol",
+        "oh_phenol",
+        "cooh",
+        "nh2",
+        "nh_chain",
+        "nh_ring",
+        "cn",
+        "no2",
+    ]
+    .iter()
+    .filter_map(|id| g.get(*id))
+    .sum();
+    Ok(finish(Raw {
+        groups: g.clone(),
+        sums: s,
+        n_atoms: s.atoms.0 + s.atoms.1,
+        tb_joback_k: Some(joback::tb_k(stb)),
+        terms: g.clone(),
+        family: tb_features::family_of_groups(g),
+        polar,
+        approximated: Vec::new(),
+        smiles: None,
+        formula: None,
+    }))
 }
 
 impl Estimate {

@@ -49,15 +49,25 @@ pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<Finding> {
             ));
         }
         if let Some(e) = &r.estimate {
-            if !e.comfort.reasons.is_empty() {
+            for d in &e.comfort.details {
+                out.push(Finding::new(
+                    Severity::Warning,
+                    n.clone(),
+                    "outside-calibration",
+                    format!(
+                        "The 90 % interval was widened ×{:.1}: {d}.",
+                        e.comfort.factor
+                    ),
+                ));
+            }
+            if let Some(rf) = &r.reference {
                 out.push(Finding::new(
                     Severity::Info,
                     n.clone(),
-                    "interval-widened",
+                    "reference-beside-estimate",
                     format!(
-                        "The 90 % interval was widened ×{:.2} because the structure lies outside the method's comfort zone: {}.",
-                        e.comfort.factor,
-                        e.comfort.reasons.join(", ")
+                        "The structure is the reference compound {} (Tb {:.2} K, {}); the estimate is {:+.1} K off. Use the reference value.",
+                        rf.compound, rf.tb_k, rf.source, rf.estimate_error_k
                     ),
                 ));
             }
@@ -94,7 +104,7 @@ pub fn estimate_summary_table(rows: &[EstimateRow]) -> Table {
                     format!("{:.1}", e.tb_k),
                     format!("{:.1} to {:.1}", e.tb_pi90_low_k, e.tb_pi90_high_k),
                     e.tb_variant.name().to_string(),
-                    format!("{:.1}", e.tb_joback_k),
+                    opt(e.tb_joback_k, 1),
                     opt(e.tc_k, 1),
                     opt(e.pc_bar, 2),
                     opt(e.omega, 3),
@@ -156,13 +166,49 @@ pub fn at_pressure_table(rows: &[EstimateRow]) -> Table {
     t
 }
 
+/// The terms behind the recommended Tb: each group or correction, its count, the
+/// project's fitted value with its standard error, how many calibration compounds
+/// carry it, and the published Joback ΔTb where one exists.
+pub fn tb_terms_table(e: &Estimate) -> Table {
+    let mut t = Table::new([
+        "term",
+        "kind",
+        "count",
+        "fitted value",
+        "standard error",
+        "calibration compounds",
+        "origin",
+        "published Joback ΔTb/K",
+    ])
+    .caption(format!(
+        "Terms of the recommended Tb ({}): values are this project's regression on its calibration set",
+        e.tb_variant.name()
+    ));
+    for x in &e.tb_terms {
+        t.row([
+            x.id.clone(),
+            x.kind.to_string(),
+            x.count.to_string(),
+            format!("{:.4}", x.value),
+            opt(x.se, 4),
+            x.n_compounds.to_string(),
+            x.origin.to_string(),
+            opt(x.published_joback_dtb_k, 2),
+        ]);
+    }
+    t
+}
+
 /// The Joback group breakdown of one estimate: each group, its count, its
 /// published ΔTb and its share of the Joback boiling point (198 K + Σ n·ΔTb).
 pub fn group_table(e: &Estimate) -> Table {
     let mut t =
         Table::new(["group id", "group", "count", "ΔTb/K", "count × ΔTb/K"]).caption(format!(
-            "Joback groups: Tb(Joback) = 198 K + Σ count × ΔTb = {:.1} K",
-            e.tb_joback_k
+            "Joback groups: Tb(Joback) = 198 K + Σ count × ΔTb = {}",
+            e.tb_joback_k.map_or(
+                "not defined (a group is not in the published table)".to_string(),
+                |t| format!("{t:.1} K")
+            )
         ));
     for (id, n) in &e.groups {
         let g = group(id);
@@ -254,7 +300,7 @@ pub fn add_estimates(section: &mut Section, rows: &[EstimateRow]) {
             ),
             (
                 "Joback / Stein–Brown Tb",
-                format!("{:.1} K / {:.1} K", e.tb_joback_k, e.tb_stein_brown_k),
+                format!("{} K / {} K", opt(e.tb_joback_k, 1), opt(e.tb_stein_brown_k, 1)),
             ),
             (
                 "Tc, pc, Vc",
@@ -298,6 +344,9 @@ pub fn add_estimates(section: &mut Section, rows: &[EstimateRow]) {
             sub.table(t);
         }
         sub.table(group_table(e));
+        if !e.tb_terms.is_empty() {
+            sub.table(tb_terms_table(e));
+        }
     }
 }
 

@@ -84,14 +84,14 @@ pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Er
                 f.text(e.smiles.as_deref().unwrap_or_default())?;
                 f.text(e.formula.as_deref().unwrap_or_default())?;
                 for v in [
-                    e.tb_k,
-                    e.tb_pi90_low_k,
-                    e.tb_pi90_high_k,
-                    e.tb_typical_error_k,
+                    Some(e.tb_k),
+                    Some(e.tb_pi90_low_k),
+                    Some(e.tb_pi90_high_k),
+                    Some(e.tb_typical_error_k),
                     e.tb_joback_k,
                     e.tb_stein_brown_k,
                 ] {
-                    f.num(Some(v), 2)?;
+                    f.num(v, 2)?;
                 }
                 f.text(e.tb_variant.name())?;
                 f.num(e.tm_k, 2)?;

@@ -1,0 +1,291 @@
+//! What the project's boiling-point model sees in a structure: extended
+//! first-order groups, second-order corrections, structural family and the
+//! number of strongly polar groups.
+//!
+//! Corrections (each counted once per occurrence): `amide_primary`,
+//! `amide_secondary`, `amide_tertiary` (chain C(=O)–N with 2, 1, 0 H on N),
+//! `amide_ring` (lactam: the C–N bond in a ring), `carbamate` (O–C(=O)–N),
+//! `urea` (N–C(=O)–N), `sulfonamide` (S(=O)–N), `nh_aromatic` (pyrrole-type
+//! N–H), `fused_aromatic` (an aromatic atom shared by two aromatic rings) and
+//! `ester_ring` (lactone or cyclic carbonate: the ester C–O bond in a ring) and
+//! `sulfoxide` (a sulfur with exactly one =O, on top of its `s_oxo`).
+//!
+//! Reference: the idea of second-order corrections on top of first-order
+//! groups follows L. Constantinou, R. Gani, AIChE J. 40 (1994) 1697–1710; the
+//! choice of corrections and their values are this project's own.
+
+use super::groups::{assign_tb_groups, GroupCounts};
+use super::EstimateError;
+use crate::molecule::{BondOrder, Element, Molecule};
+
+/// Ids of the corrections, in output order.
+pub const CORRECTIONS: [&str; 11] = [
+    "amide_primary",
+    "amide_secondary",
+    "amide_tertiary",
+    "amide_ring",
+    "carbamate",
+    "urea",
+    "sulfonamide",
+    "nh_aromatic",
+    "fused_aromatic",
+    "ester_ring",
+    "sulfoxide",
+];
+
+/// First-order groups this project adds to the published table.
+pub const NEW_GROUPS: [&str; 3] = ["n_ring_tert", "n_arom_sub", "s_oxo"];
+
+/// The published group whose critical-property contributions stand in for a new group.
+pub fn nearest_published(id: &str) -> &str {
+    match id {
+        "n_ring_tert" | "n_arom_sub" => "n_chain",
+        "s_oxo" => "eq_o",
+        other => other,
+    }
+}
+
+/// Structural family used for the calibrated interval.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash, serde::Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Family {
+    /// Carbon and hydrogen only.
+    Hydrocarbon,
+    /// Halogen as the only heteroatom class.
+    Halide,
+    /// Oxygen as the only heteroatom class.
+    Oxygen,
+    /// Nitrogen as the only heteroatom class.
+    Nitrogen,
+    /// Sulfur as the only heteroatom class.
+    Sulfur,
+    /// Two or more heteroatom classes.
+    Multifunctional,
+}
+
+impl Family {
+    /// Every family, in table order.
+    pub const ALL: [Family; 6] = [
+        Family::Hydrocarbon,
+        Family::Halide,
+        Family::Oxygen,
+        Family::Nitrogen,
+        Family::Sulfur,
+        Family::Multifunctional,
+    ];
+
+    /// Stable name used in files and output.
+    pub fn name(self) -> &'static str {
+        match self {
+            Family::Hydrocarbon => "hydrocarbon",
+            Family::Halide => "halide",
+            Family::Oxygen => "oxygen",
+            Family::Nitrogen => "nitrogen",
+            Family::Sulfur => "sulfur",
+            Family::Multifunctional => "multifunctional",
+        }
+    }
+
+    /// The family of a name written by [`Family::name`].
+    pub fn from_name(s: &str) -> Option<Family> {
+        Family::ALL.into_iter().find(|f| f.name() == s)
+    }
+
+    /// Family from which heteroatom classes are present (halogen, O, N, S).
+    pub fn from_classes(halogen: bool, o: bool, n: bool, s: bool) -> Family {
+        match (halogen, o, n, s) {
+            (false, false, false, false) => Family::Hydrocarbon,
+            (true, false, false, false) => Family::Halide,
+            (false, true, false, false) => Family::Oxygen,
+            (false, false, true, false) => Family::Nitrogen,
+            (false, false, false, true) => Family::Sulfur,
+            _ => Family::Multifunctional,
+        }
+    }
+}
+
+/// The model's view of one structure.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TbFeatures {
+    /// Extended first-order groups and corrections → count.
+    pub terms: GroupCounts,
+    /// Structural family.
+    pub family: Family,
+    /// Strongly polar groups (OH, COOH, CN, NO2, amine N–H, amide-type C(=O)N, S=O).
+    pub polar: u32,
+}
+
+fn bump(g: &mut GroupCounts, id: &str) {
+    *g.entry(id.to_string()).or_insert(0) += 1;
+}
+
+/// Features of a molecule (errors as [`assign_tb_groups`]).
+///
+/// ```
+/// use ebullio::molecule::parse_smiles;
+/// let f = ebullio::estimate::tb_features::features(&parse_smiles("CN(C)C=O").unwrap()).unwrap();
+/// assert_eq!(f.terms["amide_tertiary"], 1);
+/// let f = ebullio::estimate::tb_features::features(&parse_smiles("c1ccc2[nH]ccc2c1").unwrap()).unwrap();
+/// assert_eq!((f.terms["nh_aromatic"], f.terms["fused_aromatic"]), (1, 2));
+/// ```
+pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
+    let mut terms = assign_tb_groups(m)?;
+    let atoms = m.atoms();
+    let el = |i: usize| atoms[i].element;
+    let is_terminal_o = |j: usize, k: usize| {
+        el(j) == Element::O
+            && m.bonds()[k].order == BondOrder::Double
+            && m.heavy_degree(j) == 1
+            && atoms[j].charge == 0
+    };
+    let mut amide_n = vec![false; atoms.len()];
+    let mut polar = 0u32;
+    for i in 0..atoms.len() {
+        let a = &atoms[i];
+        if a.charge != 0 {
+            continue;
+        }
+        let nb = m.neighbours(i);
+        match a.element {
+            e if e == Element::C => {
+                if !nb.iter().any(|&(j, k)| is_terminal_o(j, k)) {
+                    continue;
+                }
+                let ns: Vec<(usize, usize)> = nb
+                    .iter()
+                    .filter(|&&(j, k)| {
+                        el(j) == Element::N
+                            && atoms[j].charge == 0
+                            && m.bonds()[k].order == BondOrder::Single
+                    })
+                    .copied()
+                    .collect();
+                let o_single = nb
+                    .iter()
+                    .filter(|&&(j, k)| {
+                        el(j) == Element::O && m.bonds()[k].order == BondOrder::Single
+                    })
+                    .count();
+                let ring_ester = nb.iter().any(|&(j, k)| {
+                    el(j) == Element::O
+                        && m.bonds()[k].order == BondOrder::Single
+                        && m.bonds()[k].in_ring
+                });
+                if ns.is_empty() && ring_ester {
+                    bump(&mut terms, "ester_ring");
+                }
+                let id = match (ns.len(), o_single) {
+                    (0, _) => None,
+                    (1, 0) => {
+                        let (nn, k) = ns[0];
+                        Some(if m.bonds()[k].in_ring {
+                            "amide_ring"
+                        } else {
+                            match m.total_hydrogens(nn) {
+                                0 => "amide_tertiary",
+                                1 => "amide_secondary",
+                                _ => "amide_primary",
+                            }
+                        })
+                    }
+                    (1, _) => Some("carbamate"),
+                    _ => Some("urea"),
+                };
+                if let Some(id) = id {
+                    bump(&mut terms, id);
+                    polar += 1;
+                    for (nn, _) in ns {
+                        amide_n[nn] = true;
+                    }
+                }
+            }
+            e if e == Element::S => {
+                let oxo = nb.iter().filter(|&&(j, k)| is_terminal_o(j, k)).count();
+                if oxo == 1 {
+                    bump(&mut terms, "sulfoxide");
+                }
+                if oxo > 0 {
+                    polar += 1;
+                    for &(j, _) in nb {
+                        if el(j) == Element::N && atoms[j].charge == 0 {
+                            bump(&mut terms, "sulfonamide");
+                            amide_n[j] = true;
+                        }
+                    }
+                }
+            }
+            _ => {}
+        }
+    }
+    for i in 0..atoms.len() {
+        let a = &atoms[i];
+        if a.element == Element::N && a.aromatic && m.total_hydrogens(i) > 0 {
+            bump(&mut terms, "nh_aromatic");
+        }
+        if a.aromatic {
+            let fused = m
+                .neighbours(i)
+                .iter()
+                .filter(|&&(j, k)| atoms[j].aromatic && m.bonds()[k].in_ring)
+                .count();
+            if fused >= 3 {
+                bump(&mut terms, "fused_aromatic");
+            }
+        }
+        if a.element == Element::N && !amide_n[i] && m.total_hydrogens(i) > 0 && a.charge == 0 {
+            polar += 1;
+        }
+    }
+    for id in ["oh_alcohol", "oh_phenol", "cooh", "cn", "no2"] {
+        polar += terms.get(id).copied().unwrap_or(0);
+    }
+    let counts = m.element_counts();
+    let has = |e: Element| counts.get(&e).is_some_and(|&c| c > 0);
+    let family = Family::from_classes(
+        has(Element::F) || has(Element::CL) || has(Element::BR) || has(Element::I),
+        has(Element::O),
+        has(Element::N),
+        has(Element::S),
+    );
+    Ok(TbFeatures {
+        terms,
+        family,
+        polar,
+    })
+}
+
+/// Family of hand-given Joback groups (from the heteroatoms their ids imply).
+pub fn family_of_groups(g: &GroupCounts) -> Family {
+    let any = |ids: &[&str]| g.keys().any(|k| ids.contains(&k.as_str()));
+    Family::from_classes(
+        any(&["f", "cl", "br", "i"]),
+        any(&[
+            "oh_alcohol",
+            "oh_phenol",
+            "o_chain",
+            "o_ring",
+            "co_chain",
+            "co_ring",
+            "cho",
+            "cooh",
+            "coo",
+            "eq_o",
+            "no2",
+            "s_oxo",
+        ]),
+        any(&[
+            "nh2",
+            "nh_chain",
+            "nh_ring",
+            "n_chain",
+            "eq_n_chain",
+            "eq_n_ring",
+            "eq_nh",
+            "cn",
+            "no2",
+            "n_ring_tert",
+            "n_arom_sub",
+        ]),
+        any(&["sh", "s_chain", "s_ring"]),
+    )
+}

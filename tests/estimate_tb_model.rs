@@ -1,0 +1,333 @@
+//! The boiling-point models: every committed cross-validation, held-out and
+//! interval figure recomputed from the committed calibration set; the shipped
+//! variant against published Joback on the same folds and on the held-out split;
+//! interval coverage on compounds never fitted on; the new groups counted by hand;
+//! the lab structures of issue 17 inside their intervals.
+//!
+//! Sources: reference-data/tb-calibration.csv (each row names its source or says
+//! "from memory"); accepted boiling points below as named beside each check.
+
+use crate::support::{json, repo};
+use ebullio::estimate::tb_features::{features, Family};
+use ebullio::estimate::tb_fit::{evaluate, load};
+use ebullio::estimate::tb_model::models;
+use ebullio::estimate::{calibration, estimate_smiles, TbVariant};
+use ebullio::molecule::parse_smiles;
+
+fn evaluation() -> ebullio::estimate::tb_fit::Evaluation {
+    let text = std::fs::read_to_string(repo("reference-data/tb-calibration.csv")).unwrap();
+    let (rows, skipped) = load(&text);
+    assert!(rows.len() >= 300, "{} rows", rows.len());
+    assert_eq!(
+        skipped,
+        ["methane", "water"],
+        "only the two group-less structures are skipped"
+    );
+    evaluate(&rows)
+}
+
+/// The regression is reproducible: refitting from the committed calibration set gives
+/// the committed contributions, figures and intervals (to the digits written).
+#[test]
+fn committed_tb_model_figures_recomputed_from_the_calibration_set() {
+    let ev = evaluation();
+    let cal = calibration();
+    assert_eq!(ev.shipped, cal.variant);
+    for f in &ev.figures {
+        for (subset, m) in [
+            ("cv-common", &f.cv_common),
+            ("cv-all", &f.cv_all),
+            ("heldout-common", &f.heldout_common),
+            ("heldout-all", &f.heldout_all),
+        ] {
+            let c = cal.figure(f.variant, subset).expect("committed figure");
+            assert_eq!(c.n, m.n, "{} {subset}", f.variant.name());
+            assert!(
+                (c.mae_k - m.mae_k).abs() < 6e-4,
+                "{} {subset} MAE",
+                f.variant.name()
+            );
+            assert!(
+                (c.rms_k - m.rms_k).abs() < 6e-4,
+                "{} {subset} RMS",
+                f.variant.name()
+            );
+        }
+    }
+    for i in &ev.intervals {
+        let c = &cal.families[&i.family];
+        assert_eq!(
+            (c.n_cv, c.n_heldout, c.inside_heldout),
+            (i.n_cv, i.n_heldout, i.inside_heldout)
+        );
+        assert!((c.q90_rel - i.q90_rel).abs() < 6e-6, "{:?}", i.family);
+    }
+    for m in &ev.models {
+        let committed = models()
+            .iter()
+            .find(|c| c.variant == m.variant)
+            .expect("committed model");
+        for (id, c) in &m.contributions {
+            let k = &committed.contributions[id];
+            assert!(
+                (k.value - c.value).abs() < 6e-7,
+                "{} {id}",
+                m.variant.name()
+            );
+            assert_eq!((k.n_compounds, k.fitted), (c.n_compounds, c.fitted), "{id}");
+        }
+    }
+}
+
+/// Issue 17: the shipped variant's cross-validated MAE at least 25 % below published
+/// Joback's on the same folds and compounds; held-out limits = measured + margin.
+#[test]
+fn shipped_variant_against_published_joback_cross_validated_and_held_out() {
+    let cal = calibration();
+    let s = cal.figure(cal.variant, "cv-common").unwrap();
+    let j = cal.figure(TbVariant::Joback, "cv-common").unwrap();
+    assert_eq!(s.n, j.n);
+    println!(
+        "CV MAE {:.2} K ({}) vs Joback {:.2} K on {} compounds",
+        s.mae_k,
+        cal.variant.name(),
+        j.mae_k,
+        j.n
+    );
+    assert!(s.mae_k <= 0.75 * j.mae_k, "{} vs {}", s.mae_k, j.mae_k);
+    let sh = cal.figure(cal.variant, "heldout-common").unwrap();
+    let jh = cal.figure(TbVariant::Joback, "heldout-common").unwrap();
+    println!(
+        "held-out MAE {:.2} K vs Joback {:.2} K on {} compounds",
+        sh.mae_k, jh.mae_k, jh.n
+    );
+    // Measured when written: 11.3 K against 14.3 K (−21 %: short of the issue's −25 %
+    // on this split). Limits: measured + margin, so a worse fit fails.
+    assert!(sh.mae_k <= 12.5, "held-out MAE {}", sh.mae_k);
+    assert!(sh.mae_k <= 0.85 * jh.mae_k, "{} vs {}", sh.mae_k, jh.mae_k);
+    assert!(
+        jh.mae_k <= 16.0,
+        "published Joback on the held-out split {}",
+        jh.mae_k
+    );
+}
+
+/// The 90 % interval on compounds never fitted on: at least 85 % inside overall and
+/// in each family with 15 or more held-out compounds.
+#[test]
+fn interval_coverage_on_the_held_out_split() {
+    let cal = calibration();
+    let (mut n, mut inside) = (0, 0);
+    for (fam, q) in &cal.families {
+        println!(
+            "{:<16} q {:.4}  held-out {}/{}",
+            fam.name(),
+            q.q90_rel,
+            q.inside_heldout,
+            q.n_heldout
+        );
+        n += q.n_heldout;
+        inside += q.inside_heldout;
+        if q.n_heldout >= 15 {
+            assert!(
+                q.inside_heldout as f64 >= 0.85 * q.n_heldout as f64,
+                "{}",
+                fam.name()
+            );
+        }
+    }
+    assert!(n >= 50, "{n} held-out compounds");
+    assert!(inside as f64 >= 0.85 * n as f64, "{inside}/{n}");
+}
+
+/// New groups and corrections counted by hand from the structures.
+#[test]
+fn extended_groups_and_corrections_counted_by_hand() {
+    let cases: &[(&str, &[(&str, u32)], Family)] = &[
+        (
+            "CS(C)=O",
+            &[("ch3", 2), ("s_chain", 1), ("s_oxo", 1), ("sulfoxide", 1)],
+            Family::Multifunctional,
+        ),
+        (
+            "O=S1(=O)CCCC1",
+            &[("ch2_ring", 4), ("s_ring", 1), ("s_oxo", 2)],
+            Family::Multifunctional,
+        ),
+        (
+            "CN(C)C=O",
+            &[
+                ("ch3", 2),
+                ("n_chain", 1),
+                ("cho", 1),
+                ("amide_tertiary", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "CN1CCCC1=O",
+            &[
+                ("ch3", 1),
+                ("ch2_ring", 3),
+                ("n_ring_tert", 1),
+                ("co_ring", 1),
+                ("amide_ring", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "CC(N)=O",
+            &[
+                ("ch3", 1),
+                ("co_chain", 1),
+                ("nh2", 1),
+                ("amide_primary", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "CNC(C)=O",
+            &[
+                ("ch3", 2),
+                ("co_chain", 1),
+                ("nh_chain", 1),
+                ("amide_secondary", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "CN(C)C(=O)N(C)C",
+            &[("ch3", 4), ("n_chain", 2), ("co_chain", 1), ("urea", 1)],
+            Family::Multifunctional,
+        ),
+        (
+            "CC(C)(C)OC(=O)N1CCCCC1",
+            &[
+                ("ch3", 3),
+                ("c_chain", 1),
+                ("coo", 1),
+                ("n_ring_tert", 1),
+                ("ch2_ring", 5),
+                ("carbamate", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "CN(C)S(C)(=O)=O",
+            &[
+                ("ch3", 3),
+                ("n_chain", 1),
+                ("s_chain", 1),
+                ("s_oxo", 2),
+                ("sulfonamide", 1),
+            ],
+            Family::Multifunctional,
+        ),
+        (
+            "c1ccc2[nH]ccc2c1",
+            &[
+                ("eq_ch_ring", 6),
+                ("eq_c_ring", 2),
+                ("nh_ring", 1),
+                ("nh_aromatic", 1),
+                ("fused_aromatic", 2),
+            ],
+            Family::Nitrogen,
+        ),
+        (
+            "c1ccc2ccccc2c1",
+            &[("eq_ch_ring", 8), ("eq_c_ring", 2), ("fused_aromatic", 2)],
+            Family::Hydrocarbon,
+        ),
+        (
+            "CN1CCCCC1",
+            &[("ch3", 1), ("ch2_ring", 5), ("n_ring_tert", 1)],
+            Family::Nitrogen,
+        ),
+        (
+            "O=C1CCCO1",
+            &[("ch2_ring", 3), ("coo", 1), ("ester_ring", 1)],
+            Family::Oxygen,
+        ),
+        ("ClCCl", &[("ch2_chain", 1), ("cl", 2)], Family::Halide),
+        ("CSC", &[("ch3", 2), ("s_chain", 1)], Family::Sulfur),
+    ];
+    for (smi, want, fam) in cases {
+        let f = features(&parse_smiles(smi).unwrap()).unwrap();
+        let want: std::collections::BTreeMap<String, u32> =
+            want.iter().map(|(k, v)| (k.to_string(), *v)).collect();
+        assert_eq!(f.terms, want, "{smi}");
+        assert_eq!(f.family, *fam, "{smi}");
+    }
+}
+
+/// Issue 17's lab structures get an estimate whose 90 % interval holds the accepted
+/// normal boiling point. Accepted values: DMF 153 °C (reference-data/normal-boiling-points-dev.csv);
+/// DMAc 165 °C, NMP 202 °C, DMSO 189 °C, indole 253.6 °C (from memory, handbook values).
+/// These compounds are in the calibration set (DMAc in its held-out split), so this
+/// checks that the model carries them, not that it predicts unseen molecules.
+#[test]
+fn lab_structures_inside_their_interval() {
+    for (name, smi, tb_c) in [
+        ("DMF", "CN(C)C=O", 153.0),
+        ("DMAc", "CN(C)C(C)=O", 165.0),
+        ("NMP", "CN1CCCC1=O", 202.0),
+        ("DMSO", "CS(C)=O", 189.0),
+        ("indole", "c1ccc2[nH]ccc2c1", 253.6),
+    ] {
+        let e = estimate_smiles(smi).unwrap();
+        let t = tb_c + 273.15;
+        println!(
+            "{name}: {:.1} K [{:.1}, {:.1}] accepted {t:.2} K",
+            e.tb_k, e.tb_pi90_low_k, e.tb_pi90_high_k
+        );
+        assert!(e.tb_pi90_low_k <= t && t <= e.tb_pi90_high_k, "{name}");
+        assert!(e.tc_k.is_some() && e.pc_bar.is_some(), "{name}: a curve");
+    }
+    // Boc-piperidine: no accepted atmospheric boiling point is known to us, so only
+    // that it is estimated, from fitted terms, with the published-table gap said.
+    let e = estimate_smiles("CC(C)(C)OC(=O)N1CCCCC1").unwrap();
+    assert!(
+        e.tb_joback_k.is_none(),
+        "the published table has no ring >N-"
+    );
+    assert!(
+        e.notes.iter().any(|n| n.contains("n_ring_tert")),
+        "{:?}",
+        e.notes
+    );
+    assert!(e
+        .tb_terms
+        .iter()
+        .any(|t| t.id == "carbamate" && t.origin == "project-fit"));
+    // DMSO: the sulfoxide correction has two calibration compounds, so it is not
+    // fitted and DMSO is outside the calibration (its wide interval holds 189 °C above).
+    let e = estimate_smiles("CS(C)=O").unwrap();
+    assert!(
+        e.comfort.reasons.contains(&"outside-calibration"),
+        "{:?}",
+        e.comfort
+    );
+    // A sulfonamide has no fitted correction (no calibration compound): outside.
+    let e = estimate_smiles("CN(C)S(C)(=O)=O").unwrap();
+    assert!(
+        e.comfort.reasons.contains(&"outside-calibration"),
+        "{:?}",
+        e.comfort
+    );
+}
+
+/// Issue 14 item 5: a structure that matches a reference compound shows the
+/// reference value and the estimate's error against it (DMF, dev table 426.15 K).
+#[test]
+fn estimate_shows_the_reference_value_beside_the_estimate() {
+    let v = json(&["estimate", "--smiles", "O=CN(C)C"]);
+    let r = &v["reference"];
+    assert!((r["tb_k"].as_f64().unwrap() - 426.15).abs() < 0.01, "{v}");
+    let err = v["tb_k"].as_f64().unwrap() - 426.15;
+    assert!((r["estimate_error_k"].as_f64().unwrap() - err).abs() < 1e-9);
+    assert!(v["tb_variants"]["joback"].as_f64().is_some());
+    assert_eq!(v["tb_variant"], calibration().variant.name());
+    let none = json(&["estimate", "--smiles", "CC(C)(C)OC(=O)N1CCCCC1"]);
+    assert!(none["reference"].is_null());
+}
