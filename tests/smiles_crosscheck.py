@@ -13,6 +13,10 @@ SMILES sources:
   2. The first-5,000 extract of the NCI open database that the RDKit wheel
      ships as rdkit/Data/NCI/first_5K.smi (structures whose atoms are all
      within what ebullio reads; isotopes and explicit [H] atoms skipped).
+  3. Every structure of reference-data/tb-calibration.csv (the boiling-point
+     calibration set: amides, lactams, carbamates, ureas, sulfoxides, sulfones,
+     ring tertiary amines, pyrrole-type N-H, fused aromatics among them) and the
+     lab structures the estimate tests name.
 
 Usage: python3 tests/smiles_crosscheck.py [path/to/smiles_info binary]
 The binary is built from examples/smiles_info.rs (cargo build --example smiles_info).
@@ -132,6 +136,21 @@ def main():
                 if v is not None:
                     cases.append(("nci-first-5k", s, v))
                     n_nci += 1
+    import csv
+    n_cal = 0
+    extra = ["CC(C)(C)OC(=O)N1CCCCC1", "COC(=O)CNC(=O)OC(C)(C)C", "CN(C)S(C)(=O)=O"]
+    with open(os.path.join(root, "reference-data", "tb-calibration.csv")) as fh:
+        rows = csv.reader(line for line in fh if not line.startswith("#"))
+        next(rows)
+        extra += [r[1] for r in rows]
+    for s in extra:
+        if s in seen:
+            continue
+        seen.add(s)
+        v = rdkit_view(s)
+        if v is not None:
+            cases.append(("tb-calibration", s, v))
+            n_cal += 1
     text = "\n".join(c[1] for c in cases) + "\n"
     out = subprocess.run([binary], input=text, capture_output=True, text=True, check=True).stdout
     ours = {}
@@ -148,8 +167,8 @@ def main():
         elif normal_formula(o[1]) != formula or o[2] != hs:
             bad.append((src, s, "ours: %s [%s]" % (o[1], o[2]), formula, hs))
     n = len(cases)
-    print("smiles cross-check against RDKit %s: %d SMILES (%d generated, seed %d; %d from rdkit/Data/NCI/first_5K.smi)"
-          % (Chem.rdBase.rdkitVersion, n, n - n_nci, SEED, n_nci))
+    print("smiles cross-check against RDKit %s: %d SMILES (%d generated, seed %d; %d from rdkit/Data/NCI/first_5K.smi; %d calibration and lab structures)"
+          % (Chem.rdBase.rdkitVersion, n, n - n_nci - n_cal, SEED, n_nci, n_cal))
     print("agree on formula and per-heavy-atom H count: %d; disagree or refused: %d" % (n - len(bad), len(bad)))
     for b in bad[:40]:
         print("  [%s] %s -> %s; rdkit: %s [%s]" % b)

@@ -218,25 +218,27 @@ fn table_text(rows: &[Row]) -> String {
         s.push('\n');
         if !e.tb_terms.is_empty() {
             s.push_str(&format!(
-                "  Tb terms ({}; values are this project's regression):",
+                "  Tb terms ({}; fitted values are this project's regression):\n",
                 e.tb_variant.name()
             ));
             for t in &e.tb_terms {
                 s.push_str(&format!(
-                    "  {} ×{} {:.4}{}{}",
+                    "    {:<16} ×{}  {:>9.4}{}  {}\n",
                     t.id,
                     t.count,
                     t.value,
-                    t.se.map_or(String::new(), |se| format!(" ±{se:.4}")),
+                    t.se.map_or(" ".repeat(10), |se| format!(" ±{se:<8.4}")),
                     match (t.origin, t.published_joback_dtb_k) {
-                        ("prior-not-fitted", _) => " (not fitted: prior)".to_string(),
-                        (_, Some(p)) => format!(" (published Joback ΔTb {p:.2} K)"),
+                        ("prior-not-fitted", _) => format!(
+                            "not fitted ({} calibration compounds): prior",
+                            t.n_compounds
+                        ),
+                        (_, Some(p)) => format!("published Joback ΔTb {p:.2} K"),
                         (_, None) =>
-                            format!(" (project's own {}, {} compounds)", t.kind, t.n_compounds),
+                            format!("project's own {} ({} compounds)", t.kind, t.n_compounds),
                     }
                 ));
             }
-            s.push('\n');
         }
         if !r.error.is_empty() {
             s.push_str(&format!("  error: {}\n", r.error));
