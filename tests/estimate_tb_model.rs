@@ -143,7 +143,8 @@ fn interval_coverage_on_the_held_out_split() {
 /// New groups and corrections counted by hand from the structures.
 #[test]
 fn extended_groups_and_corrections_counted_by_hand() {
-    let cases: &[(&str, &[(&str, u32)], Family)] = &[
+    type Case<'a> = (&'a str, &'a [(&'a str, u32)], Family);
+    let cases: &[Case] = &[
         (
             "CS(C)=O",
             &[("ch3", 2), ("s_chain", 1), ("s_oxo", 1), ("sulfoxide", 1)],
