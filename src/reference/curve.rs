@@ -1,5 +1,7 @@
-//! The reference curve of a compound: an Antoine row or the IF97 water line, with its source.
+//! The reference curve of a compound: a reference equation's stored saturation curve, an
+//! Antoine row or the IF97 water line, with its source and uncertainty.
 
+use super::equation::{EquationRow, SaturationForm};
 use super::table::AntoineRow;
 use super::water::If97Saturation;
 use crate::vapor::{AntoineConstants, Curve};
@@ -16,6 +18,9 @@ pub enum ReferenceCurveKind {
     Antoine(AntoineConstants),
     /// IAPWS-IF97 region 4.
     Water(If97Saturation),
+    /// A reference equation of state's saturation curve, in its stored form, with the
+    /// fitted range (K).
+    Equation(SaturationForm, (f64, f64)),
 }
 
 /// A reference curve with its source and assumed uncertainty.
@@ -52,23 +57,72 @@ impl ReferenceCurve {
         }
     }
 
-    fn curve(&self) -> &dyn Curve {
+    /// A reference equation's stored saturation curve.
+    pub fn equation(r: &EquationRow) -> Self {
+        let mut note = format!(
+            "stored {} form, within {:.4} % of the equation from {:.2} K to {:.2} K",
+            r.form.name(),
+            100.0 * r.max_dev_rel,
+            r.range_k.0,
+            r.range_k.1
+        );
+        match r.stated_u_p_rel {
+            Some(u) => note.push_str(&format!(
+                "; the equation's stated uncertainty in p: {:.3} % (k = 2, {})",
+                100.0 * u,
+                r.stated_u_note
+            )),
+            None => note.push_str(&format!(
+                "; the equation's own uncertainty statement is not recorded here, so {:.2} % (k = 2) is assumed",
+                200.0 * super::equation::REFERENCE_EQUATION_U_P_REL
+            )),
+        }
+        if !r.range_note.is_empty() {
+            note.push_str(&format!("; range {}", r.range_note));
+        }
+        ReferenceCurve {
+            kind: ReferenceCurveKind::Equation(r.form, r.range_k),
+            source: format!(
+                "reference equation of state: {} ({}, line {})",
+                r.citation, r.origin.file, r.origin.line
+            ),
+            u_p_rel: r.u_p_rel(),
+            note,
+        }
+    }
+
+    fn curve(&self) -> Option<&dyn Curve> {
         match &self.kind {
-            ReferenceCurveKind::Antoine(k) => k,
-            ReferenceCurveKind::Water(w) => w,
+            ReferenceCurveKind::Antoine(k) => Some(k),
+            ReferenceCurveKind::Water(w) => Some(w),
+            ReferenceCurveKind::Equation(..) => None,
         }
     }
 }
 
 impl Curve for ReferenceCurve {
     fn ln_p(&self, t_k: f64) -> f64 {
-        self.curve().ln_p(t_k)
+        match (&self.kind, self.curve()) {
+            (ReferenceCurveKind::Equation(f, _), _) => f.ln_p(t_k),
+            (_, Some(c)) => c.ln_p(t_k),
+            _ => f64::NAN,
+        }
     }
     fn d_ln_p_dt(&self, t_k: f64) -> f64 {
-        self.curve().d_ln_p_dt(t_k)
+        match self.curve() {
+            Some(c) => c.d_ln_p_dt(t_k),
+            None => {
+                let h = 1e-4 * t_k.max(1.0);
+                (self.ln_p(t_k + h) - self.ln_p(t_k - h)) / (2.0 * h)
+            }
+        }
     }
     fn valid_range_k(&self) -> Option<(f64, f64)> {
-        self.curve().valid_range_k()
+        match (&self.kind, self.curve()) {
+            (ReferenceCurveKind::Equation(_, r), _) => Some(*r),
+            (_, Some(c)) => c.valid_range_k(),
+            _ => None,
+        }
     }
     /// u(T) = u(ln p) / (d ln p/dT), with u(ln p) ≈ the relative uncertainty in p.
     fn t_uncertainty_k(&self, p_pa: f64) -> Option<f64> {
@@ -77,7 +131,12 @@ impl Curve for ReferenceCurve {
         (s > 0.0).then(|| self.u_p_rel / s)
     }
     fn t_at(&self, p_pa: f64) -> Option<f64> {
-        self.curve().t_at(p_pa)
+        match self.curve() {
+            Some(c) => c.t_at(p_pa),
+            None => {
+                crate::vapor::invert_monotone(|t| self.ln_p(t), p_pa.ln(), self.valid_range_k())
+            }
+        }
     }
     fn triple_point(&self) -> Option<(f64, f64)> {
         self.curve().triple_point()

@@ -21,6 +21,7 @@
 pub mod cas;
 pub mod compare;
 mod curve;
+pub mod equation;
 pub mod fit_check;
 pub mod table;
 pub mod water;
@@ -35,6 +36,8 @@ use std::sync::OnceLock;
 pub const ANTOINE_CSV: &str = include_str!("../../reference-data/antoine-published.csv");
 /// The bundled boiling-point table (`reference-data/normal-boiling-points-dev.csv`).
 pub const TB_CSV: &str = include_str!("../../reference-data/normal-boiling-points-dev.csv");
+/// The bundled reference-equation curves (`reference-data/reference-equations.csv`).
+pub const EQUATIONS_CSV: &str = include_str!("../../reference-data/reference-equations.csv");
 /// The bundled synonyms (`reference-data/synonyms.csv`).
 pub const SYNONYMS_CSV: &str = include_str!("../../reference-data/synonyms.csv");
 
@@ -53,6 +56,8 @@ pub struct Compound {
     pub tb: Vec<TbRow>,
     /// Antoine rows (user rows first).
     pub antoine: Vec<AntoineRow>,
+    /// The stored saturation curve of the compound's reference equation of state, if any.
+    pub equation: Option<equation::EquationRow>,
 }
 
 impl Compound {
@@ -67,14 +72,18 @@ impl Compound {
     }
 
     /// The best reference curve: a user's Antoine row if any; for water the
-    /// IAPWS-IF97 saturation line; otherwise the bundled Antoine row with a
-    /// stated range and no from-memory note, widest range first.
+    /// IAPWS-IF97 saturation line; then the reference equation of state's stored
+    /// curve; otherwise the bundled Antoine row with a stated range and no
+    /// from-memory note, widest range first.
     pub fn best_curve(&self) -> Option<ReferenceCurve> {
         if let Some(r) = self.antoine.iter().find(|r| r.origin.user) {
             return Some(ReferenceCurve::antoine(r));
         }
         if self.is_water() {
             return Some(ReferenceCurve::water());
+        }
+        if let Some(e) = &self.equation {
+            return Some(ReferenceCurve::equation(e));
         }
         let score = |r: &AntoineRow| {
             let width = r.constants.range_k.map_or(0.0, |(lo, hi)| hi - lo);
@@ -175,6 +184,31 @@ impl Library {
         for r in bundled_a.antoine {
             lib.entry(&r.compound).antoine.push(r);
         }
+        let eqs = equation::parse(EQUATIONS_CSV, "reference-data/reference-equations.csv")?;
+        for r in eqs {
+            let i = lib.entry_index(&r.compound);
+            for s in &r.synonyms {
+                lib.index.entry(key(s)).or_insert(i);
+                if !lib.compounds[i].synonyms.iter().any(|x| key(x) == key(s)) {
+                    lib.compounds[i].synonyms.push(s.clone());
+                }
+            }
+            let c = &mut lib.compounds[i];
+            if let Some(tb) = r.tb_k {
+                c.tb.insert(
+                    0,
+                    TbRow {
+                        compound: r.compound.clone(),
+                        smiles: Some(r.smiles.clone()),
+                        cas: Some(r.cas.clone()),
+                        tb_k: tb,
+                        source: format!("reference equation of state: {}", r.citation),
+                        origin: r.origin.clone(),
+                    },
+                );
+            }
+            c.equation = Some(r);
+        }
         if let Some(u) = user_rows {
             for r in u.tb.into_iter().rev() {
                 lib.entry(&r.compound).tb.insert(0, r);
@@ -191,7 +225,7 @@ impl Library {
         let keep: Vec<bool> = lib
             .compounds
             .iter()
-            .map(|c| !(c.tb.is_empty() && c.antoine.is_empty()))
+            .map(|c| !(c.tb.is_empty() && c.antoine.is_empty() && c.equation.is_none()))
             .collect();
         if keep.iter().any(|k| !k) {
             let old = std::mem::take(&mut lib.compounds);
@@ -227,6 +261,7 @@ impl Library {
             cas: None,
             tb: Vec::new(),
             antoine: Vec::new(),
+            equation: None,
         });
         self.index.insert(key(name), i);
         i

@@ -92,9 +92,12 @@ fn lookup_by_name_synonym_and_cas() {
     ));
     // CAS check digit is validated before any lookup (64-17-5 ethanol, from memory).
     assert!(matches!(lib.find("64-17-4"), Err(LookupError::Cas(_))));
-    // No bundled source gives CAS numbers, so a valid one is "not found" until a user adds it.
+    // CAS numbers come with the reference-equation rows (the library's own, check digit
+    // validated): ethanol is found by its number.
+    assert_eq!(lib.find("64-17-5").unwrap().name, "ethanol");
+    // A valid number of no bundled compound (50-00-0, formaldehyde, from memory).
     assert!(matches!(
-        lib.find("64-17-5"),
+        lib.find("50-00-0"),
         Err(LookupError::NotFound { .. })
     ));
     let user = "compound,cas,tb_k,source\nethanol,64-17-5,351.4,my lab\n";
@@ -117,7 +120,7 @@ fn smiles_lookup_opensmiles_spellings() {
     }
     assert_eq!(lib.find_smiles("CC(=O)C").unwrap().name, "acetone");
     assert!(matches!(
-        lib.find_smiles("COC"),
+        lib.find_smiles("OCCCCCCCCO"),
         Err(LookupError::NotFound { .. })
     ));
     assert!(matches!(
@@ -168,8 +171,8 @@ fn comparison_flags_five_percent_shift_not_identity() {
         .any(|f| f.code == "reference-pressure-disagrees"));
     assert!((off.max_rel_diff_pct.unwrap() - 5.0).abs() < 1e-6);
     // No overlap is said plainly, with the gap.
-    let far = compare(&best, (500.0, 520.0), bz, Tolerances::default()).unwrap();
-    assert!(far.gap_k.unwrap() > 100.0);
+    let far = compare(&best, (600.0, 620.0), bz, Tolerances::default()).unwrap();
+    assert!(far.gap_k.unwrap() > 50.0);
     assert!(far
         .findings
         .iter()
