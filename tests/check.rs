@@ -207,7 +207,7 @@ fn planted_faults_are_found_and_clean_rows_pass() {
     );
     assert!(
         diag("ethylbenzene").contains("differs by 10.0 K")
-            && diag("ethylbenzene").contains("reference-data/normal-boiling-points-dev.csv line "),
+            && diag("ethylbenzene").contains("reference-data/reference-equations.csv line "),
         "{}",
         diag("ethylbenzene")
     );

@@ -29,7 +29,11 @@ fn list_filter_and_show_by_synonym_and_smiles() {
         let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
         assert_eq!(v["name"], "ethanol");
         assert!(v["antoine"].as_array().unwrap().len() >= 3);
-        assert!(v["tb_source"].as_str().unwrap().contains("Smith, Van Ness"));
+        // The preferred Tb is the reference equation's (Schroeder et al. 2014 for ethanol).
+        assert!(v["tb_source"]
+            .as_str()
+            .unwrap()
+            .contains("reference equation of state"));
     }
 }
 

@@ -270,7 +270,7 @@ def main():
             pt_rows.append([name, xs, ps])
         try:
             tb = CP.PropsSI("T", "P", 101325.0, "Q", 0, fluid)
-            tb = fmt(round(tb, 4)) if tb < t_hi else ""
+            tb = fmt(round(tb, 4)) if t_lo <= tb <= t_hi else ""  # only inside the fitted range
         except ValueError:
             tb = ""  # no liquid at 1 atm (sublimes, or supercritical)
         p_tr = psat(fluid, t_tr)

@@ -201,7 +201,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             );
         }
         notes.push(format!(
-            "Interval from an assumed {:.1} % standard uncertainty in p of the reference.",
+            "Interval from a {:.2} % standard uncertainty in p of the reference.",
             100.0 * rc.u_p_rel
         ));
         (
@@ -227,8 +227,36 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             ),
             k,
         )
+    } else if let Some((c, rc)) = args
+        .smiles
+        .as_deref()
+        .and_then(|s| Library::bundled().reference_for_smiles(s))
+    {
+        // Reference first: a structure that is a reference compound uses its reference curve.
+        let s = args.smiles.as_deref().unwrap_or_default();
+        notes.push(format!(
+            "The structure {s} is the reference compound {}: its reference curve is used, not a structure estimate.",
+            c.name
+        ));
+        if !rc.note.is_empty() {
+            notes.push(format!("Reference note: {}", rc.note));
+        }
+        notes.push(format!(
+            "Interval from a {:.2} % standard uncertainty in p of the reference.",
+            100.0 * rc.u_p_rel
+        ));
+        (
+            Box::new(rc.clone()),
+            format!("reference {} (matched by structure {s}): {}", c.name, rc.source),
+            1.96,
+        )
     } else {
         let s = args.smiles.as_deref().unwrap_or_default();
+        if let Err(e @ ebullio::reference::LookupError::Stereo { .. }) =
+            Library::bundled().find_smiles(s)
+        {
+            notes.push(format!("Not matched to a reference compound: {e}."));
+        }
         let e = ebullio::estimate::estimate_smiles(s)
             .map_err(|e| InputError(format!("--smiles '{s}': {e}")))?;
         let c = e.curve().ok_or_else(|| {

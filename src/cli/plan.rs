@@ -149,6 +149,15 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
     } else {
         rest.join(" ")
     };
+    // Reference first: a structure that is a reference compound uses its reference curve.
+    if let Some((c, rc)) = ebullio::reference::Library::bundled().reference_for_smiles(smiles) {
+        let shown = if rest.is_empty() { c.name.clone() } else { name };
+        let source = format!(
+            "reference (structure {smiles} is {}): {}",
+            c.name, rc.source
+        );
+        return Ok(Component::new(shown, Box::new(rc), source));
+    }
     let e = ebullio::estimate::estimate_smiles(smiles)
         .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
     let curve = e.curve().ok_or_else(|| {

@@ -47,28 +47,71 @@ struct AntoineOut {
 }
 
 #[derive(serde::Serialize)]
+struct EquationOut {
+    form: &'static str,
+    tc_k: f64,
+    pc_pa: f64,
+    omega: f64,
+    t_triple_k: f64,
+    t_range_k: (f64, f64),
+    max_dev_pct: f64,
+    stated_u_p_pct: Option<f64>,
+    stated_u_note: String,
+    u_p_pct: f64,
+    citation: String,
+    file: String,
+    line: usize,
+}
+
+#[derive(serde::Serialize)]
 struct CompoundOut {
     name: String,
     synonyms: Vec<String>,
     smiles: Option<String>,
     cas: Option<String>,
+    cas_source: Option<String>,
     tb_k: Option<f64>,
     tb_source: Option<String>,
     reference_curve: Option<String>,
+    reference_curve_u_p_pct: Option<f64>,
+    reference_curve_note: Option<String>,
+    equation: Option<EquationOut>,
     antoine: Vec<AntoineOut>,
 }
 
 fn describe(c: &Compound) -> CompoundOut {
+    let best = c.best_curve();
     CompoundOut {
         name: c.name.clone(),
         synonyms: c.synonyms.clone(),
         smiles: c.smiles.clone(),
         cas: c.cas.clone(),
+        cas_source: c.cas_source().map(str::to_string),
         tb_k: c.tb_row().map(|r| r.tb_k),
         tb_source: c
             .tb_row()
             .map(|r| format!("{} ({}, line {})", r.source, r.origin.file, r.origin.line)),
-        reference_curve: c.best_curve().map(|r| r.source),
+        reference_curve: best.as_ref().map(|r| r.source.clone()),
+        reference_curve_u_p_pct: best.as_ref().map(|r| 100.0 * r.u_p_rel),
+        reference_curve_note: best
+            .as_ref()
+            .map(|r| r.note.clone())
+            .filter(|n| !n.is_empty()),
+        equation: c.equation.as_ref().map(|e| EquationOut {
+            form: e.form.name(),
+            tc_k: e.tc_k,
+            pc_pa: e.pc_pa,
+            omega: e.omega,
+            t_triple_k: e.t_triple_k,
+            t_range_k: e.range_k,
+            max_dev_pct: 100.0 * e.max_dev_rel,
+            stated_u_p_pct: e.stated_u_p_rel.map(|u| 100.0 * u),
+            stated_u_note: e.stated_u_note.clone(),
+            u_p_pct: 100.0 * e.u_p_rel(),
+            citation: e.citation.clone(),
+            file: e.origin.file.clone(),
+            line: e.origin.line,
+        }),
         antoine: c
             .antoine
             .iter()
@@ -138,14 +181,19 @@ fn list_text(list: &[CompoundOut], f: Format, user: Option<&str>) -> anyhow::Res
     Ok(match f {
         Format::Json => super::common::json_text(list)? + "\n",
         Format::Csv => {
-            let mut s = String::from("name,smiles,cas,tb_k,antoine_rows,synonyms\n");
+            let mut s = String::from(
+                "name,smiles,cas,cas_source,tb_k,reference_curve_u_p_pct,antoine_rows,synonyms\n",
+            );
             for c in list {
                 s.push_str(&format!(
-                    "{},{},{},{},{},{}\n",
+                    "{},{},{},{},{},{},{},{}\n",
                     csv_field(&c.name),
                     csv_field(c.smiles.as_deref().unwrap_or("")),
                     c.cas.as_deref().unwrap_or(""),
+                    csv_field(c.cas_source.as_deref().unwrap_or("")),
                     c.tb_k.map_or(String::new(), |t| t.to_string()),
+                    c.reference_curve_u_p_pct
+                        .map_or(String::new(), |u| format!("{u:.4}")),
                     c.antoine.len(),
                     csv_field(&c.synonyms.join("; "))
                 ));
@@ -159,16 +207,30 @@ fn list_text(list: &[CompoundOut], f: Format, user: Option<&str>) -> anyhow::Res
                     " (bundled, plus your table {u}, which takes precedence)"
                 ));
             }
-            s.push_str("\n\n  name                               Tb / K   Antoine rows  SMILES\n");
+            s.push_str("\n\n  name                                   CAS          Tb / K   curve (u(p) %)           SMILES\n");
             for c in list {
+                let curve = match (&c.equation, c.reference_curve_u_p_pct) {
+                    (Some(_), Some(u)) if c.name != "water" => format!("ref. equation ({u:.2})"),
+                    (_, Some(u)) if c.name == "water" => format!("IAPWS-IF97 ({u:.2})"),
+                    (_, Some(u)) if !c.antoine.is_empty() => format!("Antoine ({u:.1})"),
+                    (_, Some(u)) => format!("Lee-Kesler ({u:.0})"),
+                    _ => "-".into(),
+                };
+                let mem = if c.cas_source.as_deref() == Some("from memory") {
+                    "*"
+                } else {
+                    " "
+                };
                 s.push_str(&format!(
-                    "  {:34} {:>7}   {:>12}  {}\n",
+                    "  {:38} {:>11}{mem} {:>7}   {:24} {}\n",
                     c.name,
+                    c.cas.as_deref().unwrap_or("-"),
                     c.tb_k.map_or("-".into(), |t| format!("{t:.2}")),
-                    c.antoine.len(),
+                    curve,
                     c.smiles.as_deref().unwrap_or("")
                 ));
             }
+            s.push_str("\n  * CAS number from memory (check digit validated).\n");
             s
         }
     })
@@ -216,10 +278,11 @@ fn show(c: &CompoundOut, f: Format) -> anyhow::Result<String> {
                 c.smiles.as_deref().unwrap_or("-")
             ));
             s.push_str(&format!(
-                "  CAS:       {}\n",
-                c.cas
+                "  CAS:       {}{}\n",
+                c.cas.as_deref().unwrap_or("-"),
+                c.cas_source
                     .as_deref()
-                    .unwrap_or("- (no bundled source gives one)")
+                    .map_or(String::new(), |x| format!("  [{x}]"))
             ));
             match (c.tb_k, &c.tb_source) {
                 (Some(t), Some(src)) => s.push_str(&format!("  Tb:        {t:.2} K  [{src}]\n")),
@@ -229,6 +292,30 @@ fn show(c: &CompoundOut, f: Format) -> anyhow::Result<String> {
                 "  reference curve: {}\n",
                 c.reference_curve.as_deref().unwrap_or("none")
             ));
+            if let Some(u) = c.reference_curve_u_p_pct {
+                s.push_str(&format!(
+                    "    standard uncertainty in p: {u:.2} %{}\n",
+                    c.reference_curve_note
+                        .as_deref()
+                        .map_or(String::new(), |n| format!(" ({n})"))
+                ));
+            }
+            if let Some(e) = &c.equation {
+                s.push_str(&format!(
+                    "\n  Reference equation: Tc {:.3} K, pc {:.4} MPa, omega {:.4}, triple point {:.2} K\n    stored {} form over {:.2}-{:.2} K, largest deviation from the equation {:.4} % in p\n    {} ({}, line {})\n",
+                    e.tc_k,
+                    e.pc_pa / 1e6,
+                    e.omega,
+                    e.t_triple_k,
+                    e.form,
+                    e.t_range_k.0,
+                    e.t_range_k.1,
+                    e.max_dev_pct,
+                    e.citation,
+                    e.file,
+                    e.line
+                ));
+            }
             for (i, r) in c.antoine.iter().enumerate() {
                 s.push_str(&format!(
                     "\n  Antoine {}: A = {}, B = {}, C = {} ({})\n",

@@ -4,12 +4,18 @@
 use super::equation::{EquationRow, SaturationForm};
 use super::table::AntoineRow;
 use super::water::If97Saturation;
+use crate::estimate::lee_kesler::LeeKeslerCurve;
 use crate::vapor::{AntoineConstants, Curve};
 
 /// Assumed relative standard uncertainty in p of the IF97 saturation line as
 /// used here: 0.1 %. A deliberately generous allowance (common practice); the
 /// release states its own, smaller, uncertainties, which are not reproduced.
 pub const IF97_U_P_REL: f64 = 0.001;
+
+/// Relative standard uncertainty in p of a Lee–Kesler curve drawn through a boiling point
+/// with critical constants from memory: 10 % (common practice for a corresponding-states
+/// curve away from its anchor; the from-memory class, documented in SOURCES.md).
+pub const FROM_MEMORY_CURVE_U_P_REL: f64 = 0.10;
 
 /// What a reference curve is made of.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -21,6 +27,8 @@ pub enum ReferenceCurveKind {
     /// A reference equation of state's saturation curve, in its stored form, with the
     /// fitted range (K).
     Equation(SaturationForm, (f64, f64)),
+    /// A Lee–Kesler curve through a tabulated boiling point with tabulated Tc and pc.
+    LeeKesler(LeeKeslerCurve),
 }
 
 /// A reference curve with its source and assumed uncertainty.
@@ -91,8 +99,40 @@ impl ReferenceCurve {
         }
     }
 
+    /// A Lee–Kesler curve through the row's boiling point: with the row's critical constants
+    /// when it gives them, else with Joback's Tc (taken from the row's Tb: Joback's Tc is Tb
+    /// times a group factor) and pc for the row's SMILES. The from-memory class in either case.
+    pub fn lee_kesler(r: &super::TbRow) -> Option<Self> {
+        let (tc, pc, crit_from) = match r.critical {
+            Some((tc, pc)) => (tc, pc, "Tc and pc from the row".to_string()),
+            None => {
+                let e = crate::estimate::estimate_smiles(r.smiles.as_deref()?).ok()?;
+                let (tc_e, pc_bar) = (e.tc_k?, e.pc_bar?);
+                let tc = r.tb_k * tc_e / e.tb_k;
+                (tc, pc_bar * 1e5, "Tc and pc by Joback's group contributions (structure estimate)".to_string())
+            }
+        };
+        if !(tc > r.tb_k && pc > crate::units::ATM_PA) {
+            return None;
+        }
+        Some(ReferenceCurve {
+            kind: ReferenceCurveKind::LeeKesler(LeeKeslerCurve::from_tb(r.tb_k, tc, pc, None)),
+            source: format!(
+                "Lee-Kesler curve (Lee & Kesler, AIChE J. 21, 510-527, 1975) through the boiling point {:.2} K, with Tc {tc:.1} K and pc {:.3} MPa ({crit_from}); boiling point: {} ({}, line {})",
+                r.tb_k,
+                pc / 1e6,
+                r.source,
+                r.origin.file,
+                r.origin.line
+            ),
+            u_p_rel: FROM_MEMORY_CURVE_U_P_REL,
+            note: "from-memory class: a corresponding-states curve through a boiling point, not a measured curve".into(),
+        })
+    }
+
     fn curve(&self) -> Option<&dyn Curve> {
         match &self.kind {
+            ReferenceCurveKind::LeeKesler(k) => Some(k),
             ReferenceCurveKind::Antoine(k) => Some(k),
             ReferenceCurveKind::Water(w) => Some(w),
             ReferenceCurveKind::Equation(..) => None,

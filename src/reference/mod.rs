@@ -36,6 +36,8 @@ use std::sync::OnceLock;
 pub const ANTOINE_CSV: &str = include_str!("../../reference-data/antoine-published.csv");
 /// The bundled boiling-point table (`reference-data/normal-boiling-points-dev.csv`).
 pub const TB_CSV: &str = include_str!("../../reference-data/normal-boiling-points-dev.csv");
+/// The bundled process solvents without another source (`reference-data/process-solvents.csv`).
+pub const SOLVENTS_CSV: &str = include_str!("../../reference-data/process-solvents.csv");
 /// The bundled reference-equation curves (`reference-data/reference-equations.csv`).
 pub const EQUATIONS_CSV: &str = include_str!("../../reference-data/reference-equations.csv");
 /// The bundled synonyms (`reference-data/synonyms.csv`).
@@ -98,6 +100,28 @@ impl Compound {
                     .unwrap_or(std::cmp::Ordering::Equal)
             })
             .map(ReferenceCurve::antoine)
+            .or_else(|| self.tb.iter().find_map(ReferenceCurve::lee_kesler))
+    }
+
+    /// Where the CAS number comes from: the row's `cas_source` (e.g. "from memory").
+    pub fn cas_source(&self) -> Option<&str> {
+        if let Some(e) = &self.equation {
+            if self.cas.as_deref() == Some(e.cas.as_str()) {
+                return Some("reference-equation table (library-provided)");
+            }
+        }
+        self.tb
+            .iter()
+            .find(|r| r.cas.is_some() && !r.cas_source.is_empty())
+            .map(|r| r.cas_source.as_str())
+    }
+
+    /// True when the SMILES carries geometry (cis/trans `/` `\`) or chirality (`@`), which
+    /// the structure key does not compare.
+    pub fn has_stereo(&self) -> bool {
+        self.smiles
+            .as_deref()
+            .is_some_and(|s| s.contains(['/', '\\', '@']))
     }
 }
 
@@ -114,6 +138,14 @@ pub enum LookupError {
         query: String,
         /// Names containing the query, to help.
         near: Vec<String>,
+    },
+    /// The structure matches compounds that differ only in geometry or chirality.
+    #[error("'{smiles}' matches {}, which differ only in cis/trans geometry or chirality that ebullio's structure match does not compare; give the name or CAS number", .names.join(" and "))]
+    Stereo {
+        /// The SMILES.
+        smiles: String,
+        /// The compounds it matches.
+        names: Vec<String>,
     },
     /// The SMILES could not be read.
     #[error("'{smiles}' is not a SMILES this program can read: {reason}")]
@@ -173,7 +205,8 @@ impl Library {
             }
             None => None,
         };
-        for r in bundled_tb.tb {
+        let solvents = table::parse(SOLVENTS_CSV, "reference-data/process-solvents.csv", false)?;
+        for r in bundled_tb.tb.into_iter().chain(solvents.tb) {
             lib.entry(&r.compound).tb.push(r);
         }
         for (c, s) in &syn {
@@ -194,14 +227,19 @@ impl Library {
                 }
             }
             let c = &mut lib.compounds[i];
-            if let Some(tb) = r.tb_k {
+            // Water keeps its IAPWS-IF97 boiling point first (IF97 stays the water reference).
+            let water = key(&r.compound) == "water";
+            if let (Some(tb), false) = (r.tb_k, water) {
                 c.tb.insert(
                     0,
                     TbRow {
                         compound: r.compound.clone(),
                         smiles: Some(r.smiles.clone()),
                         cas: Some(r.cas.clone()),
+                        cas_source: "reference-equation table (library-provided)".into(),
                         tb_k: tb,
+                        critical: Some((r.tc_k, r.pc_pa)),
+                        source_class: "reference-equation".into(),
                         source: format!("reference equation of state: {}", r.citation),
                         origin: r.origin.clone(),
                     },
@@ -219,7 +257,11 @@ impl Library {
         }
         for c in &mut lib.compounds {
             c.smiles = c.tb.iter().find_map(|r| r.smiles.clone());
-            c.cas = c.tb.iter().find_map(|r| r.cas.clone());
+            c.cas = c
+                .tb
+                .iter()
+                .find_map(|r| r.cas.clone())
+                .or_else(|| c.equation.as_ref().map(|e| e.cas.clone()));
         }
         // Drop empty entries created only by a synonym line.
         let keep: Vec<bool> = lib
@@ -313,18 +355,43 @@ impl Library {
         if let Some(&i) = self.index.get(&key(q)) {
             return Ok(&self.compounds[i]);
         }
-        let kq = key(q);
-        let near = self
-            .index
-            .keys()
-            .filter(|k| !kq.is_empty() && (k.contains(&kq) || kq.contains(k.as_str())))
-            .take(5)
-            .cloned()
-            .collect();
         Err(LookupError::NotFound {
             query: q.to_string(),
-            near,
+            near: self.suggestions(q),
         })
+    }
+
+    /// Up to five names or synonyms near `query`: within a few edits (Levenshtein distance
+    /// up to a third of the query's length, at least 1, at most 3), or containing it.
+    pub fn suggestions(&self, query: &str) -> Vec<String> {
+        let kq = key(query);
+        if kq.is_empty() {
+            return Vec::new();
+        }
+        let limit = (kq.chars().count() / 3).clamp(1, 3);
+        let mut scored: Vec<(usize, &str, usize)> = self
+            .index
+            .iter()
+            .filter_map(|(k, &i)| {
+                let d = edit_distance(&kq, k);
+                let contains = kq.chars().count() >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
+                (d <= limit || contains).then_some((d, k.as_str(), i))
+            })
+            .collect();
+        scored.sort_by(|a, b| a.0.cmp(&b.0).then(a.1.cmp(b.1)));
+        let mut out: Vec<String> = Vec::new();
+        for (_, k, i) in scored {
+            let name = &self.compounds[i].name;
+            let shown = if key(name) == k {
+                name.clone()
+            } else {
+                format!("{k} ({name})")
+            };
+            if !out.iter().any(|o| o == &shown) && out.len() < 5 {
+                out.push(shown);
+            }
+        }
+        out
     }
 
     /// Find by structure: any valid SMILES spelling of the same molecule
@@ -340,14 +407,48 @@ impl Library {
                 .map(|c| c.smiles.as_deref().and_then(|s| structure_key(s).ok()))
                 .collect()
         });
-        keys.iter()
-            .position(|ck| ck.as_deref() == Some(k.as_str()))
-            .map(|i| &self.compounds[i])
-            .ok_or_else(|| LookupError::NotFound {
+        let hits: Vec<&Compound> = keys
+            .iter()
+            .zip(&self.compounds)
+            .filter(|(ck, _)| ck.as_deref() == Some(k.as_str()))
+            .map(|(_, c)| c)
+            .collect();
+        match hits.as_slice() {
+            [] => Err(LookupError::NotFound {
                 query: smiles.to_string(),
                 near: Vec::new(),
-            })
+            }),
+            [c] if !c.has_stereo() => Ok(c),
+            _ => Err(LookupError::Stereo {
+                smiles: smiles.to_string(),
+                names: hits.iter().map(|c| c.name.clone()).collect(),
+            }),
+        }
     }
+
+    /// The reference compound and its best curve for a structure, when the structure
+    /// matches exactly one reference compound that has a curve (reference first: callers
+    /// use this before estimating from structure, and say so).
+    pub fn reference_for_smiles(&self, smiles: &str) -> Option<(&Compound, ReferenceCurve)> {
+        let c = self.find_smiles(smiles).ok()?;
+        Some((c, c.best_curve()?))
+    }
+}
+
+/// Levenshtein distance between two strings (by characters).
+pub fn edit_distance(a: &str, b: &str) -> usize {
+    let b: Vec<char> = b.chars().collect();
+    let mut prev: Vec<usize> = (0..=b.len()).collect();
+    let mut cur = vec![0; b.len() + 1];
+    for (i, ca) in a.chars().enumerate() {
+        cur[0] = i + 1;
+        for (j, &cb) in b.iter().enumerate() {
+            let sub = prev[j] + usize::from(ca != cb);
+            cur[j + 1] = sub.min(prev[j + 1] + 1).min(cur[j] + 1);
+        }
+        std::mem::swap(&mut prev, &mut cur);
+    }
+    prev[b.len()]
 }
 
 fn structure_key(smiles: &str) -> Result<String, String> {

@@ -1,10 +1,11 @@
 //! Reading reference tables (bundled or the user's): one CSV reader for all.
 //!
 //! A table is CSV with a header. Recognised columns (any order, any subset):
-//! `compound` (required), `formula`, `cas`, `smiles`, `tb_k`, `A`, `B`, `C`,
-//! `log_base`, `p_unit`, `t_unit`, `t_min`, `t_max` (in `t_unit`), `u_p_pct`,
-//! `source`, `note`. A row with `A`, `B`, `C` is an Antoine row; a row with
-//! `tb_k` is a boiling-point row; a row may be both.
+//! `compound` (required), `formula`, `cas`, `cas_source`, `smiles`, `tb_k`, `tc_k`,
+//! `pc_pa`, `A`, `B`, `C`, `log_base`, `p_unit`, `t_unit`, `t_min`, `t_max` (in `t_unit`),
+//! `u_p_pct`, `source_class`, `source`, `note`. A row with `A`, `B`, `C` is an Antoine row;
+//! a row with `tb_k` is a boiling-point row; a row may be both. `tc_k` with `pc_pa` on a
+//! boiling-point row give a Lee–Kesler curve through Tb where no Antoine row exists.
 
 use super::cas;
 use crate::vapor::{AntoineConstants, AntoineConvention};
@@ -64,6 +65,8 @@ pub struct AntoineRow {
     pub constants: AntoineConstants,
     /// Relative standard uncertainty in p assumed or stated for the row.
     pub u_p_rel: f64,
+    /// Source class (`handbook`, `from-memory`), empty if not said.
+    pub source_class: String,
     /// Source as written.
     pub source: String,
     /// Caveat (e.g. "C from memory"), empty if none.
@@ -81,8 +84,14 @@ pub struct TbRow {
     pub smiles: Option<String>,
     /// CAS number (check digit validated), if given.
     pub cas: Option<String>,
+    /// Where the CAS number comes from (e.g. "from memory"), empty if not said.
+    pub cas_source: String,
     /// Normal boiling point, K.
     pub tb_k: f64,
+    /// Critical temperature (K) and pressure (Pa), when the row gives both.
+    pub critical: Option<(f64, f64)>,
+    /// Source class (`reference-equation`, `handbook`, `from-memory`), empty if not said.
+    pub source_class: String,
     /// Source as written.
     pub source: String,
     /// File and line.
@@ -197,6 +206,7 @@ pub fn parse(text: &str, file: &str, user: bool) -> Result<Rows, TableError> {
                 compound: compound.clone(),
                 constants: k,
                 u_p_rel,
+                source_class: cell(col("source_class")).to_string(),
                 source: source.clone(),
                 note: cell(col("note")).to_string(),
                 origin: origin.clone(),
@@ -207,11 +217,24 @@ pub fn parse(text: &str, file: &str, user: bool) -> Result<Rows, TableError> {
                 return Err(bad(i_tb, "a positive temperature in kelvin"));
             }
             let smiles = Some(cell(col("smiles")).to_string()).filter(|s| !s.is_empty());
+            let critical = match (num(col("tc_k"))?, num(col("pc_pa"))?) {
+                (Some(tc), Some(pc)) if tc > tb && pc > 0.0 => Some((tc, pc)),
+                (None, None) => None,
+                _ => {
+                    return Err(bad(
+                        col("tc_k"),
+                        "tc_k above tb_k together with a positive pc_pa (or neither)",
+                    ))
+                }
+            };
             rows.tb.push(TbRow {
                 compound,
                 smiles,
                 cas,
+                cas_source: cell(col("cas_source")).to_string(),
                 tb_k: tb,
+                critical,
+                source_class: cell(col("source_class")).to_string(),
                 source,
                 origin,
             });
