@@ -247,7 +247,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         ));
         (
             Box::new(rc.clone()),
-            format!("reference {} (matched by structure {s}): {}", c.name, rc.source),
+            format!(
+                "reference {} (matched by structure {s}): {}",
+                c.name, rc.source
+            ),
             1.96,
         )
     } else {

@@ -151,7 +151,11 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
     };
     // Reference first: a structure that is a reference compound uses its reference curve.
     if let Some((c, rc)) = ebullio::reference::Library::bundled().reference_for_smiles(smiles) {
-        let shown = if rest.is_empty() { c.name.clone() } else { name };
+        let shown = if rest.is_empty() {
+            c.name.clone()
+        } else {
+            name
+        };
         let source = format!(
             "reference (structure {smiles} is {}): {}",
             c.name, rc.source

@@ -21,6 +21,9 @@ pub struct Args {
     /// List only compounds whose name or synonym contains TEXT.
     #[arg(long, value_name = "TEXT")]
     pub filter: Option<String>,
+    /// Show every compound in full (every value and its source), not the one-line list.
+    #[arg(long, conflicts_with_all = ["query", "smiles"])]
+    pub all: bool,
     /// Your own reference table (CSV, same columns as the bundled ones); takes precedence.
     #[arg(long, value_name = "FILE")]
     pub reference_table: Option<PathBuf>,
@@ -157,6 +160,29 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     let text = match one {
         Some(c) => show(&describe(c), args.out.format())?,
+        None if args.all => {
+            let all: Vec<CompoundOut> = lib.compounds().iter().map(describe).collect();
+            match args.out.format() {
+                Format::Json => serde_json::to_string_pretty(&all)? + "\n",
+                f => {
+                    let mut s = String::new();
+                    for (i, c) in all.iter().enumerate() {
+                        let one = show(c, f)?;
+                        // CSV: one header for all compounds.
+                        let body = if f == Format::Csv && i > 0 {
+                            one.split_once('\n').map_or("", |(_, b)| b).to_string()
+                        } else {
+                            one
+                        };
+                        s.push_str(&body);
+                        if f == Format::Table {
+                            s.push('\n');
+                        }
+                    }
+                    s
+                }
+            }
+        }
         None => {
             let f = args.filter.as_deref().map(str::to_lowercase);
             let list: Vec<CompoundOut> = lib

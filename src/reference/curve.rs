@@ -109,7 +109,11 @@ impl ReferenceCurve {
                 let e = crate::estimate::estimate_smiles(r.smiles.as_deref()?).ok()?;
                 let (tc_e, pc_bar) = (e.tc_k?, e.pc_bar?);
                 let tc = r.tb_k * tc_e / e.tb_k;
-                (tc, pc_bar * 1e5, "Tc and pc by Joback's group contributions (structure estimate)".to_string())
+                (
+                    tc,
+                    pc_bar * 1e5,
+                    "Tc and pc by Joback's group contributions (structure estimate)".to_string(),
+                )
             }
         };
         if !(tc > r.tb_k && pc > crate::units::ATM_PA) {

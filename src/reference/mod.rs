@@ -257,11 +257,10 @@ impl Library {
         }
         for c in &mut lib.compounds {
             c.smiles = c.tb.iter().find_map(|r| r.smiles.clone());
-            c.cas = c
-                .tb
-                .iter()
-                .find_map(|r| r.cas.clone())
-                .or_else(|| c.equation.as_ref().map(|e| e.cas.clone()));
+            c.cas =
+                c.tb.iter()
+                    .find_map(|r| r.cas.clone())
+                    .or_else(|| c.equation.as_ref().map(|e| e.cas.clone()));
         }
         // Drop empty entries created only by a synonym line.
         let keep: Vec<bool> = lib
@@ -374,7 +373,8 @@ impl Library {
             .iter()
             .filter_map(|(k, &i)| {
                 let d = edit_distance(&kq, k);
-                let contains = kq.chars().count() >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
+                let contains =
+                    kq.chars().count() >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
                 (d <= limit || contains).then_some((d, k.as_str(), i))
             })
             .collect();
