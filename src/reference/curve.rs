@@ -18,7 +18,7 @@ pub const IF97_U_P_REL: f64 = 0.001;
 pub const FROM_MEMORY_CURVE_U_P_REL: f64 = 0.10;
 
 /// What a reference curve is made of.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub enum ReferenceCurveKind {
     /// A published (or user's) Antoine row.
     Antoine(AntoineConstants),
@@ -89,7 +89,7 @@ impl ReferenceCurve {
             note.push_str(&format!("; range {}", r.range_note));
         }
         ReferenceCurve {
-            kind: ReferenceCurveKind::Equation(r.form, r.range_k),
+            kind: ReferenceCurveKind::Equation(r.form.clone(), r.range_k),
             source: format!(
                 "reference equation of state: {} ({}, line {})",
                 r.citation, r.origin.file, r.origin.line

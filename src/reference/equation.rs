@@ -29,7 +29,7 @@ pub const REFERENCE_EQUATION_U_P_REL: f64 = 0.0025;
 pub const MAX_TERMS: usize = 32;
 
 /// The stored form of a saturation curve.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub enum SaturationForm {
     /// ebullio's Wagner 2.5–5 form with the equation's Tc and pc; `n` = [a, b, c, d].
     Wagner {
@@ -44,10 +44,8 @@ pub enum SaturationForm {
         lo: f64,
         /// Upper end of the fitted range, K.
         hi: f64,
-        /// Coefficients a₀.. (only the first `len` are used).
-        a: [f64; MAX_TERMS],
-        /// Number of coefficients.
-        len: usize,
+        /// Coefficients a₀, a₁, …
+        a: std::sync::Arc<[f64]>,
     },
 }
 
@@ -56,8 +54,8 @@ impl SaturationForm {
     pub fn ln_p(&self, t_k: f64) -> f64 {
         match self {
             SaturationForm::Wagner { wagner, n } => wagner.ln_p(n, t_k),
-            SaturationForm::Chebyshev { lo, hi, a, len } => {
-                if !(t_k > 0.0) {
+            SaturationForm::Chebyshev { lo, hi, a } => {
+                if t_k.is_nan() || t_k <= 0.0 {
                     return f64::NAN;
                 }
                 // Outside the fitted range a polynomial runs away: continue instead along
@@ -71,16 +69,13 @@ impl SaturationForm {
                     None
                 };
                 match end {
-                    None => chebyshev(*lo, *hi, &a[..*len], t_k),
+                    None => chebyshev(*lo, *hi, a, t_k),
                     Some(e) => {
                         let h = 1e-4 * e;
                         let (e0, e1) = if e == *lo { (e, e + h) } else { (e - h, e) };
-                        let (f0, f1) = (
-                            chebyshev(*lo, *hi, &a[..*len], e0),
-                            chebyshev(*lo, *hi, &a[..*len], e1),
-                        );
+                        let (f0, f1) = (chebyshev(*lo, *hi, a, e0), chebyshev(*lo, *hi, a, e1));
                         let slope = (f1 - f0) / (1.0 / e1 - 1.0 / e0);
-                        chebyshev(*lo, *hi, &a[..*len], e) + slope * (1.0 / t_k - 1.0 / e)
+                        chebyshev(*lo, *hi, a, e) + slope * (1.0 / t_k - 1.0 / e)
                     }
                 }
             }
@@ -223,16 +218,11 @@ pub fn parse(text: &str, file: &str) -> Result<Vec<EquationRow>, TableError> {
                 wagner: Wagner { tc_k, pc_pa },
                 n: [coef[0], coef[1], coef[2], coef[3]],
             },
-            "chebyshev" if (2..=MAX_TERMS).contains(&coef.len()) => {
-                let mut a = [0.0; MAX_TERMS];
-                a[..coef.len()].copy_from_slice(&coef);
-                SaturationForm::Chebyshev {
-                    lo: range_k.0,
-                    hi: range_k.1,
-                    a,
-                    len: coef.len(),
-                }
-            }
+            "chebyshev" if (2..=MAX_TERMS).contains(&coef.len()) => SaturationForm::Chebyshev {
+                lo: range_k.0,
+                hi: range_k.1,
+                a: coef.into(),
+            },
             _ => {
                 return Err(bad(
                     "form",
