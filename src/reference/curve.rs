@@ -25,8 +25,8 @@ pub enum ReferenceCurveKind {
     /// IAPWS-IF97 region 4.
     Water(If97Saturation),
     /// A reference equation of state's saturation curve, in its stored form, with the
-    /// fitted range (K).
-    Equation(SaturationForm, (f64, f64)),
+    /// fitted range (K) and the triple point (K, Pa) when the range starts there.
+    Equation(SaturationForm, (f64, f64), Option<(f64, f64)>),
     /// A Lee–Kesler curve through a tabulated boiling point with tabulated Tc and pc.
     LeeKesler(LeeKeslerCurve),
 }
@@ -89,7 +89,12 @@ impl ReferenceCurve {
             note.push_str(&format!("; range {}", r.range_note));
         }
         ReferenceCurve {
-            kind: ReferenceCurveKind::Equation(r.form.clone(), r.range_k),
+            kind: ReferenceCurveKind::Equation(
+                r.form.clone(),
+                r.range_k,
+                (r.range_k.0 <= r.t_triple_k + 1e-9)
+                    .then(|| (r.t_triple_k, r.form.ln_p(r.t_triple_k).exp())),
+            ),
             source: format!(
                 "reference equation of state: {} ({}, line {})",
                 r.citation, r.origin.file, r.origin.line
@@ -147,7 +152,7 @@ impl ReferenceCurve {
 impl Curve for ReferenceCurve {
     fn ln_p(&self, t_k: f64) -> f64 {
         match (&self.kind, self.curve()) {
-            (ReferenceCurveKind::Equation(f, _), _) => f.ln_p(t_k),
+            (ReferenceCurveKind::Equation(f, _, _), _) => f.ln_p(t_k),
             (_, Some(c)) => c.ln_p(t_k),
             _ => f64::NAN,
         }
@@ -163,7 +168,7 @@ impl Curve for ReferenceCurve {
     }
     fn valid_range_k(&self) -> Option<(f64, f64)> {
         match (&self.kind, self.curve()) {
-            (ReferenceCurveKind::Equation(_, r), _) => Some(*r),
+            (ReferenceCurveKind::Equation(_, r, _), _) => Some(*r),
             (_, Some(c)) => c.valid_range_k(),
             _ => None,
         }
@@ -183,6 +188,10 @@ impl Curve for ReferenceCurve {
         }
     }
     fn triple_point(&self) -> Option<(f64, f64)> {
-        self.curve().triple_point()
+        match (&self.kind, self.curve()) {
+            (ReferenceCurveKind::Equation(_, _, tp), _) => *tp,
+            (_, Some(c)) => c.triple_point(),
+            _ => None,
+        }
     }
 }
