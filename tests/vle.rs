@@ -62,8 +62,9 @@ fn bad_input_exits_2_with_a_clear_message_and_writes_nothing() {
         ],
         "--x1 '1.5': expected a mole fraction from 0 to 1",
     );
-    // 100 Pa: below the water triple point (IF97 starts there) and below the
-    // low end of the ethanol curve.
+    // 0.0001 Pa: below the water triple point (IF97 starts there) and below the
+    // low end of the ethanol curve (its reference equation, Schroeder et al. 2014,
+    // starts at the triple point 159.1 K, 0.0007 Pa).
     refused(
         &[
             "vle",
@@ -72,7 +73,7 @@ fn bad_input_exits_2_with_a_clear_message_and_writes_nothing() {
             "--compound",
             "ethanol",
             "--pressure",
-            "100 Pa",
+            "0.0001 Pa",
         ],
         "below the low end of both vapor-pressure curves",
     );
