@@ -65,10 +65,18 @@ pub fn check_fit(
         None if name.is_some() || smiles.is_some() => out.findings.push(Finding {
             code: "reference-not-found".into(),
             severity: Severity::Info,
-            message: format!(
-                "No reference compound matches {}, so the fit was not compared with reference data.",
-                name.or(smiles).unwrap_or_default()
-            ),
+            message: {
+                let q = name.or(smiles).unwrap_or_default();
+                let near = name.map(|n| lib.suggestions(n)).unwrap_or_default();
+                let hint = if near.is_empty() {
+                    String::new()
+                } else {
+                    format!(" (did you mean: {}?)", near.join(", "))
+                };
+                format!(
+                    "No reference compound matches {q}{hint}, so the fit was not compared with reference data."
+                )
+            },
         }),
         None => {}
     }

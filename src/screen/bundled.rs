@@ -48,9 +48,12 @@ impl BundledReference {
             if let Some(cas) = &c.cas {
                 r.by_cas.entry(cas.trim().to_string()).or_insert(i);
             }
+            // Compounds told apart only by geometry or chirality are found by CAS or name:
+            // the structure key does not compare those.
             if let Some(key) = c
                 .smiles
                 .as_deref()
+                .filter(|_| !c.has_stereo())
                 .and_then(|s| crate::molecule::parse_smiles(s).ok())
                 .map(|m| m.structure_key())
             {
