@@ -323,3 +323,70 @@ fn fit_result_file_is_a_component_with_fit_uncertainty() {
             > 0.0
     );
 }
+
+/// Ethanol/water at 1 atm, 99 % distillate: UNIFAC (the default, both
+/// structures are in the reference tables) predicts the minimum-boiling
+/// azeotrope near x = 0.89 at about 78 °C (azeotrope compilations give about
+/// 0.89 at 78.2 °C; from memory), so the plan refuses the target, names the
+/// azeotrope, gives no stage count and lists ways round it.
+#[test]
+fn ethanol_water_99_percent_is_refused_beyond_the_azeotrope() {
+    let v = json(&[
+        "plan",
+        "--compound",
+        "ethanol",
+        "--compound",
+        "water",
+        "--pressure",
+        "1 atm",
+        "--distillate-purity",
+        "0.99",
+    ]);
+    assert_eq!(v["activity_model"], "unifac");
+    assert_eq!(v["verdict"]["code"], "beyond-azeotrope");
+    assert!(v["verdict"]["min_theoretical_stages"].is_null());
+    assert!(v["fenske_min_stages"].is_null());
+    assert!(v["column"].is_null());
+    let az = &v["azeotropes"][0];
+    assert_eq!(az["kind"], "minimum-boiling");
+    let x = az["x1"].as_f64().unwrap();
+    let t = az["t_k"].as_f64().unwrap();
+    assert!(
+        (x - 0.89).abs() < 0.05 && (t - 351.3).abs() < 3.0,
+        "{x} {t}"
+    );
+    let msg = v["verdict"]["message"].as_str().unwrap();
+    assert!(msg.contains(&format!("{x:.3}")), "{msg}");
+    let hints = v["verdict"]["hints"].as_array().unwrap();
+    assert!(hints
+        .iter()
+        .any(|h| h.as_str().unwrap().contains("entrainer")));
+    assert!(v["cautions"].as_array().unwrap().iter().any(|c| c
+        .as_str()
+        .unwrap()
+        .contains("confirmed with measured mixture data")));
+    assert_eq!(v["liquid_split"]["predicted"], false);
+}
+
+/// Benzene/toluene (no azeotrope): the McCabe–Thiele numbers on the UNIFAC
+/// curve, and the FUG short cut since α varies little along the column.
+#[test]
+fn benzene_toluene_gets_mccabe_thiele_numbers() {
+    let v = json(&["plan", "--compound", "benzene", "--compound", "toluene"]);
+    assert_eq!(v["verdict"]["code"], "column-needed");
+    let c = &v["column"];
+    let n_min = c["min_stages"].as_f64().unwrap();
+    let n = c["stages"].as_f64().unwrap();
+    let r_min = c["min_reflux"].as_f64().unwrap();
+    assert!((9.0..12.0).contains(&n_min), "{n_min}");
+    assert!(n > 1.5 * n_min && n < 3.0 * n_min, "{n}");
+    assert!((c["reflux_ratio"].as_f64().unwrap() - 1.3 * r_min).abs() < 1e-9);
+    let f = c["feed_stage"].as_u64().unwrap();
+    assert!(f > 1 && f < c["whole_stages"].as_u64().unwrap());
+    assert!(c["fug"]["gilliland"]["n"].as_f64().unwrap() > n_min);
+    assert!(v["verdict"]["message"]
+        .as_str()
+        .unwrap()
+        .contains("McCabe–Thiele"));
+    assert!(v["rayleigh"]["points"][0]["pot_t_k"].as_f64().is_some());
+}

@@ -4,7 +4,9 @@ use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::plan::{self, Component, Plan, PlanOptions, PressureRequest, RayleighModel};
+use ebullio::plan::{
+    self, ActivityChoice, Component, Plan, PlanOptions, PressureRequest, RayleighModel,
+};
 use ebullio::units::parse_temperature;
 use ebullio::vapor::{AntoineConstants, AntoineConvention};
 use std::fmt::Write as _;
@@ -61,11 +63,30 @@ pub struct Args {
     /// pot temperature) or `constant` (the geometric-mean α).
     #[arg(long, value_enum, default_value_t = RayleighArg::Varying)]
     pub rayleigh: RayleighArg,
+    /// Liquid model of the key pair: `unifac` (from structure) or `ideal`
+    /// (Raoult's law) [default: unifac when both structures are known, else ideal].
+    #[arg(long, value_enum)]
+    pub model: Option<ModelArg>,
+    /// Reflux ratio of the column's stage count as a multiple of the minimum.
+    #[arg(long, default_value_t = 1.3)]
+    pub reflux_factor: f64,
+    /// Feed condition q of the continuous column: 1 saturated liquid, 0 saturated vapor.
+    #[arg(long, default_value_t = 1.0, allow_hyphen_values = true)]
+    pub feed_q: f64,
     /// Also draw boiling points against pressure and the Rayleigh curve to this SVG file.
     #[arg(long, value_name = "FILE.svg")]
     pub plot: Option<PathBuf>,
     #[command(flatten)]
     pub out: OutputArgs,
+}
+
+/// `--model` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum ModelArg {
+    /// Original UNIFAC from the components' structures.
+    Unifac,
+    /// Ideal solution (Raoult's law).
+    Ideal,
 }
 
 /// `--rayleigh` values.
@@ -134,7 +155,11 @@ fn reference_component(name: &str) -> Result<Component, InputError> {
         ))
     })?;
     let source = format!("reference: {}", curve.source);
-    Ok(Component::new(c.name.clone(), Box::new(curve), source))
+    let comp = Component::new(c.name.clone(), Box::new(curve), source);
+    Ok(match &c.smiles {
+        Some(s) => comp.with_smiles(s.clone()),
+        None => comp,
+    })
 }
 
 /// One `--smiles` value into a component.
@@ -176,7 +201,8 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
             "structure estimate from SMILES {smiles} (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
             e.tb_k, e.tb_typical_error_k
         ),
-    ))
+    )
+    .with_smiles(smiles))
 }
 
 /// The components in one fit result file.
@@ -264,7 +290,26 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
             RayleighArg::Varying => RayleighModel::Varying,
             RayleighArg::Constant => RayleighModel::Constant,
         },
+        activity: match args.model {
+            None => ActivityChoice::Auto,
+            Some(ModelArg::Unifac) => ActivityChoice::Unifac,
+            Some(ModelArg::Ideal) => ActivityChoice::Ideal,
+        },
+        feed_q: args.feed_q,
+        reflux_factor: args.reflux_factor,
     };
+    if !(opts.reflux_factor.is_finite() && opts.reflux_factor > 1.0) {
+        return Err(InputError(format!(
+            "--reflux-factor {}: expected a multiple of the minimum reflux above 1, e.g. 1.3",
+            opts.reflux_factor
+        )));
+    }
+    if !(opts.feed_q.is_finite() && opts.feed_q > -5.0 && opts.feed_q < 5.0) {
+        return Err(InputError(format!(
+            "--feed-q {}: expected the feed condition q between -5 and 5 (1 saturated liquid, 0 saturated vapor)",
+            opts.feed_q
+        )));
+    }
     Ok((comps, opts))
 }
 
@@ -328,7 +373,15 @@ fn csv_table(p: &Plan) -> anyhow::Result<String> {
 /// The readable report.
 fn table(p: &Plan) -> String {
     let mut s = String::new();
-    let _ = writeln!(s, "Separation plan (ideal solution)");
+    let _ = writeln!(
+        s,
+        "Separation plan (key pair liquid: {})",
+        if p.activity_model == "ideal" {
+            "ideal solution, Raoult's law".to_string()
+        } else {
+            format!("{} activity coefficients", p.activity_model.to_uppercase())
+        }
+    );
     let _ = write!(
         s,
         "Operating pressure: {} mbar ({:.1} Pa)",
@@ -453,17 +506,18 @@ fn table(p: &Plan) -> String {
         );
         let _ = writeln!(
             s,
-            "{:>10} {:>10} {:>12} {:>14} {:>10}",
-            "distilled", "pot x", "distillate y", "all distillate", "head/°C"
+            "{:>10} {:>10} {:>12} {:>14} {:>10} {:>10}",
+            "distilled", "pot x", "distillate y", "all distillate", "pot/°C", "head/°C"
         );
         for pt in r.points.iter().step_by(2) {
             let _ = writeln!(
                 s,
-                "{:>9.0}% {:>10.4} {:>12.4} {:>14.4} {:>10}",
+                "{:>9.0}% {:>10.4} {:>12.4} {:>14.4} {:>10} {:>10}",
                 100.0 * pt.fraction_distilled,
                 pt.pot_x_light,
                 pt.vapor_y_light,
                 pt.distillate_avg_x_light,
+                opt(pt.pot_t_k.map(c), 2),
                 opt(pt.head_t_k.map(c), 2)
             );
         }
@@ -477,7 +531,66 @@ fn table(p: &Plan) -> String {
             );
         }
     }
+    if !p.azeotropes.is_empty() {
+        let _ = writeln!(s, "\nAzeotropes of the key pair ({}):", p.activity_model);
+        for a in &p.azeotropes {
+            let _ = writeln!(
+                s,
+                "  {} at x({}) = {:.3}{}",
+                a.kind_str(),
+                p.key_pair[0],
+                a.x1,
+                a.t_k
+                    .map(|t| format!(", {:.2} °C", c(t)))
+                    .unwrap_or_default()
+            );
+        }
+    }
+    if p.liquid_split.predicted {
+        let _ = writeln!(
+            s,
+            "Two liquids predicted between x({}) = {} and {}",
+            p.key_pair[0],
+            opt(p.liquid_split.x1_low, 4),
+            opt(p.liquid_split.x1_high, 4)
+        );
+    }
+    if let Some(col) = &p.column {
+        let _ = writeln!(
+            s,
+            "\nContinuous column for the key pair (McCabe–Thiele on the {} curve, feed x = {}, q = {}):",
+            col.equilibrium, col.feed_x_light, col.feed_q
+        );
+        let _ = writeln!(
+            s,
+            "  minimum stages at total reflux {:.2}; minimum reflux ratio {:.3} ({:?} pinch at x = {:.4})",
+            col.min_stages,
+            col.min_reflux,
+            col.pinch,
+            col.pinch_x_light
+        );
+        let _ = writeln!(
+            s,
+            "  at R = {:.3} ({} × minimum): {:.2} theoretical stages ({} whole, reboiler counted), feed on stage {}",
+            col.reflux_ratio, col.reflux_factor, col.stages, col.whole_stages, col.feed_stage
+        );
+        match &col.fug {
+            Some(f) => {
+                let _ = writeln!(
+                    s,
+                    "  Fenske–Underwood–Gilliland at α = {:.3}: N_min {:.2}, R_min {:.3}, N {:.2} at R = {:.3}, feed on stage {} (Kirkbride)",
+                    f.alpha, f.n_min, f.r_min, f.gilliland.n, f.r, f.feed.feed_stage
+                );
+            }
+            None => {
+                let _ = writeln!(s, "  {}", col.fug_note);
+            }
+        }
+    }
     let _ = writeln!(s, "\nVerdict: {}", p.verdict.message);
+    for h in &p.verdict.hints {
+        let _ = writeln!(s, "  - {h}");
+    }
     let _ = writeln!(s, "{}", p.verdict.rule_of_thumb.message);
     if !p.findings.is_empty() {
         let _ = writeln!(s, "\nFindings:");

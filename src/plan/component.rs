@@ -14,6 +14,8 @@ pub struct Component {
     pub curve: Box<dyn Curve>,
     /// Where the curve came from, in words (e.g. "Antoine constants given on the command line").
     pub source: String,
+    /// The structure as SMILES, when known (for the liquid model).
+    pub smiles: Option<String>,
 }
 
 impl std::fmt::Debug for Component {
@@ -32,7 +34,14 @@ impl Component {
             name: name.into(),
             curve,
             source: source.into(),
+            smiles: None,
         }
+    }
+
+    /// The same component with its structure (SMILES) known.
+    pub fn with_smiles(mut self, smiles: impl Into<String>) -> Self {
+        self.smiles = Some(smiles.into());
+        self
     }
 
     /// Boiling temperature (K) at `p_pa`.

@@ -14,3 +14,20 @@ pub const CAUTIONS: &[&str] = &[
     "Test ethers and other peroxide formers for peroxides before distilling, and never distill to dryness.",
     "Check the plan against local codes and have it reviewed by qualified process-safety staff before use.",
 ];
+
+/// What a plan with an activity-coefficient model leaves out.
+pub const MIXTURE_MODEL: &str = "Liquid non-ideality of the key pair estimated by UNIFAC from structure (modified Raoult's law, ideal vapor): \
+an estimate, not a measurement; liquid-liquid predictions are qualitative; entrainment and column efficiency are not modelled. \
+The relative volatility, Fenske counts and pressure table use the pure-component curves (Raoult's law); the column, the \
+simple-distillation curve and the verdict use the UNIFAC curve.";
+
+/// The cautions of a plan with an activity-coefficient model: the usual ones and the mixture's own.
+pub const CAUTIONS_MIXTURE: &[&str] = &[
+    "Boiling points and volatilities here are estimates from pure-component curves, not measurements of your mixture.",
+    "Predicted azeotropes and liquid splits must be confirmed with measured mixture data before they are used to design or run a distillation.",
+    "Most organic vapors are flammable: exclude ignition sources and vent the vacuum pump exhaust safely.",
+    "Vacuum glassware can implode: inspect it for star cracks, shield it, and never heat a closed system.",
+    "Heating under vacuum can bump: stir or use a capillary bleed, and reach the working vacuum before heating.",
+    "Test ethers and other peroxide formers for peroxides before distilling, and never distill to dryness.",
+    "Check the plan against local codes and have it reviewed by qualified process-safety staff before use.",
+];

@@ -17,9 +17,13 @@
 //! 4. **Will a simple distillation do?** The Rayleigh batch-distillation curve
 //!    ([`rayleigh`]) and a plain [`verdict`].
 //!
-//! Everything assumes an **ideal solution** (Raoult's law). Azeotropes and
-//! non-ideal mixtures are not modelled; [`limits::IDEAL_SOLUTION`] says so on
-//! every output.
+//! The key pair's liquid is modelled by UNIFAC from structure when both
+//! structures are known ([`activity`]), otherwise (or with
+//! [`ActivityChoice::Ideal`]) as an ideal solution (Raoult's law, with
+//! [`limits::IDEAL_SOLUTION`] on the output). On that equilibrium curve the
+//! plan designs a column ([`column_plan`], [`column`]: McCabe–Thiele, and
+//! Fenske–Underwood–Gilliland where α is nearly constant) and refuses targets
+//! beyond an azeotrope ([`verdict`]).
 //!
 //! ```
 //! use ebullio::plan::{Component, fenske};
@@ -34,7 +38,9 @@
 //! assert!(n > 9.0 && n < 11.0);
 //! ```
 
+pub mod activity;
 pub mod column;
+pub mod column_plan;
 mod component;
 pub mod fenske;
 pub mod limits;
@@ -45,6 +51,7 @@ pub mod uncertainty;
 pub mod verdict;
 pub mod volatility;
 
+pub use activity::ActivityChoice;
 pub use component::Component;
 pub use study::{
     plan, ComponentAtPressure, FenskeDetail, Finding, PairSummary, Plan, PlanOptions,
@@ -105,6 +112,15 @@ pub enum PlanError {
         /// Pot light-component mole fraction where it happened.
         x: f64,
     },
+    /// UNIFAC was asked for but a component has no structure.
+    #[error("--model unifac needs a structure (SMILES) for {name}; give the component with --smiles or use --model ideal")]
+    NoStructure {
+        /// The components without one.
+        name: String,
+    },
+    /// The mixture model failed (unassigned group, missing interaction pair, no convergence).
+    #[error("mixture model: {0}")]
+    Mixture(String),
     /// A non-physical operating pressure.
     #[error("operating pressure {p_pa} Pa must be finite and positive")]
     BadPressure {

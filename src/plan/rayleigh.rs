@@ -130,6 +130,9 @@ pub struct RayleighPoint {
     pub distillate_avg_x_light: f64,
     /// Head (and pot) temperature, K, when the model knows it.
     pub head_t_k: Option<f64>,
+    /// Pot temperature, K: the boiling point of the pot liquid (at
+    /// equilibrium the head reads the same, heat losses ignored).
+    pub pot_t_k: Option<f64>,
 }
 
 /// Integrate the Rayleigh equation from `x0` down to `x_end` in `steps`
@@ -187,12 +190,14 @@ pub fn point_at(
     } else {
         y
     };
+    let t = eq.t_k(x)?;
     Ok(RayleighPoint {
         fraction_distilled: f,
         pot_x_light: x,
         vapor_y_light: y,
         distillate_avg_x_light: avg,
-        head_t_k: eq.t_k(x)?,
+        head_t_k: t,
+        pot_t_k: t,
     })
 }
 

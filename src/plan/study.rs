@@ -1,11 +1,15 @@
 //! Assembling a plan: operating pressure, boiling points, volatility, stages, Rayleigh curve, verdict.
 
+use super::activity::{self, ActivityChoice, ModelCurve};
+use super::column_plan::{self, ColumnOutcome, ColumnSummary};
 use super::pressure::{self, MaxPotPressure};
 use super::rayleigh::{self, ConstantAlpha, Equilibrium, IdealBinary, RayleighPoint};
 use super::uncertainty::{self, K95};
 use super::verdict::{self, Verdict, VerdictInputs};
+use super::verdict::{Barrier, ColumnBrief};
 use super::volatility::{self, PairVolatility};
 use super::{fenske, limits, Component, PlanError};
+use crate::mixture::{AzeotropeOut, LiquidSplit, VleStudy, SWING_SHIFT};
 use serde::Serialize;
 
 /// How the operating pressure is chosen.
@@ -39,6 +43,12 @@ pub struct PlanOptions {
     pub feed_x_light: f64,
     /// Equilibrium used for the Rayleigh curve.
     pub rayleigh_model: RayleighModel,
+    /// Liquid model of the key pair.
+    pub activity: ActivityChoice,
+    /// Feed condition q of the continuous column (1 saturated liquid).
+    pub feed_q: f64,
+    /// Reflux as a multiple of the minimum for the column's stage count.
+    pub reflux_factor: f64,
 }
 
 impl Default for PlanOptions {
@@ -49,6 +59,9 @@ impl Default for PlanOptions {
             bottoms_purity: 0.99,
             feed_x_light: 0.5,
             rayleigh_model: RayleighModel::Varying,
+            activity: ActivityChoice::Auto,
+            feed_q: 1.0,
+            reflux_factor: super::column::DEFAULT_REFLUX_FACTOR,
         }
     }
 }
@@ -203,6 +216,16 @@ pub struct Plan {
     pub pressure_table: Vec<PressureRow>,
     /// The Rayleigh batch curve.
     pub rayleigh: Option<RayleighSummary>,
+    /// Liquid model of the key pair: `unifac` or `ideal`.
+    pub activity_model: &'static str,
+    /// Azeotropes of the key pair predicted at the operating pressure
+    /// (`x1` is the light key's mole fraction).
+    pub azeotropes: Vec<AzeotropeOut>,
+    /// The key pair's predicted liquid–liquid split.
+    pub liquid_split: LiquidSplit,
+    /// A continuous column for the key pair on its equilibrium curve (null
+    /// beyond an azeotrope or when it could not be designed).
+    pub column: Option<ColumnSummary>,
     /// The verdict.
     pub verdict: Verdict,
     /// Findings.
@@ -392,7 +415,7 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     };
 
     // 5. Pressure table.
-    let mut table = Vec::new();
+    let mut table: Vec<PressureRow> = Vec::new();
     for q in pressure::ladder(p) {
         let tbs: Result<Vec<f64>, _> = sorted.iter().map(|c| c.tb_k(q)).collect();
         let Ok(tbs) = tbs else { continue };
@@ -411,18 +434,49 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         });
     }
 
-    // 6. Rayleigh curve of the key pair.
+    // 6. The key pair's liquid model, azeotropes and equilibrium curve.
+    let chosen = activity::choose_model(opts.activity, light, heavy)?;
+    if let Some(why) = &chosen.fallback {
+        findings.push(Finding {
+            code: "ideal-solution-assumed",
+            severity: Severity::Warning,
+            message: format!("For {} / {}: {why}.", light.name, heavy.name),
+        });
+    }
+    let ideal_model = chosen.model.name() == "ideal";
+    let study: Option<VleStudy> = if ideal_model {
+        None
+    } else {
+        let st = activity::key_pair_study(light, heavy, &*chosen.model, p)?;
+        for f in &st.flags {
+            findings.push(Finding {
+                code: f.code,
+                severity: f.severity,
+                message: f.message.clone(),
+            });
+        }
+        Some(st)
+    };
     let ideal = IdealBinary {
         light,
         heavy,
         p_pa: p,
     };
+    let model_curve = study
+        .as_ref()
+        .map(|st| ModelCurve::new(light, heavy, &*chosen.model, p, st));
+    let curve: &dyn Equilibrium = match &model_curve {
+        Some(m) => m,
+        None => &ideal,
+    };
+
+    // 7. Rayleigh curve of the key pair.
     let constant = ConstantAlpha { alpha };
     let eq: &dyn Equilibrium = match opts.rayleigh_model {
-        RayleighModel::Varying => &ideal,
+        RayleighModel::Varying => curve,
         RayleighModel::Constant => &constant,
     };
-    let ray = if alpha > 1.0 {
+    let ray = if alpha > 1.0 || !ideal_model {
         let points = rayleigh::curve(eq, opts.feed_x_light, 0.05, 0.9);
         let cut = rayleigh::cut_at_pot(eq, opts.feed_x_light, 1.0 - xb).ok();
         match points {
@@ -430,7 +484,8 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
                 if opts.rayleigh_model == RayleighModel::Constant {
                     // Head temperature from the curves even when y(x) uses constant α.
                     for pt in &mut points {
-                        pt.head_t_k = ideal.bubble_t_k(pt.pot_x_light).ok();
+                        pt.head_t_k = curve.t_k(pt.pot_x_light).ok().flatten();
+                        pt.pot_t_k = pt.head_t_k;
                     }
                 }
                 Some(RayleighSummary {
@@ -446,22 +501,85 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         None
     };
 
-    // 7. Verdict.
+    // 8. The column on the key pair's curve.
+    let outcome = if opts.feed_x_light > 1.0 - xb && opts.feed_x_light < xd {
+        column_plan::column_for(
+            curve,
+            xd,
+            xb,
+            opts.feed_x_light,
+            opts.feed_q,
+            opts.reflux_factor,
+        )
+    } else {
+        ColumnOutcome::Failed(format!(
+            "the charge (x = {}) must lie between the bottoms and distillate targets",
+            opts.feed_x_light
+        ))
+    };
+    let azeotropes = study
+        .as_ref()
+        .map(|s| s.azeotropes.clone())
+        .unwrap_or_default();
+    let liquid_split = study
+        .as_ref()
+        .map(|s| s.liquid_split.clone())
+        .unwrap_or(LiquidSplit {
+            predicted: false,
+            x1_low: None,
+            x1_high: None,
+            t_k: None,
+            p_pa: None,
+            y1: None,
+        });
+    let barrier = match &outcome {
+        ColumnOutcome::Beyond { x } => Some(barrier(*x, curve, study.as_ref(), p)),
+        _ => None,
+    };
+    let (column, failure) = match outcome {
+        ColumnOutcome::Designed(c) => (Some(*c), None),
+        ColumnOutcome::Failed(f) => (None, Some(f)),
+        ColumnOutcome::Beyond { .. } => (None, None),
+    };
+
+    // 9. Verdict: with a liquid model the curve's own figures decide.
+    let (v_alpha, v_n_min) = match (&column, ideal_model) {
+        (Some(c), false) => ((c.alpha_low * c.alpha_high).sqrt(), Some(c.min_stages)),
+        _ => (alpha, n_min),
+    };
     let cut = ray.as_ref().and_then(|r| r.cut_to_bottoms_target);
     let verdict = verdict::decide(&VerdictInputs {
-        alpha,
-        n_min,
+        alpha: v_alpha,
+        n_min: v_n_min,
         delta_tb_k: kv.delta_tb_k,
         distillate_purity: xd,
         simple_cut_distillate: cut.map(|c| c.distillate_avg_x_light),
         simple_cut_fraction: cut.map(|c| c.fraction_distilled),
+        column: Some(ColumnBrief {
+            summary: column.as_ref(),
+            failure: failure.as_deref(),
+        }),
+        barrier: barrier.as_ref(),
     });
-    if verdict.rule_of_thumb.code != verdict.code {
+    if verdict.rule_of_thumb.code != verdict.code
+        && verdict.code != verdict::VerdictCode::BeyondAzeotrope
+    {
         findings.push(Finding {
             code: "rule-of-thumb-disagrees",
             severity: Severity::Info,
             message: "The boiling-point-difference rule of thumb reads differently from the stage count for these purity targets; plan with the stage count.".to_string(),
         });
+    }
+    // No stage count for an impossible target.
+    let beyond = barrier.is_some();
+    let n_min = if beyond { None } else { n_min };
+    if beyond {
+        for r in &mut table {
+            r.fenske_min_stages = None;
+        }
+        if let Some(pair) = pairs.get_mut(ki) {
+            pair.fenske_min_stages = None;
+        }
     }
 
     Ok(Plan {
@@ -476,11 +594,89 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         pairs,
         pressure_table: table,
         rayleigh: ray,
+        activity_model: chosen.model.name(),
+        azeotropes,
+        liquid_split,
+        column,
         verdict,
         findings,
-        limits: limits::IDEAL_SOLUTION,
-        cautions: limits::CAUTIONS,
+        limits: if ideal_model {
+            limits::IDEAL_SOLUTION
+        } else {
+            limits::MIXTURE_MODEL
+        },
+        cautions: if ideal_model {
+            limits::CAUTIONS
+        } else {
+            limits::CAUTIONS_MIXTURE
+        },
     })
+}
+
+/// Name what stops the column at `x` and list the ways round it (common practice).
+fn barrier(x: f64, curve: &dyn Equilibrium, study: Option<&VleStudy>, p: f64) -> Barrier {
+    let near = study.and_then(|s| {
+        s.azeotropes
+            .iter()
+            .min_by(|a, b| (a.x1 - x).abs().total_cmp(&(b.x1 - x).abs()))
+    });
+    let (ax, t_k, kind) = match near {
+        Some(a) => (
+            a.x1,
+            a.t_k.or_else(|| curve.t_k(a.x1).ok().flatten()),
+            format!("predicted {} azeotrope", a.kind.as_str()),
+        ),
+        None => (
+            x,
+            curve.t_k(x).ok().flatten(),
+            "point where the vapor is no richer than the liquid (a pinch on the diagonal)"
+                .to_string(),
+        ),
+    };
+    let mut hints = Vec::new();
+    if let Some(st) = study {
+        let moves: Vec<(f64, f64)> = st
+            .azeotrope_pressure_shift
+            .iter()
+            .filter_map(|r| r.x1.map(|x1| (r.p_pa, x1)))
+            .collect();
+        if let Some(&(pp, xx)) = moves
+            .iter()
+            .max_by(|a, b| (a.1 - ax).abs().total_cmp(&(b.1 - ax).abs()))
+        {
+            let d = (xx - ax).abs();
+            if d >= SWING_SHIFT {
+                hints.push(format!(
+                    "Pressure-swing distillation: the predicted azeotrope moves from x = {ax:.3} here to x = {xx:.3} at {:.0} mbar, a shift of {d:.3} (worth a look from about {SWING_SHIFT} in mole fraction; common practice).",
+                    pp / 100.0
+                ));
+            } else {
+                hints.push(format!(
+                    "A pressure swing is unlikely to help: the predicted azeotrope moves by at most {d:.3} in mole fraction between the pressures tried ({:.0} to {:.0} mbar; common practice: worth a look from about {SWING_SHIFT}).",
+                    moves.iter().map(|m| m.0).fold(f64::INFINITY, f64::min) / 100.0,
+                    moves.iter().map(|m| m.0).fold(0.0, f64::max) / 100.0
+                ));
+            }
+        }
+    }
+    hints.push("An entrainer: a third component that breaks the azeotrope, by azeotropic distillation or by extractive distillation with a high-boiling solvent (common practice).".to_string());
+    if let Some(s) = study.map(|s| &s.liquid_split).filter(|s| s.predicted) {
+        hints.push(format!(
+            "A decanter: two liquids are predicted between x = {:.3} and {:.3}, so the condensate can be split by settling and each layer distilled on its own side of the azeotrope (common practice).",
+            s.x1_low.unwrap_or(f64::NAN),
+            s.x1_high.unwrap_or(f64::NAN)
+        ));
+    }
+    hints.push(format!(
+        "Ordinary distillation can take the product up to about the azeotrope (x = {ax:.3}); another step (e.g. adsorption or a membrane) can finish it (common practice)."
+    ));
+    let _ = p;
+    Barrier {
+        x: ax,
+        t_k,
+        kind,
+        hints,
+    }
 }
 
 #[cfg(test)]
@@ -516,6 +712,60 @@ mod tests {
         let r = p.rayleigh.unwrap();
         assert_eq!(r.points.len(), 19);
         assert!(r.points[0].head_t_k.unwrap() > p.components[0].tb_k);
+    }
+
+    /// `ActivityChoice::Ideal` is today's Raoult plan: the Rayleigh curve is
+    /// the ideal binary's, the stage count Fenske's on the geometric-mean α,
+    /// and structures make no difference.
+    #[test]
+    fn ideal_model_reproduces_the_raoult_plan() {
+        let with_smiles: Vec<Component> = bz_tol()
+            .into_iter()
+            .zip(["Cc1ccccc1", "c1ccccc1"])
+            .map(|(c, s)| c.with_smiles(s))
+            .collect();
+        let opts = PlanOptions {
+            activity: ActivityChoice::Ideal,
+            ..PlanOptions::default()
+        };
+        let a = plan(&with_smiles, &opts).unwrap();
+        let b = plan(&bz_tol(), &opts).unwrap();
+        assert_eq!(a, b);
+        assert_eq!(a.activity_model, "ideal");
+        assert_eq!(a.limits, limits::IDEAL_SOLUTION);
+        let (l, h) = (&bz_tol()[1], &bz_tol()[0]);
+        let ideal = IdealBinary {
+            light: l,
+            heavy: h,
+            p_pa: a.pressure_pa,
+        };
+        let pts = rayleigh::curve(&ideal, 0.5, 0.05, 0.9).unwrap();
+        assert_eq!(a.rayleigh.as_ref().unwrap().points, pts);
+        let v = volatility::pair_volatility(l, h, a.pressure_pa).unwrap();
+        let n = fenske::min_stages(v.geometric_mean, 0.99, 0.99)
+            .unwrap()
+            .unwrap();
+        assert_eq!(a.fenske_min_stages, Some(n));
+        assert_eq!(a.verdict.min_theoretical_stages, Some(n.ceil() as u32));
+        assert!(a.azeotropes.is_empty() && !a.liquid_split.predicted);
+        // Without structures, the default falls back to the same plan and says so.
+        let c = plan(&bz_tol(), &PlanOptions::default()).unwrap();
+        assert_eq!(c.rayleigh, a.rayleigh);
+        assert_eq!(c.column, a.column);
+        assert!(c
+            .findings
+            .iter()
+            .any(|f| f.code == "ideal-solution-assumed"));
+        // UNIFAC with structures gives a near-ideal answer for this pair.
+        let u = plan(&with_smiles, &PlanOptions::default()).unwrap();
+        assert_eq!(u.activity_model, "unifac");
+        let (cu, ci) = (u.column.unwrap(), a.column.unwrap());
+        assert!(
+            (cu.min_stages - ci.min_stages).abs() < 1.0,
+            "{} {}",
+            cu.min_stages,
+            ci.min_stages
+        );
     }
 
     #[test]

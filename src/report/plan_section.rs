@@ -41,6 +41,9 @@ pub fn plan_findings(plan: &Plan) -> Vec<Finding> {
 /// pressures, the simple-distillation table, the findings and the ideal-solution limits.
 pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
     section.paragraph(format!("Verdict: {}", plan.verdict.message));
+    for h in &plan.verdict.hints {
+        section.paragraph(format!("Way round: {h}"));
+    }
     section.paragraph(plan.verdict.rule_of_thumb.message.clone());
     let d = &plan.relative_volatility_detail;
     let f = &plan.fenske_detail;
@@ -154,6 +157,7 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
             "pot x",
             "distillate now y",
             "all distillate x",
+            "pot/°C",
             "head/°C",
         ])
         .caption(format!(
@@ -166,6 +170,7 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
                 format!("{:.4}", p.pot_x_light),
                 format!("{:.4}", p.vapor_y_light),
                 format!("{:.4}", p.distillate_avg_x_light),
+                p.pot_t_k.map(c).unwrap_or_default(),
                 p.head_t_k.map(c).unwrap_or_default(),
             ]);
         }
