@@ -21,7 +21,7 @@
 //! structures are known ([`activity`]), otherwise (or with
 //! [`ActivityChoice::Ideal`]) as an ideal solution (Raoult's law, with
 //! [`limits::IDEAL_SOLUTION`] on the output). On that equilibrium curve the
-//! plan designs a column ([`column_plan`], [`column`]: McCabe–Thiele, and
+//! plan designs a column ([`column_plan`], [`column`](mod@column): McCabe–Thiele, and
 //! Fenske–Underwood–Gilliland where α is nearly constant) and refuses targets
 //! beyond an azeotrope ([`verdict`]).
 //!
