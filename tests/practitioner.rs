@@ -349,3 +349,261 @@ fn converted_input_values_carry_no_floating_point_noise() {
     assert!(!text.contains("0000000"), "noise in {text}");
     assert!(!text.contains("9999999"), "noise in {text}");
 }
+
+/// The invented HV-310 ester runs (Harrow Vale), with point 5 read 6 % high.
+const ESTER: &str = "compound,t/degC,p/mmHg
+HV-310 ester,60.00,14.703
+HV-310 ester,68.00,21.710
+HV-310 ester,76.00,31.398
+HV-310 ester,84.00,44.723
+HV-310 ester,92.00,66.210
+HV-310 ester,100.00,85.427
+HV-310 ester,108.00,115.366
+HV-310 ester,116.00,154.068
+HV-310 ester,124.00,203.412
+";
+
+fn table_of(args: &[&str]) -> String {
+    let o = ebullio()
+        .args(args)
+        .args(["--format", "table"])
+        .output()
+        .unwrap();
+    ok(&o);
+    String::from_utf8_lossy(&o.stdout).into_owned()
+}
+
+#[test]
+fn an_outlier_is_excluded_by_the_user_and_the_accepted_fit_is_carried_into_boil() {
+    let dir = scratch();
+    let f = write(dir.path(), "ester.csv", ESTER);
+    let fs = f.to_str().unwrap();
+    // 1. The outlier is found, kept, and the way to exclude it is named.
+    let all = json(&["fit", fs]);
+    let flags = all["flags"].to_string();
+    assert!(
+        flags.contains("outlier-point") && flags.contains("--exclude 5"),
+        "{flags}"
+    );
+    assert_eq!(all["n_points"], 9);
+    let without = all["without_flagged"]["normal_boiling_point_k"]["value"]
+        .as_f64()
+        .unwrap();
+    // 2. Excluded by number, line or temperature: the same fit, which records it.
+    let fit_json = dir.path().join("fit.json");
+    let o = ebullio()
+        .args([
+            "fit",
+            fs,
+            "--exclude",
+            "5",
+            "--at",
+            "20 mbar",
+            "--format",
+            "json",
+            "-o",
+        ])
+        .arg(&fit_json)
+        .output()
+        .unwrap();
+    ok(&o);
+    let ex: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&fit_json).unwrap()).unwrap();
+    assert_eq!(ex["n_points"], 8);
+    assert_eq!(ex["excluded"][0]["number"], 5);
+    assert_eq!(ex["excluded"][0]["line"], 6);
+    assert!(ex["excluded"][0]["by"]
+        .as_str()
+        .unwrap()
+        .starts_with("user: --exclude"));
+    assert!(ex["flags"].to_string().contains("excluded-points"));
+    let tb = ex["normal_boiling_point_k"]["value"].as_f64().unwrap();
+    assert!(
+        (tb - without).abs() < 1e-6,
+        "{tb} vs the advisory {without}"
+    );
+    for other in [["--exclude", "line:6"], ["--exclude", "92 degC"]] {
+        let v = json(&["fit", fs, other[0], other[1]]);
+        assert_eq!(v["parameters"], ex["parameters"], "{other:?}");
+    }
+    // The points keep their numbers; the excluded one is listed as such.
+    let t = table_of(&["fit", fs, "--exclude", "5"]);
+    assert!(
+        t.contains("excluded (user: --exclude point 5, line 6)"),
+        "{t}"
+    );
+    // 3. boil --from uses exactly the accepted fit.
+    let at = ex["predictions"][0]["t_k"].as_f64().unwrap();
+    let b = json(&[
+        "boil",
+        "--from",
+        fit_json.to_str().unwrap(),
+        "--pressure",
+        "20 mbar",
+    ]);
+    let t_boil = b["results"][0]["t_k"].as_f64().unwrap();
+    assert!((t_boil - at).abs() < 1e-9, "{t_boil} vs {at}");
+    assert!(b["source"]
+        .as_str()
+        .unwrap()
+        .contains("point 5 (line 6) excluded by the user"));
+    // 4. A rule that names no point is an error, never silently ignored.
+    for bad in ["12", "93 degC", "line:40"] {
+        let o = ebullio()
+            .args(["fit", fs, "--exclude", bad])
+            .output()
+            .unwrap();
+        assert_eq!(o.status.code(), Some(2), "{bad}");
+        assert!(stderr(&o).contains("names no point"), "{}", stderr(&o));
+    }
+}
+
+#[test]
+fn robust_fit_shows_weights_marks_the_rejected_point_and_judges_weighted_residuals() {
+    let dir = scratch();
+    // Point 5 read 25 % high: the plain fit is poor, the robust one rejects it.
+    let f = write(dir.path(), "ester.csv", &ESTER.replace("66.210", "78.000"));
+    let fs = f.to_str().unwrap();
+    let plain = json(&["fit", fs]);
+    assert!(
+        plain["flags"].to_string().contains("poor-fit"),
+        "{}",
+        plain["flags"]
+    );
+    let r = json(&["fit", fs, "--robust"]);
+    assert_eq!(r["points"][4]["robust_rejected"], true);
+    assert!(r["points"][4]["robust_weight"].as_f64().unwrap() < 1e-3);
+    assert_eq!(r["points"][0]["robust_rejected"], false);
+    let flags = r["flags"].to_string();
+    assert!(flags.contains("robust-rejected-point"), "{flags}");
+    assert!(!flags.contains("poor-fit"), "{flags}");
+    let t = table_of(&["fit", fs, "--robust"]);
+    assert!(
+        t.contains("weight") && t.contains("REJECTED by the robust loss"),
+        "{t}"
+    );
+}
+
+#[test]
+fn studentized_residuals_are_labelled_internal_and_external() {
+    let dir = scratch();
+    let f = write(dir.path(), "ester.csv", ESTER);
+    let t = table_of(&["fit", f.to_str().unwrap()]);
+    assert!(t.contains("int.stud.") && t.contains("ext.stud."), "{t}");
+    assert!(t.contains("externally studentized residual"), "{t}");
+    assert!(!t.contains(" stud. "), "{t}");
+}
+
+#[test]
+fn output_is_in_the_input_units_unless_asked_otherwise() {
+    let dir = scratch();
+    let f = write(dir.path(), "ester.csv", ESTER);
+    let fs = f.to_str().unwrap();
+    let t = table_of(&["fit", fs, "--at", "20 mbar"]);
+    assert!(t.contains("t/°C") && t.contains("p/mmHg"), "{t}");
+    assert!(t.contains("60.000      14.7030"), "{t}");
+    assert!(t.contains("at 15.0012 mmHg: t = 60.51 °C"), "{t}");
+    let t = table_of(&["fit", fs, "--units", "K,kPa"]);
+    assert!(
+        t.contains("t/K") && t.contains("p/kPa") && t.contains("333.150"),
+        "{t}"
+    );
+    // JSON stays SI, each name carrying its unit.
+    let v = json(&["fit", fs]);
+    assert_eq!(v["points"][0]["t_k"].as_f64().unwrap(), 333.15);
+}
+
+mod output_property {
+    use super::*;
+    use proptest::prelude::*;
+
+    /// Every number token in `json` reads back to a double that prints as the same text.
+    fn numbers_round_trip(json: &str) -> Result<(), String> {
+        let v: serde_json::Value = serde_json::from_str(json).map_err(|e| e.to_string())?;
+        fn walk(v: &serde_json::Value) -> Result<(), String> {
+            match v {
+                serde_json::Value::Number(n) => {
+                    let text = n.to_string();
+                    let x: f64 = text.parse().map_err(|_| text.clone())?;
+                    let back = serde_json::Number::from_f64(x)
+                        .map(|m| m.to_string())
+                        .unwrap_or_default();
+                    if n.is_f64() && back != text {
+                        return Err(format!("{text} prints back as {back}"));
+                    }
+                    Ok(())
+                }
+                serde_json::Value::Array(a) => a.iter().try_for_each(walk),
+                serde_json::Value::Object(o) => o.values().try_for_each(walk),
+                _ => Ok(()),
+            }
+        }
+        walk(&v)
+    }
+
+    /// No word of the output is NaN or an infinity.
+    fn no_nan_or_inf(text: &str) -> Result<(), String> {
+        for w in text.split(|c: char| !c.is_ascii_alphanumeric()) {
+            let l = w.to_ascii_lowercase();
+            if l == "nan" || l == "inf" || l == "infinity" {
+                return Err(format!("'{w}' in output"));
+            }
+        }
+        Ok(())
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig { cases: 8, ..ProptestConfig::default() })]
+        // Random toluene-like data sets (Smith, Van Ness & Abbott B.2 constants
+        // with scatter, random units, an occasional wild point) through fit and boil.
+        #[test]
+        fn json_numbers_round_trip_and_no_output_says_nan_or_inf(
+            scatter in proptest::collection::vec(-0.05f64..0.05, 7),
+            wild in proptest::option::of(0usize..7),
+            units in proptest::sample::select(vec![("t/degC", "p/mbar"), ("T/K", "p/kPa"), ("t/ºC", "p/mmHg"), ("t/degF", "p/psia")]),
+        ) {
+            let (th, ph) = units;
+            let tu = ebullio::units::TemperatureUnit::parse(th.split('/').nth(1).unwrap()).unwrap();
+            let pu = ebullio::units::PressureUnit::parse(ph.split('/').nth(1).unwrap()).unwrap();
+            let mut text = format!("{th},{ph}\n");
+            for (i, s) in scatter.iter().enumerate() {
+                let t = 313.15 + 10.0 * i as f64;
+                let f = if wild == Some(i) { 1.8 } else { 1.0 + s * 0.1 };
+                let p = toluene().p_pa(t) * f;
+                text += &format!("{},{}\n", tu.from_kelvin(t), pu.from_pa(p));
+            }
+            let dir = scratch();
+            let f = write(dir.path(), "d.csv", &text);
+            let fs = f.to_str().unwrap();
+            let fit_json = dir.path().join("fit.json");
+            for fmt in ["json", "csv", "table"] {
+                let o = ebullio()
+                    .args(["fit", fs, "--at", "1 mbar", "--at", "400 degC", "--format", fmt])
+                    .output()
+                    .unwrap();
+                prop_assert!(o.status.code().is_some_and(|c| c <= 2));
+                let out = String::from_utf8_lossy(&o.stdout).into_owned();
+                no_nan_or_inf(&out).map_err(TestCaseError::fail)?;
+                no_nan_or_inf(&stderr(&o)).map_err(TestCaseError::fail)?;
+                if fmt == "json" && o.status.success() {
+                    numbers_round_trip(&out).map_err(TestCaseError::fail)?;
+                    std::fs::write(&fit_json, &out).unwrap();
+                }
+            }
+            if fit_json.exists() {
+                for fmt in ["json", "csv", "table"] {
+                    let o = ebullio()
+                        .args(["boil", "--from", fit_json.to_str().unwrap(), "--pressure", "0.001 Pa",
+                               "--pressure", "20 mbar", "--temperature", "1 K", "--format", fmt])
+                        .output()
+                        .unwrap();
+                    let out = String::from_utf8_lossy(&o.stdout).into_owned();
+                    no_nan_or_inf(&out).map_err(TestCaseError::fail)?;
+                    if fmt == "json" && o.status.success() {
+                        numbers_round_trip(&out).map_err(TestCaseError::fail)?;
+                    }
+                }
+            }
+        }
+    }
+}

@@ -219,11 +219,12 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         (
             Box::new(fc),
             format!(
-                "fit {} ({}, {}, {} points)",
+                "fit {} ({}, {}, {} points{})",
                 path.display(),
                 name,
                 report.model,
-                report.n_points
+                report.n_points,
+                excluded_note(report)
             ),
             k,
         )
@@ -334,6 +335,22 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     args.out.emit(&text, &inputs)?;
     Ok(Outcome::Success)
+}
+
+/// "; point 5 (line 6) excluded by the user" for a fit made with `--exclude`.
+fn excluded_note(r: &ebullio::fit::FitReport) -> String {
+    if r.excluded.is_empty() {
+        return String::new();
+    }
+    let list: Vec<String> = r
+        .excluded
+        .iter()
+        .map(|e| match e.line {
+            Some(l) => format!("point {} (line {l})", e.number),
+            None => format!("point {}", e.number),
+        })
+        .collect();
+    format!("; {} excluded by the user", list.join(", "))
 }
 
 fn table(rep: &Report) -> String {

@@ -131,6 +131,14 @@ impl OutputArgs {
     /// rename is done (see [`install_interrupt_handler`]), so no temporary or
     /// partial file is ever left behind.
     pub fn emit(&self, text: &str, inputs: &[&Path]) -> anyhow::Result<()> {
+        let cleaned;
+        let text = match self.format() {
+            Format::Json => text,
+            f => {
+                cleaned = without_non_finite(text, if f == Format::Csv { "" } else { "-" });
+                cleaned.as_str()
+            }
+        };
         match &self.output {
             Some(p) => {
                 let mut written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
@@ -142,6 +150,41 @@ impl OutputArgs {
             None => print_stdout(text),
         }
     }
+}
+
+/// `text` with every whole word `NaN`, `inf` or `infinity` (any case, with a
+/// sign) replaced by `blank`: a value that could not be computed is shown as
+/// missing (`-` in a table, an empty CSV cell), never as floating-point text.
+/// Words that merely contain the letters (`info`) are kept.
+pub fn without_non_finite(text: &str, blank: &str) -> String {
+    let mut out = String::with_capacity(text.len());
+    let bytes = text.as_bytes();
+    let mut i = 0;
+    while i < bytes.len() {
+        if bytes[i].is_ascii_alphanumeric() {
+            let start = i;
+            while i < bytes.len() && bytes[i].is_ascii_alphanumeric() {
+                i += 1;
+            }
+            let w = &text[start..i];
+            let l = w.to_ascii_lowercase();
+            if l == "nan" || l == "inf" || l == "infinity" {
+                if out.ends_with(['-', '+'])
+                    && (start < 2 || !bytes[start - 2].is_ascii_alphanumeric())
+                {
+                    out.pop();
+                }
+                out.push_str(blank);
+            } else {
+                out.push_str(w);
+            }
+        } else {
+            let c = text[i..].chars().next().unwrap_or(' ');
+            out.push(c);
+            i += c.len_utf8();
+        }
+    }
+    out
 }
 
 /// Write `path` atomically by streaming into `write`, holding off an
@@ -270,4 +313,18 @@ pub fn write_report(
     let mut refuse: Vec<&Path> = inputs.to_vec();
     refuse.extend(output);
     write_file_atomic(path, &refuse, |w| w.write_all(html.as_bytes()))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::without_non_finite;
+
+    #[test]
+    fn non_finite_words_are_blanked_and_info_is_kept() {
+        assert_eq!(
+            without_non_finite("RMS NaN % [info] -inf,inf,NaN\n", "-"),
+            "RMS - % [info] -,-,-\n"
+        );
+        assert_eq!(without_non_finite("1,NaN,,x-inf\n", ""), "1,,,x-\n");
+    }
 }

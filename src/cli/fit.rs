@@ -4,7 +4,7 @@ use super::common::{parse_pressure, parse_quantity};
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::fit::{At, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
+use ebullio::fit::{At, Exclude, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
 use ebullio::table_io::{fit_set, read_measured, ReadOptions};
 use ebullio::units::{parse_temperature, PressureUnit, Quantity, TemperatureUnit};
 use ebullio::vapor::AntoineConvention;
@@ -67,6 +67,16 @@ pub struct Args {
     /// Allowed difference in normal boiling point from the reference, in K.
     #[arg(long, default_value_t = 0.5)]
     pub ref_tb_tolerance_k: f64,
+    /// Leave a point out of the fit: by its number in the points table ("4"), its
+    /// line in the file ("line:5") or its temperature ("80 degC"). Repeatable. The
+    /// output and the fit file record what was excluded; boil --from and plan --from
+    /// use exactly this fit. The automatic outlier rule never excludes by itself.
+    #[arg(long, allow_hyphen_values = true, value_name = "POINT")]
+    pub exclude: Vec<String>,
+    /// Units for the table output, "degC,mbar" (temperature, pressure); default:
+    /// the units of the input columns. JSON is always SI with the unit in each name.
+    #[arg(long, value_name = "T,P")]
+    pub units: Option<String>,
     /// Also write one self-contained HTML report (plots, constants, points, findings) to this file.
     #[arg(long, value_name = "FILE.html")]
     pub report: Option<PathBuf>,
@@ -77,6 +87,42 @@ pub struct Args {
 struct Resolved {
     read: ReadOptions,
     fit: FitOptions,
+    units: Option<(TemperatureUnit, PressureUnit)>,
+}
+
+/// `--exclude` text: "4" (point number), "line:5" / "line 5", or a temperature.
+fn parse_exclude(s: &str) -> Result<Exclude, InputError> {
+    let t = s.trim();
+    let lower = t.to_ascii_lowercase();
+    if let Some(rest) = lower.strip_prefix("line") {
+        let n = rest.trim_start_matches([':', ' ', '=']).trim();
+        return n
+            .parse::<u64>()
+            .map(Exclude::Line)
+            .map_err(|_| InputError(format!("--exclude '{s}': write a line as \"line:5\"")));
+    }
+    if let Ok(n) = t.parse::<usize>() {
+        return Ok(Exclude::Point(n));
+    }
+    parse_temperature(t)
+        .map(|q| Exclude::TemperatureK(q.kelvin()))
+        .map_err(|e| {
+            InputError(format!(
+                "--exclude '{s}': expected a point number (\"4\"), a line (\"line:5\") or a temperature (\"80 degC\"): {e}"
+            ))
+        })
+}
+
+/// `--units "degC,mbar"`.
+fn parse_units(s: &str) -> Result<(TemperatureUnit, PressureUnit), InputError> {
+    let (t, p) = s.split_once(',').ok_or_else(|| {
+        InputError(format!(
+            "--units '{s}': write it as \"degC,mbar\" (temperature, pressure)"
+        ))
+    })?;
+    let t = TemperatureUnit::parse(t).map_err(|e| InputError(format!("--units: {e}")))?;
+    let p = PressureUnit::parse(p).map_err(|e| InputError(format!("--units: {e}")))?;
+    Ok((t, p))
 }
 
 fn resolve(a: &Args) -> Result<Resolved, InputError> {
@@ -112,6 +158,12 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
     if model == ModelSelection::Wagner && critical.is_none() {
         return Err(InputError("--model wagner needs --tc and --pc".into()));
     }
+    let exclude = a
+        .exclude
+        .iter()
+        .map(|s| parse_exclude(s))
+        .collect::<Result<Vec<_>, _>>()?;
+    let units = a.units.as_deref().map(parse_units).transpose()?;
     let mut at = Vec::new();
     for s in &a.at {
         match parse_quantity(s).map_err(|e| InputError(format!("--at '{s}': {e}")))? {
@@ -133,7 +185,9 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
             convention,
             at,
             refit_without_outliers: true,
+            exclude,
         },
+        units,
     })
 }
 
@@ -250,7 +304,16 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         Format::Json if rows.len() == 1 => super::common::json_text(&rows[0])? + "\n",
         Format::Json => super::common::json_text(&rows)? + "\n",
         Format::Csv => csv_rows(&rows)?,
-        Format::Table => rows.iter().map(table).collect::<Vec<_>>().join("\n"),
+        Format::Table => {
+            let units = r
+                .units
+                .or(data.units)
+                .unwrap_or((TemperatureUnit::Kelvin, PressureUnit::KPa));
+            rows.iter()
+                .map(|row| table(row, units))
+                .collect::<Vec<_>>()
+                .join("\n")
+        }
     };
     args.out.emit(&text, &[args.data.as_path()])?;
     if let Some(path) = &args.report {
@@ -322,7 +385,7 @@ fn csv_rows(rows: &[Row]) -> anyhow::Result<String> {
     ])?;
     let f = |v: Option<f64>| {
         v.filter(|v| v.is_finite())
-            .map(|v| format!("{v}"))
+            .map(|v| format!("{}", ebullio::units::tidy(v)))
             .unwrap_or_default()
     };
     for r in rows {
@@ -364,7 +427,29 @@ fn csv_rows(rows: &[Row]) -> anyhow::Result<String> {
     Ok(String::from_utf8(w.into_inner()?)?)
 }
 
-fn table(r: &Row) -> String {
+/// A unit's symbol as a chemist writes it in a table.
+fn t_sym(u: TemperatureUnit) -> &'static str {
+    match u {
+        TemperatureUnit::Kelvin => "K",
+        TemperatureUnit::Celsius => "°C",
+        TemperatureUnit::Fahrenheit => "°F",
+        TemperatureUnit::Rankine => "°R",
+    }
+}
+
+/// `x` to `sig` significant digits, as plain decimal text.
+fn sig(x: f64, sig: i32) -> String {
+    if !x.is_finite() {
+        return "-".into();
+    }
+    if x == 0.0 {
+        return "0".into();
+    }
+    let d = (sig - 1 - x.abs().log10().floor() as i32).clamp(0, 12) as usize;
+    format!("{x:.d$}")
+}
+
+fn table(r: &Row, (tu, pu): (TemperatureUnit, PressureUnit)) -> String {
     let rep = match r {
         Row::Failed { compound, error } => {
             return format!(
@@ -374,14 +459,20 @@ fn table(r: &Row) -> String {
         }
         Row::Ok(rep) => rep,
     };
+    let ts = t_sym(tu);
+    let ps = pu.symbol();
+    // Temperatures in the display unit; differences need only the degree size.
+    let t = |k: f64| format!("{:.2} {ts}", tu.from_kelvin(k));
+    let dt = |k: f64| k / tu.kelvin_per_degree();
+    let p = |pa: f64| format!("{} {ps}", sig(pu.from_pa(pa), 6));
     let mut s = String::new();
     let name = rep.compound.as_deref().unwrap_or("data");
     s += &format!(
-        "{name}: {} fit to {} points, {:.2}–{:.2} K ({}; {})\n",
+        "{name}: {} fit to {} points, {} to {} ({}; {})\n",
         rep.model,
         rep.n_points,
-        rep.t_range_k[0],
-        rep.t_range_k[1],
+        t(rep.t_range_k[0]),
+        t(rep.t_range_k[1]),
         rep.weighting,
         if rep.termination.converged {
             "converged"
@@ -397,68 +488,109 @@ fn table(r: &Row) -> String {
         );
     }
     s += &format!(
-        "  deviations: RMS {:.3} % in p (max {:.3} %), RMS {:.3} K in T (max {:.3} K)\n",
-        rep.rms_rel_dev_pct, rep.max_rel_dev_pct, rep.rms_dev_t_k, rep.max_dev_t_k
+        "  deviations: RMS {:.3} % in p (max {:.3} %), RMS {:.3} {ts} in T (max {:.3} {ts})\n",
+        rep.rms_rel_dev_pct,
+        rep.max_rel_dev_pct,
+        dt(rep.rms_dev_t_k),
+        dt(rep.max_dev_t_k)
     );
     if let Some(tb) = &rep.normal_boiling_point_k {
         s += &format!(
-            "  normal boiling point: {:.2} K ({:.2} °C), 95 % CI [{:.2}, {:.2}] K{}\n",
+            "  normal boiling point: {} ({:.2} K), 95 % CI [{}, {}]{}\n",
+            t(tb.value),
             tb.value,
-            tb.value - ebullio::units::CELSIUS_OFFSET,
-            tb.ci95_low,
-            tb.ci95_high,
+            t(tb.ci95_low),
+            t(tb.ci95_high),
             if tb.extrapolated {
-                format!(", extrapolated {:.1} K", tb.extrapolation_k)
+                format!(", extrapolated {:.1} {ts}", dt(tb.extrapolation_k))
             } else {
                 String::new()
             }
         );
     }
-    for p in &rep.predictions {
-        let ext = if p.extrapolated {
-            format!("  (extrapolated {:.1} K)", p.extrapolation_k)
+    for q in &rep.predictions {
+        let ext = if q.extrapolated {
+            format!("  (extrapolated {:.1} {ts})", dt(q.extrapolation_k))
         } else {
             String::new()
         };
-        if p.kind == "t_at_p" {
+        if q.kind == "t_at_p" {
             s += &format!(
-                "  at {:.4} kPa: T = {:.2} K ({:.2} °C), 95 % CI [{:.2}, {:.2}] K{ext}\n",
-                p.p_pa / 1000.0,
-                p.t_k,
-                p.t_k - ebullio::units::CELSIUS_OFFSET,
-                p.ci95_low,
-                p.ci95_high
+                "  at {}: t = {}, 95 % CI [{}, {}]{ext}\n",
+                p(q.p_pa),
+                t(q.t_k),
+                t(q.ci95_low),
+                t(q.ci95_high)
             );
         } else {
             s += &format!(
-                "  at {:.2} K: p = {:.4} kPa, 95 % CI [{:.4}, {:.4}] kPa{ext}\n",
-                p.t_k,
-                p.p_pa / 1000.0,
-                p.ci95_low / 1000.0,
-                p.ci95_high / 1000.0
+                "  at {}: p = {}, 95 % CI [{}, {}]{ext}\n",
+                t(q.t_k),
+                p(q.p_pa),
+                p(q.ci95_low),
+                p(q.ci95_high)
             );
         }
     }
     if let Some(h) = &rep.hvap {
         s += &format!(
-            "  ΔHvap at {:.1} K: {:.2} kJ/mol, 95 % CI [{:.2}, {:.2}] ({})\n",
-            h.t_k, h.value_kj_mol, h.ci95_low, h.ci95_high, h.note
+            "  ΔHvap at {}: {:.2} kJ/mol, 95 % CI [{:.2}, {:.2}] ({})\n",
+            t(h.t_k),
+            h.value_kj_mol,
+            h.ci95_low,
+            h.ci95_high,
+            h.note
         );
     }
-    s += "  points:      T/K        p/kPa   dev/%    dT/K   stud.  lever.\n";
-    for (i, p) in rep.points.iter().enumerate() {
+    let robust = rep.points.iter().any(|p| p.robust_weight.is_some());
+    let tcol = format!("t/{ts}");
+    let pcol = format!("p/{ps}");
+    let dcol = format!("dT/{ts}");
+    s += &format!(
+        "  points:  #  {tcol:>10} {pcol:>12}   dev/% {dcol:>8}  int.stud.  ext.stud.  lever.{}\n",
+        if robust { "  weight" } else { "" }
+    );
+    for q in &rep.points {
+        let mut mark = String::new();
+        if q.robust_rejected {
+            mark += "  REJECTED by the robust loss";
+        }
+        if q.outlier {
+            mark += "  OUTLIER (kept)";
+        }
+        // A point the robust loss rejected has no studentized residual to speak of.
+        let stud = |x: f64| {
+            if q.robust_rejected {
+                "-".to_string()
+            } else {
+                format!("{x:.2}")
+            }
+        };
         s += &format!(
-            "    {:>3} {:>10.3} {:>12.5} {:>7.3} {:>7.3} {:>6.2} {:>6.3}{}\n",
-            i + 1,
-            p.t_k,
-            p.p_pa / 1000.0,
-            p.rel_dev_pct,
-            p.t_dev_k,
-            p.studentized,
-            p.leverage,
-            if p.outlier { "  OUTLIER" } else { "" }
+            "    {:>5}  {:>10.3} {:>12} {:>7.3} {:>8.3} {:>10} {:>10} {:>7.3}{}{mark}\n",
+            q.number,
+            tu.from_kelvin(q.t_k),
+            sig(pu.from_pa(q.p_pa), 6),
+            q.rel_dev_pct,
+            dt(q.t_dev_k),
+            stud(q.studentized),
+            stud(q.ext_studentized),
+            q.leverage,
+            q.robust_weight
+                .map_or(String::new(), |w| format!(" {w:>7.3}"))
         );
     }
+    for e in &rep.excluded {
+        s += &format!(
+            "    {:>5}  {:>10.3} {:>12}   excluded ({}{})\n",
+            e.number,
+            tu.from_kelvin(e.t_k),
+            sig(pu.from_pa(e.p_pa), 6),
+            e.by,
+            e.line.map_or(String::new(), |l| format!(", line {l}"))
+        );
+    }
+    s += "  (int.stud. = internally studentized residual; ext.stud. = externally studentized, which the outlier rule uses)\n";
     if let (Some(tb), Some(v)) = (&rep.normal_boiling_point_k, &rep.reference_comparison) {
         let est = v.get("structure_tb_k").and_then(|x| x.as_array());
         let pi = v.get("structure_tb_pi90_k").and_then(|x| x.as_array());

@@ -39,6 +39,6 @@ pub mod vapor_fit;
 pub use curve::FittedCurve;
 pub use equation_fit::{Point, RobustLoss};
 pub use findings::{Finding, Severity};
-pub use options::{At, FitOptions, ModelSelection};
+pub use options::{At, Exclude, FitOptions, ModelSelection};
 pub use report::FitReport;
 pub use vapor_fit::{fit_points, fit_points_with_lines, FitError};

@@ -46,6 +46,29 @@ pub enum At {
     TemperatureK(f64),
 }
 
+/// A point the user left out of the fit (`--exclude`). The automatic outlier
+/// rule never drops a point; only these are left out, and the report says so.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Exclude {
+    /// By its 1-based number in the data, as the points table numbers them.
+    Point(usize),
+    /// By its line in the source file.
+    Line(u64),
+    /// By its temperature, K (every point within 0.005 K of it).
+    TemperatureK(f64),
+}
+
+impl std::fmt::Display for Exclude {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            Exclude::Point(n) => write!(f, "point {n}"),
+            Exclude::Line(l) => write!(f, "line {l}"),
+            Exclude::TemperatureK(t) => write!(f, "{} K", crate::units::tidy(*t)),
+        }
+    }
+}
+
 /// Options for one fit.
 #[derive(Debug, Clone, PartialEq)]
 pub struct FitOptions {
@@ -61,6 +84,8 @@ pub struct FitOptions {
     pub at: Vec<At>,
     /// Refit without each flagged point and report the difference (on by default).
     pub refit_without_outliers: bool,
+    /// Points the user excluded (`--exclude`).
+    pub exclude: Vec<Exclude>,
 }
 
 impl Default for FitOptions {
@@ -72,6 +97,7 @@ impl Default for FitOptions {
             convention: AntoineConvention::DISPLAY,
             at: Vec::new(),
             refit_without_outliers: true,
+            exclude: Vec::new(),
         }
     }
 }

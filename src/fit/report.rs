@@ -112,6 +112,12 @@ pub struct HvapEstimate {
 /// One measured point with its diagnostics.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct PointReport {
+    /// 1-based number in the data as given (excluded points keep their numbers).
+    #[serde(default)]
+    pub number: usize,
+    /// Line in the source file, when read from one.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub line: Option<u64>,
     /// Temperature, K.
     #[serde(deserialize_with = "nan_null::f64")]
     pub t_k: f64,
@@ -138,6 +144,10 @@ pub struct PointReport {
     pub cooks_distance: f64,
     /// Flagged by the outlier rule.
     pub outlier: bool,
+    /// Rejected by the robust loss (final weight below 0.001): it no longer
+    /// pulls on the constants, though it stays in the report.
+    #[serde(default)]
+    pub robust_rejected: bool,
     /// Final robust weight (with `--robust`).
     #[serde(skip_serializing_if = "Option::is_none", default)]
     pub robust_weight: Option<f64>,
@@ -178,6 +188,22 @@ pub struct WithoutFlagged {
     /// RMS relative deviation in p without them, %.
     #[serde(deserialize_with = "nan_null::f64")]
     pub rms_rel_dev_pct: f64,
+}
+
+/// A point left out of the fit, and by whom.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct ExcludedPoint {
+    /// 1-based number in the data as given.
+    pub number: usize,
+    /// Line in the source file, when read from one.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub line: Option<u64>,
+    /// Temperature, K.
+    pub t_k: f64,
+    /// Pressure, Pa.
+    pub p_pa: f64,
+    /// Who left it out and how: "user: --exclude point 4".
+    pub by: String,
 }
 
 /// The whole result of fitting one compound.
@@ -243,6 +269,10 @@ pub struct FitReport {
     /// `--model auto` comparison.
     #[serde(skip_serializing_if = "Option::is_none", default)]
     pub model_choice: Option<ModelChoice>,
+    /// Points the user excluded (`--exclude`); the constants, intervals and
+    /// predictions are from the remaining points.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub excluded: Vec<ExcludedPoint>,
     /// The fit without the flagged points.
     #[serde(skip_serializing_if = "Option::is_none", default)]
     pub without_flagged: Option<WithoutFlagged>,

@@ -11,7 +11,7 @@
 use super::curve::FittedCurve;
 use super::equation_fit::{fit_equation, EquationFit, Point, RobustLoss};
 use super::findings::{Finding, Severity};
-use super::options::{At, FitOptions, ModelSelection};
+use super::options::{At, Exclude, FitOptions, ModelSelection};
 use super::report::*;
 use super::stats::{external_studentized, runs_test, t_quantile};
 use crate::units::tidy;
@@ -33,6 +33,14 @@ pub enum FitError {
         need: usize,
         /// Equation.
         model: String,
+    },
+    /// An `--exclude` rule that names no point.
+    #[error("exclude: --exclude {what} names no point: {why}")]
+    Exclude {
+        /// The rule as given.
+        what: String,
+        /// Why it matches nothing.
+        why: String,
     },
     /// Too few distinct temperatures.
     #[error("too-few-temperatures: only {distinct} distinct temperature(s) among {n} points; a vapor-pressure curve needs at least {need}")]
@@ -169,13 +177,131 @@ pub fn fit_points_with_lines(
     lines: &[u64],
     opts: &FitOptions,
 ) -> Result<FitReport, FitError> {
+    if opts.exclude.is_empty() {
+        let numbers: Vec<usize> = (1..=points.len()).collect();
+        return fit_kept(compound, points, lines, &numbers, opts);
+    }
+    let left_out = excluded_indices(points, lines, &opts.exclude)?;
+    let keep: Vec<usize> = (0..points.len())
+        .filter(|i| !left_out.iter().any(|(j, _)| j == i))
+        .collect();
+    let kept: Vec<Point> = keep.iter().map(|&i| points[i]).collect();
+    let kept_lines: Vec<u64> = keep.iter().filter_map(|&i| lines.get(i).copied()).collect();
+    let numbers: Vec<usize> = keep.iter().map(|&i| i + 1).collect();
+    let mut r = fit_kept(compound, &kept, &kept_lines, &numbers, opts)?;
+    r.excluded = left_out
+        .iter()
+        .map(|&(i, by)| ExcludedPoint {
+            number: i + 1,
+            line: lines.get(i).copied().filter(|&l| l > 0),
+            t_k: points[i].t_k,
+            p_pa: points[i].p_pa,
+            by: format!("user: --exclude {by}"),
+        })
+        .collect();
+    let list: Vec<String> = r
+        .excluded
+        .iter()
+        .map(|e| match e.line {
+            Some(l) => format!("point {} (line {l})", e.number),
+            None => format!("point {}", e.number),
+        })
+        .collect();
+    r.flags.insert(
+        0,
+        Finding::new(
+            "excluded-points",
+            Severity::Info,
+            format!(
+                "Excluded by the user (--exclude): {}. The constants, intervals and predictions are from the remaining {} points; boil --from and plan --from use exactly this fit.",
+                list.join(", "),
+                kept.len()
+            ),
+        ),
+    );
+    Ok(r)
+}
+
+/// Temperatures closer than this are "the same" for `--exclude "80 degC"`, K.
+const EXCLUDE_T_TOL_K: f64 = 0.005;
+
+/// The 0-based indices `exclude` names, each with the rule that named it;
+/// a rule that names no point is an error (a typo must not pass silently).
+fn excluded_indices(
+    points: &[Point],
+    lines: &[u64],
+    exclude: &[Exclude],
+) -> Result<Vec<(usize, Exclude)>, FitError> {
+    let mut out: Vec<(usize, Exclude)> = Vec::new();
+    for &e in exclude {
+        let hits: Vec<usize> = match e {
+            Exclude::Point(n) => (n >= 1 && n <= points.len())
+                .then_some(n - 1)
+                .into_iter()
+                .collect(),
+            Exclude::Line(l) => (0..points.len())
+                .filter(|&i| lines.get(i) == Some(&l))
+                .collect(),
+            Exclude::TemperatureK(t) => (0..points.len())
+                .filter(|&i| (points[i].t_k - t).abs() <= EXCLUDE_T_TOL_K)
+                .collect(),
+        };
+        if hits.is_empty() {
+            let why = match e {
+                Exclude::Point(_) => format!("the data have points 1 to {}", points.len()),
+                Exclude::Line(_) if lines.is_empty() => "the points carry no line numbers".into(),
+                Exclude::Line(_) => format!(
+                    "no point is on that line (the points are on lines {} to {})",
+                    lines.iter().min().unwrap_or(&0),
+                    lines.iter().max().unwrap_or(&0)
+                ),
+                Exclude::TemperatureK(t) => {
+                    let near = (0..points.len())
+                        .min_by(|&a, &b| {
+                            (points[a].t_k - t)
+                                .abs()
+                                .total_cmp(&(points[b].t_k - t).abs())
+                        })
+                        .map(|i| {
+                            format!(
+                                "; the nearest is point {} at {} K",
+                                i + 1,
+                                tidy(points[i].t_k)
+                            )
+                        })
+                        .unwrap_or_default();
+                    format!("no point within {EXCLUDE_T_TOL_K} K of it{near}")
+                }
+            };
+            return Err(FitError::Exclude {
+                what: e.to_string(),
+                why,
+            });
+        }
+        for i in hits {
+            if !out.iter().any(|(j, _)| *j == i) {
+                out.push((i, e));
+            }
+        }
+    }
+    out.sort_by_key(|(i, _)| *i);
+    Ok(out)
+}
+
+fn fit_kept(
+    compound: Option<String>,
+    points: &[Point],
+    lines: &[u64],
+    numbers: &[usize],
+    opts: &FitOptions,
+) -> Result<FitReport, FitError> {
     if opts.model != ModelSelection::Auto {
         let eq = equation_for(opts.model, opts)?;
         validate(points, lines, eq.n_params(), eq.name())?;
         check_critical(&eq, points)?;
         let f =
             fit_equation(&eq, points, opts.robust).ok_or(FitError::NoStart(eq.name().into()))?;
-        let mut r = build_report(compound, points, &f, opts, true);
+        let mut r = build_report(compound, points, &f, opts, true, (numbers, lines));
         outlier_refit(&mut r, points, &f, opts);
         return Ok(r);
     }
@@ -255,7 +381,7 @@ pub fn fit_points_with_lines(
         n,
         others.join(", ")
     );
-    let mut r = build_report(compound, points, &f, opts, true);
+    let mut r = build_report(compound, points, &f, opts, true, (numbers, lines));
     r.flags
         .push(Finding::new("model-choice", Severity::Info, reason.clone()));
     r.model_choice = Some(ModelChoice { candidates, reason });
@@ -335,6 +461,7 @@ fn build_report(
     f: &EquationFit,
     opts: &FitOptions,
     with_flags: bool,
+    (numbers, lines): (&[usize], &[u64]),
 ) -> FitReport {
     let n = points.len();
     let k = f.eq.n_params();
@@ -395,6 +522,8 @@ fn build_report(
         let ext = external_studentized(r, h, rss, dof);
         let cook = r * r * h / (k as f64 * s2 * (1.0 - h).powi(2));
         pts.push(PointReport {
+            number: numbers.get(i).copied().unwrap_or(i + 1),
+            line: lines.get(i).copied().filter(|&l| l > 0),
             t_k: p.t_k,
             p_pa: p.p_pa,
             rel_dev_pct: rel,
@@ -405,6 +534,7 @@ fn build_report(
             cooks_distance: cook,
             outlier: converged && ext.abs() > bonf,
             robust_weight: rw.map(|w| w[i]),
+            robust_rejected: rw.is_some_and(|w| w[i] < ROBUST_REJECTED_BELOW),
         });
     }
     let runs = runs_test(&residuals_by_temperature(points, &f.lsq.residuals));
@@ -482,12 +612,32 @@ fn build_report(
         hvap,
         model_choice: None,
         without_flagged: None,
+        excluded: Vec::new(),
         reference_comparison: None,
     };
     if with_flags {
         r.flags = findings(&r, &curve, opts);
     }
     r
+}
+
+/// A robust weight below this means the loss rejected the point.
+const ROBUST_REJECTED_BELOW: f64 = 1e-3;
+
+/// RMS relative deviation in p, %, each point weighted by its robust weight
+/// (all 1 without `--robust`): the fit quality the robust fit itself claims.
+fn weighted_rms_pct(points: &[PointReport]) -> f64 {
+    let (mut sw, mut s) = (0.0, 0.0);
+    for p in points {
+        let w = p.robust_weight.unwrap_or(1.0);
+        sw += w;
+        s += w * p.rel_dev_pct * p.rel_dev_pct;
+    }
+    if sw > 0.0 {
+        (s / sw).sqrt()
+    } else {
+        f64::NAN
+    }
 }
 
 /// Two temperatures closer than this (relative) are the same setting.
@@ -623,18 +773,34 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
             ));
         }
     }
-    for (i, p) in r.points.iter().enumerate() {
+    for p in r.points.iter().filter(|p| p.robust_rejected) {
+        v.push(Finding::new(
+            "robust-rejected-point",
+            Severity::Info,
+            format!(
+                "Point {}{} ({:.2} K, {:.4} kPa, deviation {:+.2} %) was rejected by the robust loss (final weight {:.3}); the constants do not rest on it.",
+                p.number,
+                p.line.map_or(String::new(), |l| format!(" (line {l})")),
+                p.t_k,
+                p.p_pa / 1000.0,
+                p.rel_dev_pct,
+                p.robust_weight.unwrap_or(0.0)
+            ),
+        ));
+    }
+    for p in &r.points {
         if p.outlier {
             v.push(Finding::new(
                 "outlier-point",
                 w,
                 format!(
-                    "Point {} ({:.2} K, {:.4} kPa) deviates {:+.2} % (studentized {:.1}); it was kept, see without_flagged.",
-                    i + 1,
+                    "Point {n}{} ({:.2} K, {:.4} kPa) deviates {:+.2} % (externally studentized residual {:.1}); it was kept: the automatic rule only advises (see without_flagged). To leave it out of the fit, rerun with --exclude {n}.",
+                    p.line.map_or(String::new(), |l| format!(" (line {l})")),
                     p.t_k,
                     p.p_pa / 1000.0,
                     p.rel_dev_pct,
-                    p.ext_studentized
+                    p.ext_studentized,
+                    n = p.number
                 ),
             ));
         }
@@ -661,9 +827,17 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
             format!("Constants are correlated up to |r| = {max_r:.5}; individual constants are not meaningful on their own, predictions still are."),
         ));
     }
+    // With --robust, fit quality is judged on the weighted residuals: a point the
+    // loss rejected does not make the fit "poor".
+    let robust = r.points.iter().any(|p| p.robust_weight.is_some());
+    let rms = if robust {
+        weighted_rms_pct(&r.points)
+    } else {
+        r.rms_rel_dev_pct
+    };
     let poor = match r.reduced_chi_square {
         Some(c) => r.dof > 0 && c > 1.0 + 3.0 * (2.0 / r.dof as f64).sqrt() + 1.0,
-        None => r.rms_rel_dev_pct > 2.0,
+        None => rms > 2.0,
     };
     if poor {
         v.push(Finding::new(
@@ -671,7 +845,8 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
             w,
             match r.reduced_chi_square {
                 Some(c) => format!("Reduced chi-square is {c:.1}: the scatter is much larger than the stated uncertainties."),
-                None => format!("RMS deviation in pressure is {:.2} % (over 2 %, common practice).", r.rms_rel_dev_pct),
+                None if robust => format!("RMS deviation in pressure, weighted by the robust weights, is {rms:.2} % (over 2 %, common practice)."),
+                None => format!("RMS deviation in pressure is {rms:.2} % (over 2 %, common practice)."),
             },
         ));
     }
@@ -717,7 +892,7 @@ fn outlier_refit(r: &mut FitReport, points: &[Point], f: &EquationFit, opts: &Fi
     let Some(g) = fit_equation(&f.eq, &kept, opts.robust) else {
         return;
     };
-    let sub = build_report(None, &kept, &g, opts, false);
+    let sub = build_report(None, &kept, &g, opts, false, (&[], &[]));
     if let (Some(a), Some(b)) = (&r.normal_boiling_point_k, &sub.normal_boiling_point_k) {
         r.flags.push(Finding::new(
             "without-flagged-points",

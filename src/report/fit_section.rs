@@ -285,23 +285,48 @@ fn add_fit(sub: &mut Section, f: &FitReport, pressures_pa: &[f64]) {
         "T/K",
         "p/kPa",
         "deviation of p/%",
-        "studentized",
+        "internally studentized",
+        "externally studentized",
         "leverage",
         "Cook's distance",
+        "robust weight",
     ])
-    .caption("Points (flagged rows are outliers)");
+    .caption("Points (flagged rows are outliers; the outlier rule uses the externally studentized residual)");
     for (i, p) in f.points.iter().enumerate() {
+        let number = if p.number > 0 { p.number } else { i + 1 };
         pts.flagged_row(
             [
-                (i + 1).to_string(),
+                number.to_string(),
                 format!("{:.2}", p.t_k),
                 format!("{:.4}", p.p_pa / 1000.0),
                 format!("{:+.2}", p.rel_dev_pct),
                 format!("{:+.2}", p.studentized),
+                format!("{:+.2}", p.ext_studentized),
                 format!("{:.3}", p.leverage),
                 format!("{:.3}", p.cooks_distance),
+                match (p.robust_weight, p.robust_rejected) {
+                    (Some(w), true) => format!("{w:.3} (rejected)"),
+                    (Some(w), false) => format!("{w:.3}"),
+                    (None, _) => "-".into(),
+                },
             ],
             p.outlier.then_some(Severity::Warning),
+        );
+    }
+    for e in &f.excluded {
+        pts.flagged_row(
+            [
+                e.number.to_string(),
+                format!("{:.2}", e.t_k),
+                format!("{:.4}", e.p_pa / 1000.0),
+                format!("excluded ({})", e.by),
+                "-".into(),
+                "-".into(),
+                "-".into(),
+                "-".into(),
+                "-".into(),
+            ],
+            Some(Severity::Info),
         );
     }
     sub.table(pts);
