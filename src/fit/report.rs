@@ -115,8 +115,9 @@ pub struct PointReport {
     /// 1-based number in the data as given (excluded points keep their numbers).
     #[serde(default)]
     pub number: usize,
-    /// Line in the source file, when read from one.
-    #[serde(default, skip_serializing_if = "Option::is_none")]
+    /// Line (CSV) or data row (Parquet) in the source, for the text output; not
+    /// written, so a CSV and a Parquet copy of the same data give the same points.
+    #[serde(skip)]
     pub line: Option<u64>,
     /// Temperature, K.
     #[serde(deserialize_with = "nan_null::f64")]

@@ -778,9 +778,8 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
             "robust-rejected-point",
             Severity::Info,
             format!(
-                "Point {}{} ({:.2} K, {:.4} kPa, deviation {:+.2} %) was rejected by the robust loss (final weight {:.3}); the constants do not rest on it.",
+                "Point {} ({:.2} K, {:.4} kPa, deviation {:+.2} %) was rejected by the robust loss (final weight {:.3}); the constants do not rest on it.",
                 p.number,
-                p.line.map_or(String::new(), |l| format!(" (line {l})")),
                 p.t_k,
                 p.p_pa / 1000.0,
                 p.rel_dev_pct,
@@ -794,8 +793,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
                 "outlier-point",
                 w,
                 format!(
-                    "Point {n}{} ({:.2} K, {:.4} kPa) deviates {:+.2} % (externally studentized residual {:.1}); it was kept: the automatic rule only advises (see without_flagged). To leave it out of the fit, rerun with --exclude {n}.",
-                    p.line.map_or(String::new(), |l| format!(" (line {l})")),
+                    "Point {n} ({:.2} K, {:.4} kPa) deviates {:+.2} % (externally studentized residual {:.1}); it was kept: the automatic rule only advises (see without_flagged). To leave it out of the fit, rerun with --exclude {n}.",
                     p.t_k,
                     p.p_pa / 1000.0,
                     p.rel_dev_pct,
