@@ -42,7 +42,7 @@ fn table_b2_tn() -> Vec<(String, f64)> {
     let (name, tb, src) = (col("compound"), col("tb_k"), col("source"));
     rd.records()
         .map(|r| r.unwrap())
-        .filter(|r| r[src].contains("Table B.2, column tn"))
+        .filter(|r| r[src].contains("Table B.2") && r[src].contains("column tn"))
         .map(|r| (r[name].to_string(), r[tb].parse().unwrap()))
         .collect()
 }
