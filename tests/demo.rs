@@ -188,7 +188,39 @@ fn demo_writes_estimates_checked_table_and_plan_into_the_report_folder() {
         serde_json::from_str(&std::fs::read_to_string(out.join("plan-result.json")).unwrap())
             .unwrap();
     assert_eq!(plan["pressure_pa"].as_f64(), Some(2000.0));
-    assert!(plan["relative_volatility"].as_f64().unwrap() > 1.0);
+    // α worked by hand from the fitted constants in fits.json (Raoult's law:
+    // α = p_light/p_heavy at each key component's boiling point, geometric mean),
+    // not from the library's curves.
+    let fits: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(out.join("fits.json")).unwrap()).unwrap();
+    let p_pa = |name: &str, t_k: f64| -> f64 {
+        let f = fits
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|f| f["compound"] == name)
+            .unwrap_or_else(|| panic!("no fit for {name}"));
+        assert_eq!(f["model"], "antoine");
+        assert_eq!(f["convention"], "log10,mmHg,degC");
+        let k = |i: usize| f["parameters"][i]["value"].as_f64().unwrap();
+        // 1 mmHg = 133.322 387 415 Pa (NIST SP 811 App. B).
+        10f64.powf(k(0) - k(1) / (t_k - 273.15 + k(2))) * 133.322_387_415
+    };
+    let d = &plan["relative_volatility_detail"];
+    let (light, heavy) = (d["light"].as_str().unwrap(), d["heavy"].as_str().unwrap());
+    let (tl, th) = (
+        d["light_tb_k"].as_f64().unwrap(),
+        d["heavy_tb_k"].as_f64().unwrap(),
+    );
+    let near = |a: f64, b: f64| (a - b).abs() <= 1e-6 * b.abs();
+    assert!(near(p_pa(light, tl), 2000.0) && near(p_pa(heavy, th), 2000.0));
+    let alpha_l = p_pa(light, tl) / p_pa(heavy, tl);
+    let alpha_h = p_pa(light, th) / p_pa(heavy, th);
+    assert!(near(d["at_light_tb"].as_f64().unwrap(), alpha_l), "{d}");
+    assert!(near(d["at_heavy_tb"].as_f64().unwrap(), alpha_h), "{d}");
+    let alpha = plan["relative_volatility"].as_f64().unwrap();
+    assert!(near(alpha, (alpha_l * alpha_h).sqrt()), "α {alpha}");
+    assert!(alpha > 1.0);
     assert!(plan["verdict"]["code"].is_string());
     let html = std::fs::read_to_string(out.join("report.html")).unwrap();
     for h in [

@@ -158,37 +158,64 @@ fn every_bad_input_exits_2_naming_file_and_line_with_no_output() {
     }
 }
 
-#[test]
-fn bom_stdin_decimal_comma_and_duplicate_rows_are_accepted() {
-    let dir = scratch();
-    let mut bom = b"\xef\xbb\xbf".to_vec();
-    bom.extend_from_slice(toluene_csv(1.0).as_bytes());
-    std::fs::write(dir.path().join("bom.csv"), bom).unwrap();
-    assert!(run_in(dir.path(), &["fit", "bom.csv", "--format", "json"])
-        .status
-        .success());
-    let semi = toluene_csv(1.0).replace(',', ";").replace('.', ",");
-    std::fs::write(dir.path().join("semi.csv"), semi).unwrap();
-    let out = run_in(
-        dir.path(),
-        &["fit", "semi.csv", "--decimal-comma", "--format", "json"],
-    );
+/// The normal boiling point (K) a `--format json` fit printed.
+fn tb_of(out: &std::process::Output) -> f64 {
     assert!(
         out.status.success(),
         "{}",
         String::from_utf8_lossy(&out.stderr)
+    );
+    let j: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    j["normal_boiling_point_k"]["value"].as_f64().unwrap()
+}
+
+// Every accepted input form must read the same numbers as the plain CSV: the fit
+// of each gives the plain fit's boiling point (a reader that kept "7,888" as 7, or
+// dropped the first row with the byte-order mark, would not).
+#[test]
+fn bom_stdin_decimal_comma_and_duplicate_rows_read_the_same_numbers_as_plain_csv() {
+    let dir = scratch();
+    std::fs::write(dir.path().join("plain.csv"), toluene_csv(1.0)).unwrap();
+    let plain = tb_of(&run_in(
+        dir.path(),
+        &["fit", "plain.csv", "--format", "json"],
+    ));
+    let same = |what: &str, tb: f64| {
+        assert!(
+            (tb - plain).abs() < 1e-9,
+            "{what}: Tb {tb} K, plain CSV {plain} K"
+        );
+    };
+    let mut bom = b"\xef\xbb\xbf".to_vec();
+    bom.extend_from_slice(toluene_csv(1.0).as_bytes());
+    std::fs::write(dir.path().join("bom.csv"), bom).unwrap();
+    same(
+        "byte-order mark",
+        tb_of(&run_in(dir.path(), &["fit", "bom.csv", "--format", "json"])),
+    );
+    let semi = toluene_csv(1.0).replace(',', ";").replace('.', ",");
+    assert!(semi.contains(';') && semi.contains(','), "{semi}");
+    std::fs::write(dir.path().join("semi.csv"), semi).unwrap();
+    same(
+        "decimal comma",
+        tb_of(&run_in(
+            dir.path(),
+            &["fit", "semi.csv", "--decimal-comma", "--format", "json"],
+        )),
     );
     let mut dup = toluene_csv(1.0);
     dup.push_str(dup.clone().lines().last().unwrap());
     dup.push('\n');
     std::fs::write(dir.path().join("dup.csv"), dup).unwrap();
     let out = run_in(dir.path(), &["fit", "dup.csv", "--format", "json"]);
-    assert!(out.status.success());
     assert!(String::from_utf8_lossy(&out.stderr).contains("repeated-row"));
+    // A repeated row is kept (it weighs twice), so only close, not equal.
+    assert!((tb_of(&out) - plain).abs() < 0.05);
     let mut child = ebullio()
         .args(["fit", "-", "--format", "json"])
         .stdin(std::process::Stdio::piped())
         .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
         .spawn()
         .unwrap();
     use std::io::Write;
@@ -198,7 +225,7 @@ fn bom_stdin_decimal_comma_and_duplicate_rows_are_accepted() {
         .unwrap()
         .write_all(toluene_csv(1.0).as_bytes())
         .unwrap();
-    assert!(child.wait_with_output().unwrap().status.success());
+    same("stdin", tb_of(&child.wait_with_output().unwrap()));
 }
 
 /// Writes a Parquet file with the given columns (polars, as a user's pipeline would).

@@ -29,5 +29,6 @@ mod fuzz_regressions;
 mod iapws_if97;
 mod layers;
 mod mixture_dev_pairs;
+mod readme_examples;
 mod smiles_properties;
 mod strd;

@@ -140,3 +140,38 @@ pub fn hvap_kj_mol(sum: f64) -> f64 {
 pub fn hfus_kj_mol(sum: f64) -> f64 {
     -0.88 + sum
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn counts(list: &[(&str, u32)]) -> GroupCounts {
+        list.iter().map(|(id, n)| (id.to_string(), *n)).collect()
+    }
+
+    // Acetone, CH3–CO–CH3: 2 × −CH3 + 1 × >C=O (non-ring). Contributions of Joback &
+    // Reid (1987) as in reference-data/joback-groups.csv (ΔTb 23.58 and 76.75 K, ΔTc
+    // 0.0141 and 0.0380, ΔPc −0.0012 and 0.0031, ΔVc 65 and 62 cm³/mol), summed by hand.
+    #[test]
+    fn acetone_group_sums_by_hand() {
+        let s = sums(&counts(&[("ch3", 2), ("co_chain", 1)]));
+        let near = |a: Option<f64>, b: f64| (a.unwrap() - b).abs() < 1e-9;
+        assert!(near(s.tb, 2.0 * 23.58 + 76.75), "{:?}", s.tb);
+        assert!(near(s.tc, 2.0 * 0.0141 + 0.0380), "{:?}", s.tc);
+        assert!(near(s.pc, 2.0 * -0.0012 + 0.0031), "{:?}", s.pc);
+        assert!(near(s.vc, 2.0 * 65.0 + 62.0), "{:?}", s.vc);
+        // Tb = 198 + ΣΔTb = 321.91 K (Joback's estimate; measured 329.2 K).
+        assert!((tb_k(s.tb.unwrap()) - 321.91).abs() < 1e-9);
+        // C3H6O: three carbons and the oxygen are heavy atoms, six hydrogens.
+        assert_eq!(s.atoms, (4, 6));
+    }
+
+    // A group with no published ΔVc (=N− in a chain) leaves ΣΔVc unknown, not zero;
+    // the sums it has are still added.
+    #[test]
+    fn a_missing_contribution_makes_its_sum_unknown() {
+        let s = sums(&counts(&[("ch3", 1), ("eq_n_chain", 1)]));
+        assert_eq!(s.vc, None);
+        assert!((s.tb.unwrap() - (23.58 + 74.60)).abs() < 1e-9);
+    }
+}

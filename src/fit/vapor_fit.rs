@@ -998,7 +998,7 @@ mod tests {
         let r = fit_points(None, &synthetic(10, None), &FitOptions::default()).unwrap();
         let json = serde_json::to_string(&r).unwrap();
         let back: FitReport =
-            serde_json::from_str(&json.replace("NaN", "null")).unwrap_or(r.clone());
+            serde_json::from_str(&json.replace("NaN", "null")).expect("the report reads back");
         let c = FittedCurve::from_report(&back);
         let tb = r.normal_boiling_point_k.as_ref().unwrap();
         assert!((c.t_at(ATM_PA).unwrap() - tb.value).abs() < 1e-9);
@@ -1034,7 +1034,49 @@ mod tests {
         // NaN fields (residual SD of an unweighted fit) survive JSON as null
         let back: FitReport = serde_json::from_str(&serde_json::to_string(&r).unwrap()).unwrap();
         assert!(back.residual_sd_ln_p.is_nan());
-        let chi = r.reduced_chi_square.unwrap();
-        assert!(chi > 0.0 && chi < 10.0, "{chi}");
+        assert!(r.reduced_chi_square.unwrap() > 0.0);
+    }
+
+    // With scatter drawn at exactly the stated uncertainties, reduced chi-square
+    // follows χ²(ν)/ν with mean 1 (ν = n − 3): over 400 seeded sets of 10 points
+    // the mean must be 1 within 0.1 (its standard error is √(2/7)/20 = 0.027).
+    // Stated uncertainties that were mis-weighted (u(T) term dropped, u² for u,
+    // wrong dof) move it well outside.
+    #[test]
+    fn reduced_chi_square_averages_one_when_scatter_matches_the_stated_uncertainties() {
+        let mut state = 20261205u64;
+        let mut uniform = move || {
+            state = state.wrapping_add(0x9E37_79B9_7F4A_7C15);
+            let mut z = state;
+            z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
+            z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
+            ((z ^ (z >> 31)) >> 11) as f64 / (1u64 << 53) as f64
+        };
+        let mut normal = move || {
+            let u = uniform().max(1e-300);
+            (-2.0 * u.ln()).sqrt() * (2.0 * std::f64::consts::PI * uniform()).cos()
+        };
+        let (u_t, u_rel_p) = (0.05, 0.002);
+        let (sets, mut sum) = (400, 0.0);
+        for _ in 0..sets {
+            let pts: Vec<Point> = (0..10)
+                .map(|i| {
+                    let t_true = 310.0 + 6.0 * i as f64;
+                    let t = t_true + u_t * normal();
+                    let ln_p = 22.0 - 3500.0 / (t_true - 45.0) + u_rel_p * normal();
+                    Point {
+                        t_k: t,
+                        p_pa: ln_p.exp(),
+                        u_t_k: Some(u_t),
+                        u_p_pa: Some(u_rel_p * ln_p.exp()),
+                    }
+                })
+                .collect();
+            let r = fit_points(None, &pts, &FitOptions::default()).unwrap();
+            sum += r.reduced_chi_square.unwrap();
+        }
+        let mean = sum / sets as f64;
+        eprintln!("mean reduced chi-square over {sets} sets: {mean:.3}");
+        assert!((mean - 1.0).abs() < 0.1, "{mean}");
     }
 }

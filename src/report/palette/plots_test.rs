@@ -86,3 +86,32 @@ fn plan_plot_keeps_to_the_palette() {
 
 // The demo report and each command's `--report` are scanned the same way by the
 // integration tests (tests/demo.rs, tests/report.rs), which run the real binary.
+
+#[test]
+fn vle_plot_with_an_azeotrope_keeps_to_the_palette() {
+    use crate::mixture::{vle_study, Condition, StudyComponent, StudyOptions, Unifac};
+    // Ethanol and benzene (Smith, Van Ness & Abbott Table B.2 constants), UNIFAC:
+    // a minimum-boiling azeotrope, so the azeotrope marks are drawn too.
+    let etoh = antoine(16.8958, 3795.17, 230.918);
+    let bz = antoine(13.7819, 2726.81, 217.572);
+    let model = Unifac::from_smiles(["CCO", "c1ccccc1"]).unwrap();
+    let comp = |name, curve| StudyComponent {
+        name,
+        smiles: None,
+        source: "test",
+        curve,
+    };
+    let study = vle_study(
+        [comp("ethanol", &etoh), comp("benzene", &bz)],
+        &model,
+        &StudyOptions {
+            condition: Condition::Pressure(101_325.0),
+            points: 41,
+        },
+    )
+    .unwrap();
+    assert!(!study.azeotropes.is_empty(), "test needs an azeotrope");
+    let svg = crate::report::vle_plot::vle_svg(&study).unwrap();
+    assert_in_palette("vle plot", &svg);
+    assert_eq!(series_used(&svg), 2);
+}
