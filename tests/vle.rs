@@ -75,7 +75,7 @@ fn bad_input_exits_2_with_a_clear_message_and_writes_nothing() {
             "--pressure",
             "0.0001 Pa",
         ],
-        "below the low end of both vapor-pressure curves",
+        "100 Pa is outside the range of both vapor-pressure curves (water has no boiling point",
     );
     refused(
         &[
@@ -247,4 +247,37 @@ fn ideal_model_equals_the_raoult_plan() {
         let pt = b.bubble_t(x, 101_325.0).unwrap();
         assert_eq!(pt.alpha(), alpha_at(&light, &heavy, pt.t_k).unwrap());
     }
+}
+
+/// A structure the bundled reference knows takes the reference curve (water has
+/// no Joback estimate at all), and says so.
+#[test]
+fn smiles_in_the_reference_use_the_reference_curve() {
+    let out = ebullio()
+        .args([
+            "vle",
+            "--smiles",
+            "CCO ethanol",
+            "--smiles",
+            "O water",
+            "--format",
+            "json",
+        ])
+        .output()
+        .unwrap();
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let src = v["components"][1]["vapor_pressure_source"]
+        .as_str()
+        .unwrap();
+    assert!(
+        src.starts_with("reference, matched by structure to water: IAPWS-IF97"),
+        "{src}"
+    );
+    assert!(!src.contains("http"));
+    assert_eq!(v["azeotropes"][0]["kind"], "minimum-boiling");
 }

@@ -28,8 +28,10 @@ pub struct Args {
     /// A bundled reference compound by name, synonym or CAS number (repeatable).
     #[arg(long, value_name = "NAME")]
     pub compound: Vec<String>,
-    /// A component from structure (Joback boiling point, Lee–Kesler curve), a
-    /// name may follow after a space: "CC(=O)C acetone" (repeatable).
+    /// A component from structure, a name may follow after a space:
+    /// "CC(=O)C acetone" (repeatable). Its vapor pressure is the bundled
+    /// reference curve when the structure is in the reference, else the
+    /// structure estimate (Joback boiling point, Lee–Kesler curve).
     #[arg(long, value_name = "SMILES")]
     pub smiles: Vec<String>,
     /// Fixed pressure with its unit, e.g. "1 atm", "200 mbar" [default: 1 atm].
@@ -132,6 +134,23 @@ fn smiles_comp(text: &str) -> Result<Comp, InputError> {
     } else {
         rest.join(" ")
     };
+    // A structure the bundled reference knows gets its reference curve (the better source).
+    let lib = ebullio::reference::Library::bundled();
+    if let Ok(c) = lib.find_smiles(smiles) {
+        if let Some(curve) = c.best_curve() {
+            return Ok(Comp {
+                name,
+                smiles: Some(smiles.to_string()),
+                source: format!(
+                    "reference, matched by structure to {}: {} (u(p)/p = {:.1} %)",
+                    c.name,
+                    citation(&curve.source),
+                    100.0 * curve.u_p_rel
+                ),
+                curve: Box::new(curve),
+            });
+        }
+    }
     let e = ebullio::estimate::estimate_smiles(smiles)
         .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
     let curve = e.curve().ok_or_else(|| {

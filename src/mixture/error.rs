@@ -74,9 +74,9 @@ pub enum MixtureError {
         /// Temperature asked for.
         t_k: f64,
     },
-    /// A pressure at which neither component can be liquid.
-    #[error("{p_pa} Pa is below the low end of both vapor-pressure curves ({detail}): no liquid can be assumed there")]
-    BelowBothCurves {
+    /// A pressure at which neither component boils on its curve.
+    #[error("{} is outside the range of both vapor-pressure curves ({detail}): no boiling liquid can be assumed there", pressure_text(*.p_pa))]
+    OutsideBothCurves {
         /// The pressure asked for.
         p_pa: f64,
         /// Per-component detail.
@@ -98,4 +98,13 @@ pub enum MixtureError {
         /// Composition it was asked at.
         x: f64,
     },
+}
+
+/// A pressure for messages: plain pascals in the everyday range, powers of ten outside it.
+fn pressure_text(p_pa: f64) -> String {
+    if (0.01..1e9).contains(&p_pa) {
+        format!("{} Pa", (p_pa * 100.0).round() / 100.0)
+    } else {
+        format!("{p_pa:.3e} Pa")
+    }
 }

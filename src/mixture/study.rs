@@ -389,14 +389,14 @@ fn below_both(comps: &[StudyComponent<'_>; 2], p: f64) -> Result<(), MixtureErro
                 "{} would boil at {:.1} K, below its curve's low end {:.1} K",
                 c.name, t, lo
             )),
-            (None, Some(lo)) => detail.push(format!(
-                "{} has no boiling point there (curve starts at {:.1} K)",
-                c.name, lo
+            (None, _) => detail.push(format!(
+                "{} has no boiling point at that pressure on its curve",
+                c.name
             )),
             _ => return Ok(()),
         }
     }
-    Err(MixtureError::BelowBothCurves {
+    Err(MixtureError::OutsideBothCurves {
         p_pa: p,
         detail: detail.join("; "),
     })
