@@ -1,7 +1,7 @@
 //! SVG plot of several vapor-pressure curves, p (log scale) against t/°C, with a pressure line.
 //!
 //! Any [`Curve`] can be drawn: a fit, a published Antoine row, an estimate.
-//! Curve `i` takes series style `i` of the [`palette`](super::palette): colour,
+//! Curve `i` takes series style `i` of the [`palette`]: colour,
 //! line pattern and marker shape, so the figure survives greyscale printing. Measured points may be
 //! overlaid; a horizontal line marks a planned pressure (e.g. the vacuum).
 //!
