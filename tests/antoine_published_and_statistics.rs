@@ -13,6 +13,12 @@ fn published() -> Vec<(String, AntoineConstants, String)> {
         "/reference-data/antoine-published.csv"
     );
     let mut rd = csv::Reader::from_path(path).unwrap();
+    let source_col = rd
+        .headers()
+        .unwrap()
+        .iter()
+        .position(|h| h == "source")
+        .unwrap();
     let mut out = vec![];
     for rec in rd.records() {
         let r = rec.unwrap();
@@ -23,7 +29,7 @@ fn published() -> Vec<(String, AntoineConstants, String)> {
             continue;
         };
         let k = k.with_range_k(conv.t_unit.to_kelvin(lo), conv.t_unit.to_kelvin(hi));
-        out.push((r[0].to_string(), k, r[11].to_string()));
+        out.push((r[0].to_string(), k, r[source_col].to_string()));
     }
     out
 }
