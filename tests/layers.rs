@@ -29,7 +29,14 @@ const INPUT_OUTPUT: &[&str] = &["table_io", "report"];
 /// Application: the command line and the demo scenario (both in the binary).
 const APPLICATION: &[&str] = &["cli", "demo"];
 /// Crates only the application may use (the `cli` feature); polars lives in `table_io`.
-const APPLICATION_CRATES: &[&str] = &["clap", "anyhow", "indicatif", "ctrlc"];
+const APPLICATION_CRATES: &[&str] = &[
+    "clap",
+    "clap_complete",
+    "clap_mangen",
+    "anyhow",
+    "indicatif",
+    "ctrlc",
+];
 
 fn rs_files(dir: &Path, out: &mut Vec<PathBuf>) {
     for e in std::fs::read_dir(dir).unwrap() {

@@ -607,3 +607,225 @@ mod output_property {
         }
     }
 }
+
+#[test]
+fn check_takes_format_table_json_and_csv() {
+    let sheet = crate::support::repo("examples/harrow-vale-solvent-sheet.csv");
+    let s = sheet.to_str().unwrap();
+    let o = ebullio()
+        .args(["check", s, "--format", "json"])
+        .output()
+        .unwrap();
+    assert!(o.status.code().is_some_and(|c| c <= 1), "{}", stderr(&o));
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert_eq!(v["summary"]["rows"], 5);
+    let rows = v["flagged_rows"].as_array().unwrap();
+    let toluene = rows
+        .iter()
+        .find(|r| r["line"] == 3)
+        .expect("line 3 flagged");
+    assert!(
+        toluene["findings"]
+            .to_string()
+            .contains("slip-pressure-unit"),
+        "{toluene}"
+    );
+    let o = ebullio()
+        .args(["check", s, "--format", "table"])
+        .output()
+        .unwrap();
+    let t = String::from_utf8_lossy(&o.stdout);
+    assert!(t.starts_with("checked 5 rows: 4 flagged"), "{t}");
+    let o = ebullio()
+        .args(["check", s, "--format", "csv"])
+        .output()
+        .unwrap();
+    let t = String::from_utf8_lossy(&o.stdout);
+    assert!(
+        t.lines()
+            .next()
+            .unwrap()
+            .ends_with("flags,severity,diagnosis"),
+        "{t}"
+    );
+}
+
+#[test]
+fn check_an_unreadable_convention_cell_is_an_error_on_its_row_only() {
+    let dir = scratch();
+    let f = write(
+        dir.path(),
+        "conv.csv",
+        "compound,Tb/K,A,B,C,convention\ntoluene,383.75,13.9320,3056.96,217.625,\"ln,kPa,degC\"\nbenzene,353.15,13.7819,2726.81,217.572,\"ln,furlong,degC\"\n",
+    );
+    let o = ebullio()
+        .args(["check", f.to_str().unwrap()])
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(0));
+    let t = String::from_utf8_lossy(&o.stdout);
+    let lines: Vec<&str> = t.lines().collect();
+    assert!(
+        lines[1].ends_with(",\"\",\"\",\"\""),
+        "toluene still checked clean: {t}"
+    );
+    assert!(
+        lines[2].contains("unreadable-cell") && lines[2].contains("not an Antoine convention"),
+        "{t}"
+    );
+}
+
+#[test]
+fn convert_to_wagner_names_its_option_and_shows_the_critical_point_and_form() {
+    // Toluene, Smith, Van Ness & Abbott App. B Table B.2 (35–111 °C); critical point
+    // 591.8 K, 41.1 bar (Poling, Prausnitz & O'Connell, App. A, from memory).
+    let base = [
+        "convert",
+        "--antoine",
+        "13.9320,3056.96,217.625",
+        "--constants",
+        "ln,kPa,degC",
+        "--range",
+        "35 degC..111 degC",
+        "--model",
+        "wagner",
+    ];
+    let o = ebullio().args(base).output().unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    let e = stderr(&o);
+    assert!(e.contains("--critical") && !e.contains("--tc"), "{e}");
+    let mut args = base.to_vec();
+    args.extend(["--critical", "591.8 K,41.1 bar"]);
+    let v = json(&args);
+    assert_eq!(v["tc_k"].as_f64().unwrap(), 591.8);
+    assert_eq!(v["pc_pa"].as_f64().unwrap(), 4.11e6);
+    assert!(v["equation"].as_str().unwrap().contains("tau^1.5"), "{v}");
+    let o = ebullio()
+        .args(&args)
+        .args(["--format", "table"])
+        .output()
+        .unwrap();
+    let t = String::from_utf8_lossy(&o.stdout);
+    assert!(
+        t.contains("Tc = 591.8 K, pc = 41.1 bar") && t.contains("ln(p/pc)"),
+        "{t}"
+    );
+}
+
+#[test]
+fn estimate_input_takes_decimal_comma_files_and_hints_at_semicolons() {
+    let dir = scratch();
+    let f = write(
+        dir.path(),
+        "s.csv",
+        "compound;smiles\nethanol;CCO\nHV-12;CCCCO\n",
+    );
+    let o = ebullio()
+        .args([
+            "estimate",
+            "--input",
+            f.to_str().unwrap(),
+            "--format",
+            "json",
+        ])
+        .output()
+        .unwrap();
+    assert_eq!(o.status.code(), Some(2));
+    assert!(stderr(&o).contains("--decimal-comma"), "{}", stderr(&o));
+    let v = json(&[
+        "estimate",
+        "--input",
+        f.to_str().unwrap(),
+        "--decimal-comma",
+    ]);
+    let rows = v.as_array().unwrap();
+    assert_eq!(rows.len(), 2);
+    assert_eq!(rows[0]["compound"], "ethanol");
+}
+
+#[test]
+fn plan_on_a_wide_alpha_interval_says_the_data_cannot_decide_and_names_the_variant() {
+    // Two invented structures 8 K apart by estimate: each estimate's error is
+    // many kelvin, so α's interval spans "no separation".
+    let v = json(&[
+        "plan",
+        "--smiles",
+        "CCCCCCCCCCCCO HV-1",
+        "--smiles",
+        "CCCCCCCCCCCCCO HV-2",
+    ]);
+    let lo = v["relative_volatility_detail"]["ci95_low"]
+        .as_f64()
+        .unwrap();
+    let hi = v["relative_volatility_detail"]["ci95_high"]
+        .as_f64()
+        .unwrap();
+    let msg = v["verdict"]["message"].as_str().unwrap();
+    if lo <= 1.0 || hi / lo > 3.0 {
+        assert!(msg.starts_with("The data cannot decide"), "{msg}");
+        assert!(msg.contains(&format!("{lo:.2}–{hi:.2}")), "{msg}");
+    }
+    assert!(
+        lo <= 1.0 || hi / lo > 3.0,
+        "the test needs a wide interval: {lo}–{hi}"
+    );
+    // The source names the estimate variant actually used (here Stein–Brown,
+    // as `estimate` reports for this structure).
+    let src = v["components"][0]["source"].as_str().unwrap();
+    let e = json(&["estimate", "--smiles", "CCCCCCCCCCCCO"]);
+    assert_eq!(e["tb_variant"], "stein-brown");
+    assert!(src.contains("Stein–Brown normal boiling point"), "{src}");
+    assert!(!src.contains("Joback"), "{src}");
+}
+
+#[test]
+fn demo_summary_says_when_it_truncates() {
+    let dir = scratch();
+    let out = dir.path().join("demo");
+    let o = ebullio()
+        .args(["demo", "--output", out.to_str().unwrap()])
+        .output()
+        .unwrap();
+    ok(&o);
+    let t = String::from_utf8_lossy(&o.stdout);
+    let fits: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(out.join("fits.json")).unwrap()).unwrap();
+    let _ = fits;
+    if t.contains("more warning(s) or error(s)") || t.contains("more flagged row(s)") {
+        assert!(t.contains("see report.html"), "{t}");
+    }
+    assert!(
+        t.contains("more warning(s) or error(s); see report.html")
+            || t.contains("more flagged row(s); see report.html"),
+        "the demo has more findings than its summary lists: {t}"
+    );
+}
+
+#[test]
+fn completions_and_man_pages_come_from_the_clap_definitions() {
+    let run = |args: &[&str]| {
+        let o = ebullio().args(args).output().unwrap();
+        ok(&o);
+        String::from_utf8_lossy(&o.stdout).into_owned()
+    };
+    let bash = run(&["completions", "bash"]);
+    assert!(
+        bash.contains("_ebullio") && bash.contains("--exclude"),
+        "bash"
+    );
+    assert!(run(&["completions", "zsh"]).starts_with("#compdef ebullio"));
+    let fish = run(&["completions", "fish"]);
+    assert!(fish.contains("complete -c ebullio") && fish.contains("barometric"));
+    let man = run(&["man"]);
+    assert!(
+        man.contains(".TH ebullio") && man.contains("completions"),
+        "man"
+    );
+    let fit = run(&["man", "fit"]);
+    assert!(
+        fit.contains("ebullio\\-fit") && fit.contains("exclude"),
+        "{fit}"
+    );
+    let o = ebullio().args(["man", "nonesuch"]).output().unwrap();
+    assert_eq!(o.status.code(), Some(2));
+}

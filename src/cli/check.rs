@@ -34,9 +34,15 @@ pub struct Args {
     /// Exit with code 1 when any finding is at or above this severity.
     #[arg(long, value_enum, value_name = "SEVERITY")]
     pub fail_on: Option<FailOn>,
-    /// Write the checked table to FILE (.csv or .parquet), atomically; default stdout (CSV).
+    /// Write the result to FILE, atomically: the checked table (.csv or .parquet) with
+    /// --format csv (the default), else the JSON document or the summary table.
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<PathBuf>,
+    /// csv (default): the table back with flags, severity, diagnosis (summary on
+    /// stderr); json: the summary and every flagged row with its findings; table:
+    /// the summary as text.
+    #[arg(long, value_enum)]
+    pub format: Option<super::common::Format>,
     /// Rows listed in the summary.
     #[arg(long, value_name = "N", default_value_t = 10)]
     pub worst: usize,
@@ -142,24 +148,59 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     )
     .map_err(|e| InputError(e.to_string()))?;
     let summary = report.summary(&table, args.worst);
-    match &args.output {
-        Some(p) => {
-            let mut inputs = vec![args.table.as_path()];
-            if let Some(r) = &args.reference_table {
-                inputs.push(r.as_path());
+    let format = args.format.unwrap_or(super::common::Format::Csv);
+    if format != super::common::Format::Csv {
+        let text = if format == super::common::Format::Json {
+            let rows: Vec<serde_json::Value> = (0..report.len())
+                .filter(|&i| !report.findings(i).is_empty())
+                .map(|i| {
+                    serde_json::json!({
+                        "line": report.line(i),
+                        "severity": report.severity(i).map(|s| s.to_string()),
+                        "findings": report.findings(i).iter().map(|f| serde_json::json!({
+                            "code": f.code.as_str(),
+                            "severity": f.severity.to_string(),
+                            "message": f.message,
+                        })).collect::<Vec<_>>(),
+                    })
+                })
+                .collect();
+            super::common::json_text(&serde_json::json!({
+                "table": args.table.display().to_string(),
+                "tolerance_k": args.tolerance,
+                "summary": &summary,
+                "flagged_rows": rows,
+            }))? + "\n"
+        } else {
+            summary.to_string()
+        };
+        let out = super::common::OutputArgs {
+            format: Some(format),
+            output: args.output.clone(),
+        };
+        let mut inputs = vec![args.table.as_path()];
+        inputs.extend(args.reference_table.as_deref());
+        out.emit(&text, &inputs)?;
+    } else {
+        match &args.output {
+            Some(p) => {
+                let mut inputs = vec![args.table.as_path()];
+                if let Some(r) = &args.reference_table {
+                    inputs.push(r.as_path());
+                }
+                super::common::write_file_atomic(p, &inputs, |w| {
+                    write_frame(checked, parquet, w, p).map_err(std::io::Error::other)
+                })?;
             }
-            super::common::write_file_atomic(p, &inputs, |w| {
-                write_frame(checked, parquet, w, p).map_err(std::io::Error::other)
-            })?;
+            None => {
+                let mut bytes = Vec::new();
+                write_frame(checked, false, &mut bytes, &out_name)
+                    .map_err(|e| InputError(e.to_string()))?;
+                super::common::print_stdout(&String::from_utf8_lossy(&bytes))?
+            }
         }
-        None => {
-            let mut bytes = Vec::new();
-            write_frame(checked, false, &mut bytes, &out_name)
-                .map_err(|e| InputError(e.to_string()))?;
-            super::common::print_stdout(&String::from_utf8_lossy(&bytes))?
-        }
+        let _ = write!(std::io::stderr(), "{summary}");
     }
-    let _ = write!(std::io::stderr(), "{summary}");
     if let Some(path) = &args.report {
         let html = ebullio::report::check_section::check_report(
             &args.table.display().to_string(),

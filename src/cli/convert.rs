@@ -78,6 +78,14 @@ pub fn parse_abc(s: &str) -> Result<[f64; 3], InputError> {
 #[derive(serde::Serialize)]
 struct Refitted {
     model: String,
+    /// The equation the parameters belong to, written out.
+    equation: &'static str,
+    /// Critical temperature used (Wagner), K.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    tc_k: Option<f64>,
+    /// Critical pressure used (Wagner), Pa.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pc_pa: Option<f64>,
     parameters: Vec<Param>,
     convention: String,
     exact: bool,
@@ -89,6 +97,18 @@ struct Refitted {
 struct Param {
     name: String,
     value: f64,
+}
+
+/// The equation form a refit reports its parameters in (SI: T in K, p in Pa).
+fn equation_form(model: ModelSelection) -> &'static str {
+    match model {
+        ModelSelection::Clapeyron => "ln(p/Pa) = A - B/(T/K)",
+        ModelSelection::Riedel => "ln(p/Pa) = A + B/(T/K) + C ln(T/K) + D (T/K)^6",
+        ModelSelection::Wagner => {
+            "ln(p/pc) = (Tc/T) (A tau + B tau^1.5 + C tau^2.5 + D tau^5), tau = 1 - T/Tc"
+        }
+        ModelSelection::Antoine | ModelSelection::Auto => "Antoine, in the stated convention",
+    }
 }
 
 fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow::Result<Outcome> {
@@ -114,11 +134,20 @@ fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow:
             let p = parse_pressure(p).map_err(|e| InputError(format!("--critical: {e}")))?;
             Some((t.kelvin(), p.pa()))
         }
+        None if model == ModelSelection::Wagner => {
+            return Err(InputError(
+                "--model wagner needs the critical point: --critical \"Tc,pc\" with units, e.g. --critical \"591.8 K,41.1 bar\"".into(),
+            )
+            .into())
+        }
         None => None,
     };
     let r = refit(&k, model, critical).map_err(|e| InputError(e.to_string()))?;
     let out = Refitted {
         model: r.model.clone(),
+        equation: equation_form(model),
+        tc_k: critical.map(|c| c.0),
+        pc_pa: critical.map(|c| c.1),
         parameters: r
             .parameters
             .iter()
@@ -146,9 +175,16 @@ fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow:
         }
         Format::Table => {
             let mut s = format!(
-                "{} constants ({}), refitted over {:.2}-{:.2} K (not exact)\n",
-                out.model, out.convention, out.range_k.0, out.range_k.1
+                "{} constants ({}), refitted over {:.2}-{:.2} K (not exact)\n  {}\n",
+                out.model, out.convention, out.range_k.0, out.range_k.1, out.equation
             );
+            if let (Some(tc), Some(pc)) = (out.tc_k, out.pc_pa) {
+                s.push_str(&format!(
+                    "  with Tc = {} K, pc = {} bar (as given)\n",
+                    ebullio::units::tidy(tc),
+                    ebullio::units::tidy(pc / 1e5)
+                ));
+            }
             for p in &out.parameters {
                 s.push_str(&format!("  {} = {}\n", p.name, p.value));
             }

@@ -8,7 +8,7 @@ use ebullio::estimate::batch::EstimateRow as Row;
 use ebullio::estimate::{
     calibration, estimate_groups, estimate_smiles, group, parse_groups, Estimate, EstimateError,
 };
-use ebullio::table_io::read_text_table;
+use ebullio::table_io::read_text_table_with;
 use ebullio::units::{parse_temperature, PressureUnit};
 use rayon::prelude::*;
 use std::io::IsTerminal;
@@ -29,6 +29,9 @@ pub struct Args {
     /// A CSV or Parquet table of structures (one estimate per row; a `compound` or `name` column is carried through).
     #[arg(long, value_name = "FILE")]
     pub input: Option<PathBuf>,
+    /// --input is semicolon-separated with decimal commas.
+    #[arg(long)]
+    pub decimal_comma: bool,
     /// Column of --input that holds the SMILES.
     #[arg(long, value_name = "NAME", default_value = "smiles")]
     pub smiles_column: String,
@@ -80,7 +83,7 @@ fn read_jobs(args: &Args) -> anyhow::Result<Vec<Job>> {
         })
         .collect();
     if let Some(path) = &args.input {
-        let table = read_text_table(path)?;
+        let table = read_text_table_with(path, args.decimal_comma)?;
         let col = table.require_column(
             &args.smiles_column,
             "choose the structure column with --smiles-column",

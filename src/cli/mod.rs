@@ -9,6 +9,7 @@ mod common;
 
 mod boil;
 mod check;
+mod completions;
 mod convert;
 mod demo;
 mod estimate;
@@ -51,6 +52,8 @@ enum Command {
     Reference(reference::Args),
     Vle(vle::Args),
     Demo(demo::Args),
+    Completions(completions::CompletionsArgs),
+    Man(completions::ManArgs),
 }
 
 /// Parse arguments, run, map the outcome to an exit code.
@@ -81,6 +84,8 @@ pub fn main() -> ExitCode {
         Command::Reference(a) => reference::run(a),
         Command::Vle(a) => vle::run(a),
         Command::Demo(a) => demo::run(a),
+        Command::Completions(a) => completions::completions(a),
+        Command::Man(a) => completions::man(a),
     };
     common::exit_code(result)
 }

@@ -198,11 +198,26 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
         name,
         Box::new(curve),
         format!(
-            "structure estimate from SMILES {smiles} (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
-            e.tb_k, e.tb_typical_error_k
+            "structure estimate from SMILES {smiles} ({} normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+            variant_words(e.tb_variant, e.tb_joback_k),
+            e.tb_k,
+            e.tb_typical_error_k
         ),
     )
     .with_smiles(smiles))
+}
+
+/// The estimate variant actually used for this Tb, in words.
+fn variant_words(v: ebullio::estimate::TbVariant, joback_tb_k: f64) -> &'static str {
+    use ebullio::estimate::TbVariant;
+    match v {
+        TbVariant::Joback => "Joback",
+        TbVariant::SteinBrown => "Stein–Brown",
+        TbVariant::JobackThenSteinBrown if joback_tb_k < ebullio::estimate::interval::SWITCH_K => {
+            "Joback (below 500 K)"
+        }
+        TbVariant::JobackThenSteinBrown => "Stein–Brown (above 500 K)",
+    }
 }
 
 /// The components in one fit result file.

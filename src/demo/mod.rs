@@ -495,12 +495,24 @@ pub fn summary(run: &DemoRun) -> String {
     let mut f: Vec<Finding> = fit_section::fit_findings(&run.fits);
     f.extend(estimate_section::estimate_findings(&run.estimates));
     f.sort_by_key(|x| std::cmp::Reverse(x.severity));
-    for x in f.iter().filter(|x| x.severity >= Severity::Warning).take(6) {
+    // The terminal gets the first few; the report has them all, and says so.
+    const SHOWN: usize = 6;
+    let serious: Vec<&Finding> = f
+        .iter()
+        .filter(|x| x.severity >= Severity::Warning)
+        .collect();
+    for x in serious.iter().take(SHOWN) {
         s.push_str(&format!(
             "  [{}] {}: {}\n",
             x.severity.as_str(),
             x.subject,
             x.message
+        ));
+    }
+    if serious.len() > SHOWN {
+        s.push_str(&format!(
+            "  ... and {} more warning(s) or error(s); see report.html\n",
+            serious.len() - SHOWN
         ));
     }
     #[cfg(feature = "tables")]
@@ -512,6 +524,12 @@ pub fn summary(run: &DemoRun) -> String {
         ));
         for w in &sum.worst {
             s.push_str(&format!("  [{}] {}: {}\n", w.severity, w.label, w.flags));
+        }
+        if sum.rows_flagged > sum.worst.len() {
+            s.push_str(&format!(
+                "  ... and {} more flagged row(s); see report.html\n",
+                sum.rows_flagged - sum.worst.len()
+            ));
         }
     }
     if let Some(p) = &run.plan {

@@ -108,7 +108,7 @@ fn equation_for(sel: ModelSelection, opts: &FitOptions) -> Result<Equation, FitE
         ModelSelection::Riedel => Equation::Riedel(Riedel),
         ModelSelection::Wagner => {
             let (tc_k, pc_pa) = opts.critical.ok_or_else(|| {
-                FitError::Critical("the Wagner equation needs --tc and --pc".into())
+                FitError::Critical("the Wagner equation needs the critical temperature and pressure (fit: --tc and --pc; convert: --critical)".into())
             })?;
             if !(tc_k > 0.0 && pc_pa > 0.0 && tc_k.is_finite() && pc_pa.is_finite()) {
                 return Err(FitError::Critical(format!(

@@ -543,12 +543,14 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     };
 
     // 9. Verdict: with a liquid model the curve's own figures decide.
+    /// Above this ratio of the α interval's ends the data cannot decide.
+    const WIDE_ALPHA_RATIO: f64 = 3.0;
     let (v_alpha, v_n_min) = match (&column, ideal_model) {
         (Some(c), false) => ((c.alpha_low * c.alpha_high).sqrt(), Some(c.min_stages)),
         _ => (alpha, n_min),
     };
     let cut = ray.as_ref().and_then(|r| r.cut_to_bottoms_target);
-    let verdict = verdict::decide(&VerdictInputs {
+    let mut verdict = verdict::decide(&VerdictInputs {
         alpha: v_alpha,
         n_min: v_n_min,
         delta_tb_k: kv.delta_tb_k,
@@ -561,6 +563,20 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         }),
         barrier: barrier.as_ref(),
     });
+    // An α interval that spans "no separation" or a factor of three cannot
+    // carry a verdict: say so first, with the interval (common practice).
+    let (alo, ahi) = (detail.ci95_low, detail.ci95_high);
+    if alo <= 1.0 || ahi / alo > WIDE_ALPHA_RATIO {
+        verdict.message = format!(
+            "The data cannot decide: the 95 % interval of the relative volatility is {alo:.2}–{ahi:.2}{}, so the verdict below rests on the central value {alpha:.2} alone; firm up the vapor-pressure data first. Provisional: {}",
+            if alo <= 1.0 {
+                ", which includes no separation at all (α ≤ 1)"
+            } else {
+                ""
+            },
+            verdict.message
+        );
+    }
     if verdict.rule_of_thumb.code != verdict.code
         && verdict.code != verdict::VerdictCode::BeyondAzeotrope
     {

@@ -29,6 +29,11 @@ impl ScreenReport {
         self.findings.is_empty()
     }
 
+    /// Line in the input of row `i` (0 when unknown).
+    pub fn line(&self, i: usize) -> usize {
+        self.lines.get(i).copied().unwrap_or(0)
+    }
+
     /// Findings of row `i`.
     pub fn findings(&self, i: usize) -> &[Finding] {
         self.findings.get(i).map(Vec::as_slice).unwrap_or(&[])

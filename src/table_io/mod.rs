@@ -29,4 +29,4 @@ pub use measured::{
     fit_set, read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet,
     ReadOptions, ReadWarning,
 };
-pub use text_table::{read_text_table, TextRow, TextTable};
+pub use text_table::{read_text_table, read_text_table_with, TextRow, TextTable};

@@ -71,15 +71,35 @@ impl TextTable {
 /// assert_eq!(bad.line, Some(4));
 /// ```
 pub fn read_text_table(path: &Path) -> Result<TextTable, ReadError> {
+    read_text_table_with(path, false)
+}
+
+/// [`read_text_table`] for a CSV that may be semicolon-separated with decimal commas
+/// (`decimal_comma`, the `--decimal-comma` of every command): cells that are numbers
+/// written with a decimal comma come back with a point. Without it, a header separated
+/// by semicolons only is refused with that hint, as `fit` does.
+pub fn read_text_table_with(path: &Path, decimal_comma: bool) -> Result<TextTable, ReadError> {
     let bytes = read_bytes(path)?;
     match detect_format(path, &bytes) {
-        TableFormat::Csv => read_csv(path, &bytes),
+        TableFormat::Csv => read_csv(path, &bytes, decimal_comma),
         TableFormat::Parquet => read_parquet(path, &bytes),
     }
 }
 
-fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
+fn read_csv(path: &Path, bytes: &[u8], decimal_comma: bool) -> Result<TextTable, ReadError> {
     let body = bytes.strip_prefix(b"\xEF\xBB\xBF").unwrap_or(bytes);
+    let first = body
+        .split(|&b| b == b'\n')
+        .find(|l| !l.iter().all(u8::is_ascii_whitespace) && !l.starts_with(b"#"))
+        .unwrap_or_default();
+    if !decimal_comma && first.contains(&b';') && !first.contains(&b',') {
+        return Err(ReadError::file(
+            path,
+            ReadErrorKind::CsvSyntax,
+            "the columns are separated by semicolons (a decimal-comma file?); use --decimal-comma",
+        )
+        .at_line(1, Locus::Line));
+    }
     if body.iter().all(u8::is_ascii_whitespace) {
         return Err(ReadError::file(
             path,
@@ -91,6 +111,7 @@ fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
         .has_headers(false)
         .flexible(true)
         .comment(Some(b'#'))
+        .delimiter(if decimal_comma { b';' } else { b',' })
         .from_reader(body);
     let mut headers: Option<Vec<String>> = None;
     let mut rows = Vec::new();
@@ -147,7 +168,17 @@ fn read_csv(path: &Path, bytes: &[u8]) -> Result<TextTable, ReadError> {
         if rec.iter().all(|c| c.iter().all(u8::is_ascii_whitespace)) {
             continue;
         }
-        let cells = decode_record(path, line, &rec, headers.as_deref());
+        let mut cells = decode_record(path, line, &rec, headers.as_deref());
+        if decimal_comma && headers.is_some() {
+            if let Ok(c) = cells.as_mut() {
+                for cell in c.iter_mut() {
+                    let dotted = cell.replace(',', ".");
+                    if cell.contains(',') && dotted.parse::<f64>().is_ok() {
+                        *cell = dotted;
+                    }
+                }
+            }
+        }
         match &headers {
             None => headers = Some(cells?),
             Some(_) => rows.push(TextRow {
