@@ -199,7 +199,7 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
         Box::new(curve),
         format!(
             "structure estimate from SMILES {smiles} ({} normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
-            variant_words(e.tb_variant, e.tb_joback_k),
+            variant_words(e.tb_variant),
             e.tb_k,
             e.tb_typical_error_k
         ),
@@ -208,15 +208,17 @@ fn smiles_component(text: &str) -> Result<Component, InputError> {
 }
 
 /// The estimate variant actually used for this Tb, in words.
-fn variant_words(v: ebullio::estimate::TbVariant, joback_tb_k: f64) -> &'static str {
+fn variant_words(v: ebullio::estimate::TbVariant) -> &'static str {
     use ebullio::estimate::TbVariant;
     match v {
         TbVariant::Joback => "Joback",
         TbVariant::SteinBrown => "Stein–Brown",
-        TbVariant::JobackThenSteinBrown if joback_tb_k < ebullio::estimate::interval::SWITCH_K => {
-            "Joback (below 500 K)"
-        }
-        TbVariant::JobackThenSteinBrown => "Stein–Brown (above 500 K)",
+        TbVariant::JobackGroupsRefitLog => "Joback-group (refitted, log form)",
+        TbVariant::JobackGroupsRefitSteinBrown => "Joback-group (refitted, Stein–Brown form)",
+        TbVariant::ExtendedGroupsLog => "extended-group (log form)",
+        TbVariant::ExtendedGroupsSteinBrown => "extended-group (Stein–Brown form)",
+        #[allow(unreachable_patterns)]
+        other => other.name(),
     }
 }
 
