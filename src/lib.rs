@@ -11,7 +11,8 @@
 //! its own layer or an inner one (checked by `tests/layers.rs`, run by `cargo test`):
 //!
 //! 1. **Domain** — `units`, `vapor`, `fit`, `molecule`, `estimate`, `reference`
-//!    (data model), `screen`, `plan`, `mixture`, and `boiling`, `refit`, `severity`:
+//!    (data model), `screen`, `plan`, `mixture`, and `finding` (the one outcome
+//!    vocabulary), `boiling`, `refit`, `severity`:
 //!    numerics and data models, SI inside (K, Pa, ln p), no files, no polars, no
 //!    command line.
 //! 2. **Input/output** — `table_io` (every file read or written, polars behind the
@@ -33,6 +34,7 @@
 
 pub mod boiling;
 pub mod estimate;
+pub mod finding;
 pub mod fit;
 pub mod mixture;
 pub mod molecule;

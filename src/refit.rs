@@ -92,13 +92,13 @@ pub fn refit(
         })
         .fold(0.0f64, f64::max);
     Ok(Refit {
-        model: report.model.clone(),
+        model: report.model.to_string(),
         parameters: report
             .parameters
             .iter()
             .map(|p| (p.name.clone(), p.value))
             .collect(),
-        convention: report.convention.clone(),
+        convention: report.convention.to_string(),
         range_k: (lo, hi),
         max_rel_dev_pct: 100.0 * max,
         report: Box::new(report),

@@ -29,8 +29,11 @@ fn within(limit: std::time::Duration, f: impl FnOnce() + Send + 'static) {
 /// parameters are finite when it says it converged.
 fn assert_fit_contract(points: &[Point], opts: &FitOptions) {
     if let Ok(r) = fit_points(None, points, opts) {
-        assert!(!r.termination.reason.is_empty(), "no termination reason");
-        if r.termination.converged {
+        assert!(
+            !r.termination.reason.to_string().is_empty(),
+            "no termination reason"
+        );
+        if r.termination.is_success() {
             assert!(
                 r.si_parameters.iter().all(|v| v.is_finite()),
                 "converged with non-finite parameters {:?}",

@@ -12,6 +12,7 @@ use std::path::{Path, PathBuf};
 /// Domain: numerics and data models, SI inside. Add a new domain module here.
 const DOMAIN: &[&str] = &[
     "units",
+    "finding",
     "vapor",
     "fit",
     "molecule",

@@ -304,8 +304,8 @@ fn run(name: &str, start: usize) -> Result<(f64, f64), String> {
     };
     let sigma = vec![1.0; p.ys.len()];
     let r = solve(&p, &sigma, s0, Settings::default());
-    if !r.termination.converged {
-        return Err(r.termination.reason);
+    if !r.termination.is_success() {
+        return Err(r.termination.reason.to_string());
     }
     let se = r.std_errors().ok_or("singular Jacobian")?;
     let dp = (0..p.n)

@@ -40,8 +40,8 @@ fuzz_target!(|input: Input| {
         ..FitOptions::default()
     };
     if let Ok(r) = fit_points(None, &points, &opts) {
-        assert!(!r.termination.reason.is_empty(), "no termination reason");
-        if r.termination.converged {
+        assert!(!r.termination.reason.to_string().is_empty(), "no termination reason");
+        if r.termination.is_success() {
             assert!(
                 r.si_parameters.iter().all(|v| v.is_finite()),
                 "converged with non-finite parameters {:?}",

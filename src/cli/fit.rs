@@ -4,7 +4,9 @@ use super::common::{parse_pressure, parse_quantity};
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::fit::{At, Exclude, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
+use ebullio::fit::{
+    At, Exclude, FitError, FitOptions, FitReport, ModelSelection, PredictionKind, RobustLoss,
+};
 use ebullio::table_io::{fit_set, read_measured, ReadOptions};
 use ebullio::units::{parse_temperature, PressureUnit, Quantity, TemperatureUnit};
 use ebullio::vapor::AntoineConvention;
@@ -397,8 +399,8 @@ fn csv_rows(rows: &[Row]) -> anyhow::Result<String> {
                 let codes: Vec<&str> = rep.flags.iter().map(|x| x.code.as_str()).collect();
                 w.write_record([
                     rep.compound.clone().unwrap_or_default(),
-                    rep.model.clone(),
-                    rep.convention.clone(),
+                    rep.model.to_string(),
+                    rep.convention.to_string(),
                     p(0),
                     p(1),
                     p(2),
@@ -474,7 +476,7 @@ fn table(r: &Row, (tu, pu): (TemperatureUnit, PressureUnit)) -> String {
         t(rep.t_range_k[0]),
         t(rep.t_range_k[1]),
         rep.weighting,
-        if rep.termination.converged {
+        if rep.termination.is_success() {
             "converged"
         } else {
             "NOT CONVERGED"
@@ -514,7 +516,7 @@ fn table(r: &Row, (tu, pu): (TemperatureUnit, PressureUnit)) -> String {
         } else {
             String::new()
         };
-        if q.kind == "t_at_p" {
+        if q.kind == PredictionKind::TAtP {
             s += &format!(
                 "  at {}: t = {}, 95 % CI [{}, {}]{ext}\n",
                 p(q.p_pa),
@@ -592,11 +594,8 @@ fn table(r: &Row, (tu, pu): (TemperatureUnit, PressureUnit)) -> String {
     }
     s += "  (int.stud. = internally studentized residual; ext.stud. = externally studentized, which the outlier rule uses)\n";
     if let (Some(tb), Some(v)) = (&rep.normal_boiling_point_k, &rep.reference_comparison) {
-        let est = v.get("structure_tb_k").and_then(|x| x.as_array());
-        let pi = v.get("structure_tb_pi90_k").and_then(|x| x.as_array());
-        if let (Some(est), Some(pi)) = (est, pi) {
-            let f = |a: &Vec<serde_json::Value>, i: usize| a.get(i).and_then(|x| x.as_f64());
-            if let (Some(e), Some(lo), Some(hi)) = (f(est, 0), f(pi, 0), f(pi, 1)) {
+        if let (Some((e, _)), Some((lo, hi, _))) = (v.structure_tb_k, v.structure_tb_pi90_k) {
+            if e.is_finite() && lo.is_finite() && hi.is_finite() {
                 let inside = (lo..=hi).contains(&tb.value);
                 s += &format!(
                     "  structure estimate: Tb {e:.1} K, 90 % interval {lo:.1}–{hi:.1} K; the fitted {:.2} K lies {}\n",

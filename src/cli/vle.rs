@@ -351,11 +351,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     if let Some(n) = note {
         study.flags.insert(
             0,
-            mixture::Flag {
-                code: "no-structure",
-                severity: ebullio::severity::Severity::Warning,
-                message: n,
-            },
+            mixture::Finding::new(mixture::MixtureCode::NoStructure, n),
         );
     }
     let at_x1 = match x1 {

@@ -17,7 +17,7 @@ use ebullio::reference::compare::Tolerances;
 use ebullio::reference::fit_check::check_fit;
 use ebullio::reference::Library;
 use ebullio::report::curve_plot::{CurvePlot, PlotCurve};
-use ebullio::report::html::{Figure, Finding, Report, Severity, Table};
+use ebullio::report::html::{Figure, FindingRow, Report, Severity, Table};
 use ebullio::report::{estimate_section, fit_section, plan_section};
 use ebullio::table_io::{fit_set, read_measured_bytes, ReadOptions};
 use ebullio::units::{parse_pressure, parse_quantity, parse_temperature, Quantity};
@@ -97,7 +97,7 @@ pub struct DemoRun {
     /// The plan (None with the reason in `findings` when it could not be made).
     pub plan: Option<DemoPlan>,
     /// Findings for the summary.
-    pub findings: Vec<Finding>,
+    pub findings: Vec<FindingRow>,
 }
 
 /// Run the whole scenario. Errors only if the embedded data are broken.
@@ -118,7 +118,7 @@ pub fn run() -> Result<DemoRun, String> {
                     check_fit(&mut r, lib, None, None, Tolerances::default());
                     fits.push(r);
                 }
-                Err(e) => findings.push(Finding::new(
+                Err(e) => findings.push(FindingRow::new(
                     Severity::Error,
                     set.compound.clone().unwrap_or_default(),
                     "fit-failed",
@@ -170,7 +170,7 @@ pub fn run() -> Result<DemoRun, String> {
             findings.extend(plan_section::plan_findings(&p.plan));
             if let Some(t) = p.max_pot_k {
                 if let Some(h) = p.plan.components.last().filter(|h| h.tb_k > t) {
-                    findings.push(Finding::new(
+                    findings.push(FindingRow::new(
                         Severity::Warning,
                         h.name.clone(),
                         "above-pot-limit",
@@ -186,7 +186,12 @@ pub fn run() -> Result<DemoRun, String> {
             Some(p)
         }
         Err(e) => {
-            findings.push(Finding::new(Severity::Error, "plan.json", "plan-failed", e));
+            findings.push(FindingRow::new(
+                Severity::Error,
+                "plan.json",
+                "plan-failed",
+                e,
+            ));
             None
         }
     };
@@ -492,12 +497,12 @@ pub fn summary(run: &DemoRun) -> String {
         }
     }
     s.push_str("\nMain findings of the fits and estimates:\n");
-    let mut f: Vec<Finding> = fit_section::fit_findings(&run.fits);
+    let mut f: Vec<FindingRow> = fit_section::fit_findings(&run.fits);
     f.extend(estimate_section::estimate_findings(&run.estimates));
     f.sort_by_key(|x| std::cmp::Reverse(x.severity));
     // The terminal gets the first few; the report has them all, and says so.
     const SHOWN: usize = 6;
-    let serious: Vec<&Finding> = f
+    let serious: Vec<&FindingRow> = f
         .iter()
         .filter(|x| x.severity >= Severity::Warning)
         .collect();

@@ -12,7 +12,7 @@
 //! normalized median absolute deviation.
 
 use super::linear::solve_weighted_columns;
-use super::lsq::{self, LsqResult, Problem, Settings, Termination};
+use super::lsq::{self, LsqResult, Problem, Settings, StopReason, Termination};
 use crate::vapor::{Antoine, Clapeyron, Equation, VaporEquation};
 use nalgebra::DMatrix;
 
@@ -152,8 +152,7 @@ fn solve_once(
     let prob = VaporProblem { eq, t, y };
     if let Some(th) = linear_fit(eq, t, y, sigma) {
         let term = Termination {
-            converged: true,
-            reason: "exact linear least squares".into(),
+            reason: StopReason::ExactLinear,
             evaluations: 1,
         };
         return Some(lsq::finish(&prob, sigma, th, term));
@@ -313,7 +312,7 @@ mod tests {
     fn antoine_recovers_exact_constants() {
         let th = [21.5, 3100.0, -52.0];
         let f = fit_equation(&ANTOINE, &pts(&th), None).unwrap();
-        assert!(f.lsq.termination.converged, "{:?}", f.lsq.termination);
+        assert!(f.lsq.termination.is_success(), "{:?}", f.lsq.termination);
         for k in 0..3 {
             assert!(
                 ((f.lsq.theta[k] - th[k]) / th[k]).abs() < 1e-7,

@@ -11,15 +11,12 @@
 //! as on the NIST StRD nonlinear regression certification page.
 
 use super::svd::thin_svd;
-use levenberg_marquardt::{
-    LeastSquaresProblem, LevenbergMarquardt, MinimizationReport, TerminationReason,
-};
+use levenberg_marquardt::{LeastSquaresProblem, LevenbergMarquardt, MinimizationReport};
 use nalgebra::allocator::{Allocator, Reallocator};
 use nalgebra::{
     Const, DMatrix, DVector, DefaultAllocator, Dim, DimMax, DimMaximum, DimMin, Dyn, OMatrix,
     OVector, Owned,
 };
-use serde::{Deserialize, Serialize};
 
 /// A least-squares model: observations y_i and model values f_i(θ) with gradients.
 pub trait Problem {
@@ -37,16 +34,7 @@ pub trait Problem {
     }
 }
 
-/// How the solver stopped.
-#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
-pub struct Termination {
-    /// True when a convergence criterion was met at a finite point.
-    pub converged: bool,
-    /// The solver's reason, in words.
-    pub reason: String,
-    /// Residual evaluations used.
-    pub evaluations: usize,
-}
+pub use super::termination::{StopReason, Termination};
 
 /// Result of a least-squares solve.
 #[derive(Debug, Clone)]
@@ -197,29 +185,10 @@ pub fn solve<P: Problem>(p: &P, sigma: &[f64], start: &[f64], s: Settings) -> Ls
     };
     let finite = theta.iter().all(|v| v.is_finite());
     let termination = Termination {
-        converged: report.termination.was_successful() && finite,
-        reason: reason_text(&report.termination),
+        reason: StopReason::from_solver(&report.termination, finite),
         evaluations: report.number_of_evaluations,
     };
     finish(p, sigma, theta, termination)
-}
-
-/// The solver's reason in words: the crate's own variant name and fields, as
-/// `Debug` would print them, without formatting on the common paths.
-fn reason_text(t: &TerminationReason) -> String {
-    match t {
-        TerminationReason::Converged { ftol, xtol } => match (ftol, xtol) {
-            (true, true) => "Converged { ftol: true, xtol: true }",
-            (true, false) => "Converged { ftol: true, xtol: false }",
-            (false, true) => "Converged { ftol: false, xtol: true }",
-            (false, false) => "Converged { ftol: false, xtol: false }",
-        }
-        .into(),
-        TerminationReason::Orthogonal => "Orthogonal".into(),
-        TerminationReason::ResidualsZero => "ResidualsZero".into(),
-        TerminationReason::LostPatience => "LostPatience".into(),
-        other => format!("{other:?}"),
-    }
 }
 
 fn minimize<P: Problem, N: Dim>(
@@ -350,7 +319,7 @@ mod tests {
         let y = x.iter().map(|x| 2.0 * (0.7 * x).exp()).collect();
         let p = Exp { x, y };
         let r = solve(&p, &[1.0; 10], &[1.0, 0.1], Settings::default());
-        assert!(r.termination.converged, "{:?}", r.termination);
+        assert!(r.termination.is_success(), "{:?}", r.termination);
         assert!((r.theta[0] - 2.0).abs() < 1e-9 && (r.theta[1] - 0.7).abs() < 1e-9);
         let lev: f64 = r.leverage.iter().sum();
         assert!(
@@ -360,31 +329,12 @@ mod tests {
     }
 
     #[test]
-    fn reason_text_matches_debug() {
-        for t in [
-            TerminationReason::Converged {
-                ftol: false,
-                xtol: true,
-            },
-            TerminationReason::Converged {
-                ftol: true,
-                xtol: false,
-            },
-            TerminationReason::Orthogonal,
-            TerminationReason::LostPatience,
-            TerminationReason::User("residuals"),
-        ] {
-            assert_eq!(reason_text(&t), format!("{t:?}"));
-        }
-    }
-
-    #[test]
     fn nan_model_is_not_converged() {
         let p = Exp {
             x: vec![1e308, 2.0, 3.0],
             y: vec![1.0, 2.0, 3.0],
         };
         let r = solve(&p, &[1.0; 3], &[1.0, 1.0], Settings::default());
-        assert!(!r.termination.converged);
+        assert!(!r.termination.is_success());
     }
 }

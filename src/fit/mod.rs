@@ -16,7 +16,7 @@
 //!     Point { t_k: t, p_pa: Antoine.ln_p(&[21.5, 3100.0, -52.0], t).exp(), u_t_k: None, u_p_pa: None }
 //! }).collect();
 //! let r = fit_points(None, &pts, &FitOptions::default()).unwrap();
-//! assert!(r.termination.converged);
+//! assert!(r.termination.is_success());
 //! let tb = r.normal_boiling_point_k.unwrap().value;
 //! assert!((tb - (3100.0 / (21.5 - 101_325f64.ln()) + 52.0)).abs() < 1e-6);
 //! ```
@@ -24,6 +24,7 @@
 // Index loops mirror the formulas (matrix subscripts); iterator chains would hide them.
 #![allow(clippy::needless_range_loop)]
 
+pub mod comparison;
 pub mod curve;
 pub mod equation_fit;
 pub mod findings;
@@ -34,11 +35,12 @@ pub mod plausibility;
 pub mod report;
 pub mod stats;
 pub mod svd;
+pub mod termination;
 pub mod vapor_fit;
 
 pub use curve::FittedCurve;
 pub use equation_fit::{Point, RobustLoss};
-pub use findings::{Finding, Severity};
+pub use findings::{Finding, FitCode, Severity};
 pub use options::{At, Exclude, FitOptions, ModelSelection};
-pub use report::FitReport;
+pub use report::{FitReport, PredictionKind};
 pub use vapor_fit::{fit_points, fit_points_with_lines, FitError};

@@ -14,7 +14,7 @@
 //! [`TROUTON_BAND_J_MOL_K`] (common practice).
 
 use super::equation_fit::Point;
-use super::findings::{Finding, Severity};
+use super::findings::{Finding, FitCode};
 use crate::units::{PressureUnit, TemperatureUnit, ATM_PA};
 use crate::vapor::slope::{trouton_plausible, R_J_MOL_K, TROUTON_BAND_J_MOL_K};
 
@@ -141,15 +141,13 @@ pub fn check_columns(
     let falls = given.hvap_kj_mol <= 0.0;
     if falls {
         out.push(Finding::new(
-            "pressure-falls-with-temperature",
-            Severity::Error,
+            FitCode::PressureFallsWithTemperature,
             "Pressure falls as temperature rises across the data; a vapor pressure always rises with temperature, so the columns are swapped or mislabelled.",
         ));
     }
     if let Some(o) = other {
         out.push(Finding::new(
-            "columns-swapped",
-            Severity::Error,
+            FitCode::ColumnsSwapped,
             format!(
                 "Columns swapped? As labelled the data give {}; read with temperature and pressure exchanged they give {}, as liquids do.",
                 given.evidence(),
@@ -160,8 +158,7 @@ pub fn check_columns(
         let (lo, hi) = HVAP_BAND_KJ_MOL;
         let (slo, shi) = TROUTON_BAND_J_MOL_K;
         out.push(Finding::new(
-            "hvap-implausible",
-            Severity::Warning,
+            FitCode::HvapImplausible,
             format!(
                 "The data give {}, outside what liquids show ({lo:.0}–{hi:.0} kJ/mol, Trouton {slo:.0}–{shi:.0} J/(mol·K), common practice); check the units of both columns.",
                 given.evidence()
@@ -223,8 +220,7 @@ pub fn check_pressure_unit(
         format!("give {t:.1} K")
     });
     Some(Finding::new(
-        "pressure-unit-mislabelled",
-        Severity::Error,
+            FitCode::PressureUnitMislabelled,
         format!(
             "The values look like {} under a {} heading: read as {} the data give a boiling point of {:.1} K, matching {what} {known_tb_k:.1} K; as {} they {given_tb}.",
             names.join(" or "),

@@ -8,7 +8,7 @@
 use super::findings::Finding;
 use super::lsq::Termination;
 use super::stats::RunsTest;
-use crate::vapor::Equation;
+use crate::vapor::{AntoineConvention, Equation, Model};
 use serde::{Deserialize, Serialize};
 
 /// JSON has no NaN: serde_json writes a NaN as `null`; these read `null` back as NaN.
@@ -66,11 +66,22 @@ pub struct Interval {
     pub extrapolation_k: f64,
 }
 
+/// What a prediction predicts.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+pub enum PredictionKind {
+    /// The boiling temperature at a given pressure.
+    #[serde(rename = "t_at_p")]
+    TAtP,
+    /// The vapor pressure at a given temperature.
+    #[serde(rename = "p_at_t")]
+    PAtT,
+}
+
 /// A requested prediction (`--at`).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct Prediction {
     /// `t_at_p` (boiling temperature at a pressure) or `p_at_t`.
-    pub kind: String,
+    pub kind: PredictionKind,
     /// Pressure, Pa (given or predicted).
     #[serde(deserialize_with = "nan_null::f64")]
     pub p_pa: f64,
@@ -158,7 +169,7 @@ pub struct PointReport {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct Candidate {
     /// Equation name.
-    pub model: String,
+    pub model: Model,
     /// Number of constants.
     pub n_params: usize,
     /// AICc (lower is better); null when the data cannot support the equation.
@@ -213,11 +224,12 @@ pub struct FitReport {
     /// Compound name, when the data had one.
     pub compound: Option<String>,
     /// Equation name (`antoine`, `clapeyron`, `riedel`, `wagner`).
-    pub model: String,
+    pub model: Model,
     /// Reported constants with standard errors and 95 % intervals.
     pub parameters: Vec<ParameterEstimate>,
     /// Convention of `parameters` (`log10,mmHg,degC` for Antoine; `ln,Pa,K` otherwise).
-    pub convention: String,
+    #[serde(with = "crate::vapor::convention::as_text")]
+    pub convention: AntoineConvention,
     /// Number of points fitted.
     pub n_points: usize,
     /// RMS relative deviation in p, %.
@@ -279,5 +291,5 @@ pub struct FitReport {
     pub without_flagged: Option<WithoutFlagged>,
     /// Comparison with a reference table (filled by the reference comparison, when asked).
     #[serde(skip_serializing_if = "Option::is_none", default)]
-    pub reference_comparison: Option<serde_json::Value>,
+    pub reference_comparison: Option<super::comparison::FitCheck>,
 }

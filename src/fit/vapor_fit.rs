@@ -10,7 +10,7 @@
 
 use super::curve::FittedCurve;
 use super::equation_fit::{fit_equation, EquationFit, Point, RobustLoss};
-use super::findings::{Finding, Severity};
+use super::findings::{Finding, FitCode};
 use super::options::{At, Exclude, FitOptions, ModelSelection};
 use super::report::*;
 use super::stats::{external_studentized, runs_test, t_quantile};
@@ -210,8 +210,7 @@ pub fn fit_points_with_lines(
     r.flags.insert(
         0,
         Finding::new(
-            "excluded-points",
-            Severity::Info,
+            FitCode::ExcludedPoints,
             format!(
                 "Excluded by the user (--exclude): {}. The constants, intervals and predictions are from the remaining {} points; boil --from and plan --from use exactly this fit.",
                 list.join(", "),
@@ -322,7 +321,7 @@ fn fit_kept(
         let eq = equation_for(sel, opts)?;
         let k = eq.n_params();
         let skip = |why: String| Candidate {
-            model: eq.name().into(),
+            model: eq.model(),
             n_params: k,
             aicc: None,
             skipped: Some(why),
@@ -342,7 +341,7 @@ fn fit_kept(
             candidates.push(skip("no start values".into()));
             continue;
         };
-        if !f.lsq.termination.converged {
+        if !f.lsq.termination.is_success() {
             candidates.push(skip(format!(
                 "did not converge ({})",
                 f.lsq.termination.reason
@@ -354,7 +353,7 @@ fn fit_kept(
         let kf = k as f64;
         let aicc = nf * (rss / nf).ln() + 2.0 * kf + 2.0 * kf * (kf + 1.0) / (nf - kf - 1.0);
         candidates.push(Candidate {
-            model: eq.name().into(),
+            model: eq.model(),
             n_params: k,
             aicc: Some(aicc),
             skipped: None,
@@ -368,7 +367,7 @@ fn fit_kept(
     };
     let mut others: Vec<String> = candidates
         .iter()
-        .filter(|c| c.model != f.eq.name())
+        .filter(|c| c.model != f.eq.model())
         .filter_map(|c| c.aicc.map(|a| format!("{} {:+.1}", c.model, a - aicc)))
         .collect();
     if others.is_empty() {
@@ -383,7 +382,7 @@ fn fit_kept(
     );
     let mut r = build_report(compound, points, &f, opts, true, (numbers, lines));
     r.flags
-        .push(Finding::new("model-choice", Severity::Info, reason.clone()));
+        .push(Finding::new(FitCode::ModelChoice, reason.clone()));
     r.model_choice = Some(ModelChoice { candidates, reason });
     outlier_refit(&mut r, points, &f, opts);
     Ok(r)
@@ -407,10 +406,10 @@ fn report_parameters(
     se: &[f64],
     t95: f64,
     conv: AntoineConvention,
-) -> (Vec<ParameterEstimate>, String) {
+) -> (Vec<ParameterEstimate>, AntoineConvention) {
     let th = &f.lsq.theta;
     let names = f.eq.param_names();
-    let (vals, scale, convention): (Vec<f64>, Vec<f64>, String) = match f.eq {
+    let (vals, scale, convention): (Vec<f64>, Vec<f64>, AntoineConvention) = match f.eq {
         Equation::Antoine(_) => {
             // The exact conversion is affine and diagonal in (A, B, C).
             let k = Antoine::constants(th, conv);
@@ -419,10 +418,10 @@ fn report_parameters(
             (
                 vec![k.a, k.b, k.c],
                 vec![(o.a - z.a).abs(), (o.b - z.b).abs(), (o.c - z.c).abs()],
-                conv.to_string(),
+                conv,
             )
         }
-        _ => (th.clone(), vec![1.0; th.len()], "ln,Pa,K".into()),
+        _ => (th.clone(), vec![1.0; th.len()], AntoineConvention::SI),
     };
     let params = (0..th.len())
         .map(|i| {
@@ -499,7 +498,7 @@ fn build_report(
         t_range_k: (tmin, tmax),
         dof,
     };
-    let converged = f.lsq.termination.converged;
+    let converged = f.lsq.termination.is_success();
     // Point diagnostics. Weighted residuals r_i; s² = RSS/dof.
     let rss = f.lsq.rss;
     let s2 = f.lsq.s2();
@@ -550,7 +549,7 @@ fn build_report(
                 At::PressurePa(p) => {
                     if let Some(iv) = interval_t(&curve, p) {
                         predictions.push(Prediction {
-                            kind: "t_at_p".into(),
+                            kind: PredictionKind::TAtP,
                             p_pa: p,
                             t_k: iv.value,
                             ci95_low: iv.ci95_low,
@@ -564,7 +563,7 @@ fn build_report(
                     let (lp, se) = curve.ln_p_with_se(t);
                     let ext = curve.extrapolation_k(t);
                     predictions.push(Prediction {
-                        kind: "p_at_t".into(),
+                        kind: PredictionKind::PAtT,
                         p_pa: lp.exp(),
                         t_k: t,
                         ci95_low: (lp - t95 * se).exp(),
@@ -586,7 +585,7 @@ fn build_report(
     };
     let mut r = FitReport {
         compound,
-        model: f.eq.name().into(),
+        model: f.eq.model(),
         parameters,
         convention,
         n_points: n,
@@ -710,11 +709,9 @@ fn hvap_at(curve: &FittedCurve, t: f64, t95: f64) -> HvapEstimate {
 
 fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Finding> {
     let mut v = Vec::new();
-    let w = Severity::Warning;
-    if !r.termination.converged {
+    if !r.termination.is_success() {
         v.push(Finding::new(
-            "not-converged",
-            Severity::Error,
+            FitCode::NotConverged,
             format!(
                 "The fit did not converge ({}); the constants are the solver's last point, not a solution.",
                 r.termination.reason
@@ -725,24 +722,21 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     let repeats = exact_repeats(&r.points);
     if repeats > 0 {
         v.push(Finding::new(
-            "duplicate-points",
-            w,
+            FitCode::DuplicatePoints,
             format!("{repeats} point(s) repeat another point exactly (same T and p); each copy counts as an independent measurement and narrows the intervals, so remove copies that are not genuine repeat measurements."),
         ));
     }
     let span = r.t_range_k[1] - r.t_range_k[0];
     if span < 20.0 {
         v.push(Finding::new(
-            "narrow-range",
-            w,
+            FitCode::NarrowRange,
             format!("The data span only {span:.1} K; constants and any extrapolation are poorly determined."),
         ));
     }
     if let Some(nbp) = &r.normal_boiling_point_k {
         if nbp.extrapolated {
             v.push(Finding::new(
-                "extrapolated-prediction",
-                w,
+                FitCode::ExtrapolatedPrediction,
                 format!(
                     "The normal boiling point {:.2} K lies {:.1} K outside the measured range.",
                     nbp.value, nbp.extrapolation_k
@@ -753,8 +747,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
         if !slope::trouton_plausible(s) {
             let (lo, hi) = slope::TROUTON_BAND_J_MOL_K;
             v.push(Finding::new(
-                "trouton-implausible",
-                w,
+            FitCode::TroutonImplausible,
                 format!("The entropy of vaporization at Tb is {s:.0} J/(mol·K), outside the {lo:.0}–{hi:.0} band of Trouton's rule (common practice); check units and data."),
             ));
         }
@@ -762,8 +755,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     for p in &r.predictions {
         if p.extrapolated {
             v.push(Finding::new(
-                "extrapolated-prediction",
-                w,
+            FitCode::ExtrapolatedPrediction,
                 format!(
                     "The prediction at {:.2} K / {:.4} kPa lies {:.1} K outside the measured range.",
                     p.t_k,
@@ -775,8 +767,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     }
     for p in r.points.iter().filter(|p| p.robust_rejected) {
         v.push(Finding::new(
-            "robust-rejected-point",
-            Severity::Info,
+            FitCode::RobustRejectedPoint,
             format!(
                 "Point {} ({:.2} K, {:.4} kPa, deviation {:+.2} %) was rejected by the robust loss (final weight {:.3}); the constants do not rest on it.",
                 p.number,
@@ -790,8 +781,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     for p in &r.points {
         if p.outlier {
             v.push(Finding::new(
-                "outlier-point",
-                w,
+            FitCode::OutlierPoint,
                 format!(
                     "Point {n} ({:.2} K, {:.4} kPa) deviates {:+.2} % (externally studentized residual {:.1}); it was kept: the automatic rule only advises (see without_flagged). To leave it out of the fit, rerun with --exclude {n}.",
                     p.t_k,
@@ -805,8 +795,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     }
     if r.runs_test.systematic {
         v.push(Finding::new(
-            "systematic-residuals",
-            w,
+            FitCode::SystematicResiduals,
             format!(
                 "Residual signs form {} runs where about {:.1} are expected; the equation may not follow the data's curvature.",
                 r.runs_test.runs, r.runs_test.expected
@@ -820,8 +809,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
         .fold(0.0, f64::max);
     if max_r > 0.999 {
         v.push(Finding::new(
-            "parameters-highly-correlated",
-            Severity::Info,
+            FitCode::ParametersHighlyCorrelated,
             format!("Constants are correlated up to |r| = {max_r:.5}; individual constants are not meaningful on their own, predictions still are."),
         ));
     }
@@ -839,8 +827,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     };
     if poor {
         v.push(Finding::new(
-            "poor-fit",
-            w,
+            FitCode::PoorFit,
             match r.reduced_chi_square {
                 Some(c) => format!("Reduced chi-square is {c:.1}: the scatter is much larger than the stated uncertainties."),
                 None if robust => format!("RMS deviation in pressure, weighted by the robust weights, is {rms:.2} % (over 2 %, common practice)."),
@@ -853,8 +840,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
         let near = r.t_range_k[0] - 0.5 * span.max(20.0);
         if near + c <= 0.0 {
             v.push(Finding::new(
-                "antoine-pole-near-range",
-                w,
+            FitCode::AntoinePoleNearRange,
                 format!("Antoine C puts the equation's pole at {:.1} K, inside or near the measured range; the curve is unusable there.", -c),
             ));
         }
@@ -862,8 +848,7 @@ fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Findin
     if let (Some((tc, _)), Some(h)) = (opts.critical, &r.hvap) {
         if h.t_k / tc > slope::TR_CLAPEYRON_LIMIT {
             v.push(Finding::new(
-                "hvap-near-critical",
-                Severity::Info,
+            FitCode::HvapNearCritical,
                 format!("ΔHvap is taken at Tr = {:.2}, where the ideal-vapor assumption of Clausius–Clapeyron degrades.", h.t_k / tc),
             ));
         }
@@ -893,8 +878,7 @@ fn outlier_refit(r: &mut FitReport, points: &[Point], f: &EquationFit, opts: &Fi
     let sub = build_report(None, &kept, &g, opts, false, (&[], &[]));
     if let (Some(a), Some(b)) = (&r.normal_boiling_point_k, &sub.normal_boiling_point_k) {
         r.flags.push(Finding::new(
-            "without-flagged-points",
-            Severity::Info,
+            FitCode::WithoutFlaggedPoints,
             format!(
                 "Without the {} flagged point(s) the normal boiling point would be {:.2} K instead of {:.2} K and the RMS deviation {:.3} % instead of {:.3} %.",
                 excluded.len(),

@@ -49,8 +49,8 @@ pub use error::MixtureError;
 pub use nrtl::Nrtl;
 pub use stability::{is_unstable, liquid_split_at, polish_split, stability_slope, ThreePhase};
 pub use study::{
-    vle_study, AzeotropeOut, ComponentOut, DiagramRow, Flag, LiquidSplit, ShiftRow, StudyComponent,
-    StudyOptions, VleStudy, CAUTIONS, SHIFT_FACTORS, SWING_SHIFT,
+    vle_study, AzeotropeOut, ComponentOut, DiagramRow, Finding, LiquidSplit, MixtureCode, ShiftRow,
+    StudyComponent, StudyOptions, VleStudy, CAUTIONS, SHIFT_FACTORS, SWING_SHIFT,
 };
 pub use unifac::{Unifac, MAX_SUBGROUPS};
 pub use unifac_groups::{assign_subgroups, subgroup_names, SubgroupCounts};

@@ -8,7 +8,6 @@
 use super::{
     ActivityModel, Azeotrope, AzeotropeKind, Binary, Condition, MixtureError, ThreePhase, VlePoint,
 };
-use crate::severity::Severity;
 use crate::vapor::Curve;
 use serde::Serialize;
 
@@ -123,16 +122,7 @@ pub struct LiquidSplit {
     pub y1: Option<f64>,
 }
 
-/// Something the reader must know about the result.
-#[derive(Debug, Clone, PartialEq, Serialize)]
-pub struct Flag {
-    /// Stable kebab-case code.
-    pub code: &'static str,
-    /// Severity.
-    pub severity: Severity,
-    /// One or two sentences.
-    pub message: String,
-}
+pub use crate::finding::{Finding, MixtureCode, Subject};
 
 /// Cautions printed with every mixture result.
 pub const CAUTIONS: &[&str] = &[
@@ -164,7 +154,7 @@ pub struct VleStudy {
     /// The liquid–liquid split.
     pub liquid_split: LiquidSplit,
     /// Flags.
-    pub flags: Vec<Flag>,
+    pub flags: Vec<Finding>,
     /// Cautions.
     pub cautions: &'static [&'static str],
 }
@@ -237,13 +227,14 @@ pub fn vle_study(
     let mut azeotropes = Vec::new();
     for az in &homogeneous {
         if let Some(tp) = three.filter(|tp| az.x1 > tp.x1_low && az.x1 < tp.x1_high) {
-            flags.push(Flag {
-                code: "azeotrope-in-two-liquid-region",
-                severity: Severity::Warning,
+            flags.push(Finding {
+                code: MixtureCode::AzeotropeInTwoLiquidRegion.into(),
+                severity: MixtureCode::AzeotropeInTwoLiquidRegion.severity(),
                 message: format!(
                     "The one-liquid model has y1 = x1 at x1 = {:.3}, inside the predicted two-liquid range {:.4}–{:.4}; it is not reported as a single-liquid azeotrope.",
                     az.x1, tp.x1_low, tp.x1_high
                 ),
+                subject: Subject::Whole,
             });
         } else {
             azeotropes.push(*az);
@@ -271,20 +262,21 @@ pub fn vle_study(
         };
         if let Some(t) = ts.iter().find(|&&t| outside(c.curve, t)) {
             let (lo, hi) = c.curve.valid_range_k().unwrap_or((f64::NAN, f64::NAN));
-            flags.push(Flag {
-                code: "vapor-pressure-extrapolated",
-                severity: Severity::Warning,
+            flags.push(Finding {
+                code: MixtureCode::VaporPressureExtrapolated.into(),
+                severity: MixtureCode::VaporPressureExtrapolated.severity(),
                 message: format!(
                     "The vapor-pressure curve of {} is used outside its stated range {:.1}–{:.1} K (e.g. at {:.1} K).",
                     comps[i].name, lo, hi, t
                 ),
+                subject: Subject::Whole,
             });
         }
     }
     for az in &azeotropes {
-        flags.push(Flag {
-            code: "azeotrope-predicted",
-            severity: Severity::Warning,
+        flags.push(Finding {
+            code: MixtureCode::AzeotropePredicted.into(),
+            severity: MixtureCode::AzeotropePredicted.severity(),
             message: format!(
                 "{} azeotrope predicted at x1 = {:.3}{}: ordinary distillation cannot cross it; confirm with measured mixture data.",
                 az.kind.as_str(),
@@ -294,15 +286,17 @@ pub fn vle_study(
                     Condition::Temperature(_) => format!(", {:.0} Pa", az.p_pa),
                 }
             ),
+            subject: Subject::Whole,
         });
         if az.kind != AzeotropeKind::Heterogeneous && (az.x1 < 0.02 || az.x1 > 0.98) {
-            flags.push(Flag {
-                code: "azeotrope-near-pure-end",
-                severity: Severity::Warning,
+            flags.push(Finding {
+                code: MixtureCode::AzeotropeNearPureEnd.into(),
+                severity: MixtureCode::AzeotropeNearPureEnd.severity(),
                 message: format!(
                     "The azeotrope at x1 = {:.4} lies within 2 mol % of a pure component, where the model's small errors decide whether it exists at all; treat it as uncertain.",
                     az.x1
                 ),
+                subject: Subject::Whole,
             });
         }
     }
@@ -319,15 +313,16 @@ pub fn vle_study(
     }
     let split = match three {
         Some(tp) => {
-            flags.push(Flag {
-                code: "two-liquids-predicted",
-                severity: Severity::Warning,
+            flags.push(Finding {
+                code: MixtureCode::TwoLiquidsPredicted.into(),
+                severity: MixtureCode::TwoLiquidsPredicted.severity(),
                 message: format!(
                     "Two liquid phases predicted at the boiling point between x1 = {:.4} and {:.4}{}; liquid-liquid predictions are qualitative (a decanter may help: common practice).",
                     tp.x1_low,
                     tp.x1_high,
                     if tp.is_heterogeneous_azeotrope() { ", with a heterogeneous azeotrope" } else { "" }
                 ),
+                subject: Subject::Whole,
             });
             LiquidSplit {
                 predicted: true,
@@ -402,28 +397,20 @@ fn below_both(comps: &[StudyComponent<'_>; 2], p: f64) -> Result<(), MixtureErro
     })
 }
 
-fn model_flag(model: &dyn ActivityModel) -> Flag {
-    let (code, severity, message) = match model.name() {
-        "ideal" => (
-            "ideal-solution",
-            Severity::Warning,
-            "Ideal liquid assumed (γ = 1, Raoult's law): azeotropes and liquid splits cannot appear.".to_string(),
+fn model_flag(model: &dyn ActivityModel) -> Finding {
+    match model.name() {
+        "ideal" => Finding::new(
+            MixtureCode::IdealSolution,
+            "Ideal liquid assumed (γ = 1, Raoult's law): azeotropes and liquid splits cannot appear.",
         ),
-        "unifac" => (
-            "activity-from-structure",
-            Severity::Info,
-            "Activity coefficients estimated from structure by original UNIFAC (Fredenslund, Jones & Prausnitz 1975; parameters of Hansen et al. 1991): an estimate, not a measurement.".to_string(),
+        "unifac" => Finding::new(
+            MixtureCode::ActivityFromStructure,
+            "Activity coefficients estimated from structure by original UNIFAC (Fredenslund, Jones & Prausnitz 1975; parameters of Hansen et al. 1991): an estimate, not a measurement.",
         ),
-        other => (
-            "activity-from-parameters",
-            Severity::Info,
+        other => Finding::new(
+            MixtureCode::ActivityFromParameters,
             format!("Activity coefficients from the {other} parameters given; they hold only over the range they were fitted on."),
         ),
-    };
-    Flag {
-        code,
-        severity,
-        message,
     }
 }
 
@@ -488,27 +475,28 @@ fn pressure_shift(b: &Binary<'_>, p: f64, az: &Azeotrope) -> Vec<ShiftRow> {
     rows
 }
 
-fn swing_flag(rows: &[ShiftRow], az: &Azeotrope) -> Option<Flag> {
+fn swing_flag(rows: &[ShiftRow], az: &Azeotrope) -> Option<Finding> {
     let gone: Vec<&ShiftRow> = rows.iter().filter(|r| r.x1.is_none()).collect();
     let best = rows
         .iter()
         .filter_map(|r| r.x1.map(|x| (r, (x - az.x1).abs())))
         .max_by(|a, b| a.1.total_cmp(&b.1));
     if let Some(r) = gone.first() {
-        return Some(Flag {
-            code: "pressure-swing-candidate",
-            severity: Severity::Info,
+        return Some(Finding {
+            code: MixtureCode::PressureSwingCandidate.into(),
+            severity: MixtureCode::PressureSwingCandidate.severity(),
             message: format!(
                 "The azeotrope is not predicted at {:.0} Pa: a change of pressure may remove it (pressure-swing distillation; common practice){}.",
                 r.p_pa,
                 if r.extrapolated { ", though a vapor-pressure curve is extrapolated there" } else { "" }
             ),
+            subject: Subject::Whole,
         });
     }
     match best {
-        Some((r, d)) if d >= SWING_SHIFT => Some(Flag {
-            code: "pressure-swing-candidate",
-            severity: Severity::Info,
+        Some((r, d)) if d >= SWING_SHIFT => Some(Finding {
+            code: MixtureCode::PressureSwingCandidate.into(),
+            severity: MixtureCode::PressureSwingCandidate.severity(),
             message: format!(
                 "The azeotrope moves from x1 = {:.3} to {:.3} at {:.0} Pa: a shift of {:.0} mol %, enough for pressure-swing distillation to be worth a look (common practice: about 5 mol % or more){}.",
                 az.x1,
@@ -517,16 +505,18 @@ fn swing_flag(rows: &[ShiftRow], az: &Azeotrope) -> Option<Flag> {
                 100.0 * d,
                 if r.extrapolated { "; a vapor-pressure curve is extrapolated there" } else { "" }
             ),
+            subject: Subject::Whole,
         }),
-        Some((_, d)) => Some(Flag {
-            code: "pressure-insensitive-azeotrope",
-            severity: Severity::Info,
+        Some((_, d)) => Some(Finding {
+            code: MixtureCode::PressureInsensitiveAzeotrope.into(),
+            severity: MixtureCode::PressureInsensitiveAzeotrope.severity(),
             message: format!(
                 "The azeotrope moves by at most {:.1} mol % between {:.0} and {:.0} times the pressure: pressure swing is unlikely to help (common practice: about 5 mol % or more is needed).",
                 100.0 * d,
                 SHIFT_FACTORS[0],
                 SHIFT_FACTORS[SHIFT_FACTORS.len() - 1]
             ),
+            subject: Subject::Whole,
         }),
         None => None,
     }

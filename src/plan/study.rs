@@ -178,18 +178,7 @@ pub struct RayleighSummary {
     pub cut_to_bottoms_target: Option<RayleighPoint>,
 }
 
-pub use crate::severity::Severity;
-
-/// A finding about the plan.
-#[derive(Debug, Clone, PartialEq, Serialize)]
-pub struct Finding {
-    /// Stable kebab-case code.
-    pub code: &'static str,
-    /// Severity.
-    pub severity: Severity,
-    /// One sentence.
-    pub message: String,
-}
+pub use crate::finding::{Finding, PlanCode, Severity, Subject};
 
 /// The complete plan.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -275,13 +264,14 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
             let m = pressure::pressure_for_max_pot(components, t)?;
             if m.capped_at_atmosphere {
                 findings.push(Finding {
-                    code: "max-pot-above-normal-boiling",
-                    severity: Severity::Info,
+                    code: PlanCode::MaxPotAboveNormalBoiling.into(),
+                    severity: PlanCode::MaxPotAboveNormalBoiling.severity(),
                     message: format!(
                         "Every component boils below the pot limit even at atmospheric pressure, so the plan uses 1 atm (no vacuum needed; a pressurised still is never proposed); {} boils at {:.1} °C there.",
                         m.heaviest,
                         components.iter().find(|c| c.name == m.heaviest).and_then(|c| c.tb_k(m.setpoint_pa).ok()).unwrap_or(f64::NAN) - crate::units::CELSIUS_OFFSET
                     ),
+                    subject: Subject::Whole,
                 });
             }
             let p = m.setpoint_pa;
@@ -311,23 +301,25 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         let extrapolated = c.extrapolated(t);
         if extrapolated {
             findings.push(Finding {
-                code: "outside-valid-range",
-                severity: Severity::Warning,
+                code: PlanCode::OutsideValidRange.into(),
+                severity: PlanCode::OutsideValidRange.severity(),
                 message: format!(
                     "The boiling point of {} at this pressure ({:.1} °C) lies outside the temperature range its source claims for its curve, so it is an extrapolation.",
                     c.name,
                     t - crate::units::CELSIUS_OFFSET
                 ),
+                subject: Subject::Whole,
             });
         }
         if u.is_none() {
             findings.push(Finding {
-                code: "uncertainty-not-stated",
-                severity: Severity::Info,
+                code: PlanCode::UncertaintyNotStated.into(),
+                severity: PlanCode::UncertaintyNotStated.severity(),
                 message: format!(
                     "The source of {} states no uncertainty, so the uncertainty of α and of the stage count leaves it out.",
                     c.name
                 ),
+                subject: Subject::Whole,
             });
         }
         at_p.push(ComponentAtPressure {
@@ -343,13 +335,14 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     if let Some(first) = at_p.first() {
         if first.tb_k < 283.15 {
             findings.push(Finding {
-                code: "condensate-needs-cold-trap",
-                severity: Severity::Warning,
+                code: PlanCode::CondensateNeedsColdTrap.into(),
+                severity: PlanCode::CondensateNeedsColdTrap.severity(),
                 message: format!(
                     "{} boils at {:.1} °C at this pressure, below what a tap-water condenser can condense: plan a chilled condenser or cold trap, or use a higher pressure.",
                     first.name,
                     first.tb_k - crate::units::CELSIUS_OFFSET
                 ),
+                subject: Subject::Whole,
             });
         }
     }
@@ -382,14 +375,15 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     let (light, heavy) = (sorted[ki], sorted[ki + 1]);
     if sorted.len() > 2 {
         findings.push(Finding {
-            code: "key-pair-only",
-            severity: Severity::Info,
+            code: PlanCode::KeyPairOnly.into(),
+            severity: PlanCode::KeyPairOnly.severity(),
             message: format!(
                 "With {} components the stage count, Rayleigh curve and verdict are for the hardest adjacent pair, {} / {}, treated as a binary; the others are listed under pairs.",
                 sorted.len(),
                 light.name,
                 heavy.name
             ),
+            subject: Subject::Whole,
         });
     }
 
@@ -437,24 +431,17 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     // 6. The key pair's liquid model, azeotropes and equilibrium curve.
     let chosen = activity::choose_model(opts.activity, light, heavy)?;
     if let Some(why) = &chosen.fallback {
-        findings.push(Finding {
-            code: "ideal-solution-assumed",
-            severity: Severity::Warning,
-            message: format!("For {} / {}: {why}.", light.name, heavy.name),
-        });
+        findings.push(Finding::new(
+            PlanCode::IdealSolutionAssumed,
+            format!("For {} / {}: {why}.", light.name, heavy.name),
+        ));
     }
     let ideal_model = chosen.model.name() == "ideal";
     let study: Option<VleStudy> = if ideal_model {
         None
     } else {
         let st = activity::key_pair_study(light, heavy, &*chosen.model, p)?;
-        for f in &st.flags {
-            findings.push(Finding {
-                code: f.code,
-                severity: f.severity,
-                message: f.message.clone(),
-            });
-        }
+        findings.extend(st.flags.iter().cloned());
         Some(st)
     };
     let ideal = IdealBinary {
@@ -581,9 +568,10 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         && verdict.code != verdict::VerdictCode::BeyondAzeotrope
     {
         findings.push(Finding {
-            code: "rule-of-thumb-disagrees",
-            severity: Severity::Info,
+            code: PlanCode::RuleOfThumbDisagrees.into(),
+            severity: PlanCode::RuleOfThumbDisagrees.severity(),
             message: "The boiling-point-difference rule of thumb reads differently from the stage count for these purity targets; plan with the stage count.".to_string(),
+            subject: Subject::Whole,
         });
     }
     // No stage count for an impossible target.

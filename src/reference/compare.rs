@@ -13,65 +13,9 @@ use super::{Compound, ReferenceCurve};
 use crate::units::ATM_PA;
 use crate::vapor::Curve;
 
-/// Tolerances for the reference's own uncertainty.
-#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize)]
-pub struct Tolerances {
-    /// Relative tolerance in p (0.02 = 2 %).
-    pub p_rel: f64,
-    /// Tolerance in normal boiling point, K.
-    pub tb_k: f64,
-}
+pub use crate::finding::{Finding, ReferenceCode, Severity, Subject};
 
-impl Default for Tolerances {
-    fn default() -> Self {
-        Tolerances {
-            p_rel: 0.02,
-            tb_k: 0.5,
-        }
-    }
-}
-
-/// A finding of the comparison (stable code, severity, one sentence).
-#[derive(Debug, Clone, PartialEq, serde::Serialize)]
-pub struct Finding {
-    /// Stable kebab-case code.
-    pub code: String,
-    /// How serious.
-    pub severity: crate::severity::Severity,
-    /// One sentence.
-    pub message: String,
-}
-
-/// The result of holding a fitted curve against a reference compound.
-#[derive(Debug, Clone, PartialEq, serde::Serialize)]
-pub struct Comparison {
-    /// Reference compound name.
-    pub compound: String,
-    /// The reference curve's source.
-    pub reference_source: String,
-    /// Overlap of the temperature ranges, K (None: no overlap).
-    pub overlap_k: Option<(f64, f64)>,
-    /// Gap between the ranges, K, when they do not overlap.
-    pub gap_k: Option<f64>,
-    /// Maximum |p_fit/p_ref − 1| over the overlap, percent.
-    pub max_rel_diff_pct: Option<f64>,
-    /// RMS of p_fit/p_ref − 1 over the overlap, percent.
-    pub rms_rel_diff_pct: Option<f64>,
-    /// Fitted minus reference normal boiling point, K.
-    pub tb_diff_k: Option<f64>,
-    /// Reference normal boiling point used, K.
-    pub tb_reference_k: Option<f64>,
-    /// Findings.
-    pub findings: Vec<Finding>,
-}
-
-fn finding(code: &str, severity: crate::severity::Severity, message: String) -> Finding {
-    Finding {
-        code: code.into(),
-        severity,
-        message,
-    }
-}
+pub use crate::fit::comparison::{Comparison, Tolerances};
 
 /// Compare `fitted` (with its fitted range `fit_range_k`) with the compound's best reference curve.
 pub fn compare(
@@ -106,9 +50,8 @@ pub fn compare_with(
     // Reference range: stated, else ±30 K about its Tb (common practice, flagged).
     let ref_range = reference.valid_range_k().or_else(|| {
         let tb = reference.t_at(ATM_PA)?;
-        out.findings.push(finding(
-            "reference-range-unstated",
-            crate::severity::Severity::Info,
+        out.findings.push(Finding::new(
+            ReferenceCode::ReferenceRangeUnstated,
             format!("The reference row for {} states no temperature range; it was compared within 30 K of its boiling point.", compound.name),
         ));
         Some((tb - 30.0, tb + 30.0))
@@ -143,9 +86,8 @@ pub fn compare_with(
                 out.rms_rel_diff_pct = Some(100.0 * (ss / n as f64).sqrt());
             }
             if let Some((d, t, allow)) = worst {
-                out.findings.push(finding(
-                    "reference-pressure-disagrees",
-                    crate::severity::Severity::Warning,
+                out.findings.push(Finding::new(
+            ReferenceCode::ReferencePressureDisagrees,
                     format!(
                         "The fitted vapor pressure differs from the reference for {} by {:+.1} % at {:.1} K, more than the {:.1} % the fit's 95 % interval and the reference's uncertainty allow.",
                         compound.name, 100.0 * d, t, 100.0 * allow
@@ -159,9 +101,8 @@ pub fn compare_with(
                 fit_range_k.0 - rhi
             };
             out.gap_k = Some(gap);
-            out.findings.push(finding(
-                "reference-no-overlap",
-                crate::severity::Severity::Info,
+            out.findings.push(Finding::new(
+            ReferenceCode::ReferenceNoOverlap,
                 format!(
                     "The fitted range {:.1}-{:.1} K and the reference range {:.1}-{:.1} K for {} do not overlap (gap {:.1} K), so the curves were not compared point by point.",
                     fit_range_k.0, fit_range_k.1, rlo, rhi, compound.name, gap
@@ -180,9 +121,8 @@ pub fn compare_with(
         let u = fitted.t_uncertainty_k(ATM_PA).unwrap_or(0.0);
         let allow = ((1.96 * u).powi(2) + tol.tb_k.powi(2)).sqrt();
         if d.abs() > allow {
-            out.findings.push(finding(
-                "reference-tb-disagrees",
-                crate::severity::Severity::Warning,
+            out.findings.push(Finding::new(
+            ReferenceCode::ReferenceTbDisagrees,
                 format!(
                     "The fitted normal boiling point {:.2} K differs from the reference {:.2} K for {} by {:+.2} K, more than the {:.2} K allowed.",
                     tf, tr, compound.name, d, allow
@@ -213,9 +153,8 @@ pub fn compare_structure(
         } else {
             String::new()
         };
-        finding(
-            "structure-tb-disagrees",
-            crate::severity::Severity::Warning,
+        Finding::new(
+            ReferenceCode::StructureTbDisagrees,
             format!(
                 "The fitted normal boiling point {fitted_tb_k:.1} K lies outside the structure estimate's 90 % interval {lo:.1}–{hi:.1} K for {smiles} (estimate {estimate_tb_k:.1} K, difference {d:+.1} K{far}); check the data's units and the structure."
             ),

@@ -6,31 +6,12 @@
 //! only a structure, the fitted Tb is compared with the Joback estimate and
 //! flagged beyond three times the method's typical error.
 
-use super::compare::{compare, compare_structure, Comparison, Finding, Tolerances};
+use super::compare::{compare, compare_structure, Tolerances};
 use super::Library;
-use crate::fit::findings::{Finding as FitFinding, Severity};
+use crate::finding::{Finding, ReferenceCode, Subject};
+pub use crate::fit::comparison::FitCheck;
 use crate::fit::report::FitReport;
 use crate::fit::FittedCurve;
-
-/// What the check found, stored in a report's `reference_comparison`.
-#[derive(Debug, Clone, PartialEq, serde::Serialize)]
-pub struct FitCheck {
-    /// Tolerances used.
-    pub tolerances: Tolerances,
-    /// The reference comparison, when a reference compound was found.
-    pub reference: Option<Comparison>,
-    /// Structure estimate Tb (K) and its typical error, when compared.
-    pub structure_tb_k: Option<(f64, f64)>,
-    /// The structure estimate's calibrated 90 % prediction interval, K, and
-    /// whether the fitted Tb lies inside it.
-    pub structure_tb_pi90_k: Option<(f64, f64, bool)>,
-    /// Findings (also appended to the report's flags).
-    pub findings: Vec<Finding>,
-}
-
-fn to_fit(f: &Finding) -> FitFinding {
-    FitFinding::new(&f.code, f.severity, f.message.clone())
-}
 
 /// Compare `report` with the reference (by `name`, else the report's
 /// compound, else `smiles`) and with the structure estimate; store the
@@ -63,8 +44,8 @@ pub fn check_fit(
             }
         }
         None if name.is_some() || smiles.is_some() => out.findings.push(Finding {
-            code: "reference-not-found".into(),
-            severity: Severity::Info,
+            code: ReferenceCode::ReferenceNotFound.into(),
+            severity: ReferenceCode::ReferenceNotFound.severity(),
             message: {
                 let q = name.or(smiles).unwrap_or_default();
                 let near = name.map(|n| lib.suggestions(n)).unwrap_or_default();
@@ -77,6 +58,7 @@ pub fn check_fit(
                     "No reference compound matches {q}{hint}, so the fit was not compared with reference data."
                 )
             },
+            subject: Subject::Whole,
         }),
         None => {}
     }
@@ -91,8 +73,8 @@ pub fn check_fit(
             }
         }
     }
-    report.flags.extend(out.findings.iter().map(to_fit));
-    report.reference_comparison = serde_json::to_value(&out).ok();
+    report.flags.extend(out.findings.iter().cloned());
+    report.reference_comparison = Some(out.clone());
     out
 }
 

@@ -2,7 +2,7 @@
 //!
 //! Shared by `ebullio check --report` and the demo. Formatting only.
 
-use super::html::{Finding, Report, Section, Table};
+use super::html::{FindingRow, Report, Section, Table};
 use crate::screen::{Rows, ScreenReport};
 
 /// Flagged rows listed in a report at most (worst first); the checked table holds them all.
@@ -10,12 +10,12 @@ pub const MAX_ROWS_SHOWN: usize = 500;
 
 /// The worst rows as report findings (subject: compound and line; code: the
 /// row's codes; message: its diagnosis), at most `n`.
-pub fn check_findings(rows: &dyn Rows, report: &ScreenReport, n: usize) -> Vec<Finding> {
+pub fn check_findings(rows: &dyn Rows, report: &ScreenReport, n: usize) -> Vec<FindingRow> {
     report
         .summary(rows, n)
         .worst
         .into_iter()
-        .map(|w| Finding::new(w.severity, w.label, w.flags, w.diagnosis))
+        .map(|w| FindingRow::new(w.severity, w.label, w.flags, w.diagnosis))
         .collect()
 }
 

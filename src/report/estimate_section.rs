@@ -4,7 +4,7 @@
 
 use super::curve_plot::{CurvePlot, PlotCurve};
 use super::fit_section::mbar;
-use super::html::{Figure, Finding, Report, Section, Severity, Table};
+use super::html::{Figure, FindingRow, Report, Section, Severity, Table};
 use crate::estimate::batch::EstimateRow;
 use crate::estimate::{calibration, group, Estimate, LeeKeslerCurve};
 use crate::vapor::Curve;
@@ -23,12 +23,12 @@ fn opt(v: Option<f64>, digits: usize) -> String {
 
 /// Findings about the estimates: structures that could not be handled,
 /// anchoring shifts, widened intervals, and the estimates-not-measurements note.
-pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<Finding> {
+pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<FindingRow> {
     let mut out = Vec::new();
     for (i, r) in rows.iter().enumerate() {
         let n = label(r, i);
         if !r.error.is_empty() {
-            out.push(Finding::new(
+            out.push(FindingRow::new(
                 Severity::Error,
                 n.clone(),
                 "estimate-failed",
@@ -36,7 +36,7 @@ pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<Finding> {
             ));
         }
         if let Some(a) = &r.anchored {
-            out.push(Finding::new(
+            out.push(FindingRow::new(
                 Severity::Info,
                 n.clone(),
                 "estimate-anchored",
@@ -50,7 +50,7 @@ pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<Finding> {
         }
         if let Some(e) = &r.estimate {
             for d in &e.comfort.details {
-                out.push(Finding::new(
+                out.push(FindingRow::new(
                     Severity::Warning,
                     n.clone(),
                     "outside-calibration",
@@ -61,7 +61,7 @@ pub fn estimate_findings(rows: &[EstimateRow]) -> Vec<Finding> {
                 ));
             }
             if let Some(rf) = &r.reference {
-                out.push(Finding::new(
+                out.push(FindingRow::new(
                     Severity::Info,
                     n.clone(),
                     "reference-beside-estimate",

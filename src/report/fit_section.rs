@@ -3,7 +3,7 @@
 //! Shared by `ebullio fit --report` and the demo. Formatting only: every number
 //! comes from the [`FitReport`] or from [`crate::boiling`] on its fitted curve.
 
-use super::html::{Figure, Finding, Report, Section, Severity, Table};
+use super::html::{Figure, FindingRow, Report, Section, Severity, Table};
 use crate::boiling::boiling_points;
 use crate::fit::{FitReport, FittedCurve};
 
@@ -68,13 +68,11 @@ pub fn without_urls(text: &str) -> String {
 }
 
 /// Every fit's flags as report findings, with the compound as subject.
-pub fn fit_findings(fits: &[FitReport]) -> Vec<Finding> {
+pub fn fit_findings(fits: &[FitReport]) -> Vec<FindingRow> {
     fits.iter()
         .flat_map(|f| {
             let n = name(f);
-            f.flags.iter().map(move |x| {
-                Finding::new(x.severity, n.clone(), x.code.clone(), x.message.clone())
-            })
+            f.flags.iter().map(move |x| FindingRow::of(x, n.clone()))
         })
         .collect()
 }
@@ -97,7 +95,7 @@ pub fn fit_summary_table(fits: &[FitReport]) -> Table {
         t.flagged_row(
             [
                 name(f),
-                f.model.clone(),
+                f.model.to_string(),
                 f.n_points.to_string(),
                 format!("{:.2}", f.rms_rel_dev_pct),
                 format!("{:.1} to {:.1}", f.t_range_k[0], f.t_range_k[1]),
@@ -136,7 +134,7 @@ fn add_fit(sub: &mut Section, f: &FitReport, pressures_pa: &[f64]) {
     let n = name(f);
     let tb = f.normal_boiling_point_k.as_ref();
     let mut facts = vec![
-        ("model".to_string(), f.model.clone()),
+        ("model".to_string(), f.model.to_string()),
         ("points".to_string(), f.n_points.to_string()),
         (
             "RMS deviation of p".to_string(),
@@ -246,7 +244,7 @@ fn add_fit(sub: &mut Section, f: &FitReport, pressures_pa: &[f64]) {
         let mut pr = Table::new(["asked for", "result", "95 % interval", "extrapolated"])
             .caption("Predictions asked for");
         for p in &f.predictions {
-            let (asked, res, ci) = if p.kind == "t_at_p" {
+            let (asked, res, ci) = if p.kind == crate::fit::report::PredictionKind::TAtP {
                 (
                     format!("boiling point at {}", mbar(p.p_pa)),
                     format!("{:.2} K ({} °C)", p.t_k, c(p.t_k)),
@@ -339,43 +337,34 @@ fn add_reference(sub: &mut Section, f: &FitReport) {
         sub.paragraph("Reference comparison: not run.");
         return;
     };
-    let num = |x: Option<&serde_json::Value>, unit: &str| {
-        x.and_then(|x| x.as_f64())
+    let num = |x: Option<f64>, unit: &str| {
+        x.filter(|x| x.is_finite())
             .map(|x| format!("{x:.3} {unit}"))
             .unwrap_or_else(|| "—".into())
     };
     let mut facts = Vec::new();
-    match v.get("reference").filter(|x| !x.is_null()) {
+    match &v.reference {
         Some(rf) => {
-            let s = |k: &str| rf.get(k).and_then(|x| x.as_str()).unwrap_or("").to_string();
-            facts.push(("reference compound", s("compound")));
-            facts.push(("reference source", without_urls(&s("reference_source"))));
-            facts.push((
-                "max |p fit / p ref − 1|",
-                num(rf.get("max_rel_diff_pct"), "%"),
-            ));
-            facts.push((
-                "RMS of p fit / p ref − 1",
-                num(rf.get("rms_rel_diff_pct"), "%"),
-            ));
-            facts.push(("reference Tb", num(rf.get("tb_reference_k"), "K")));
-            facts.push(("Tb fit − Tb reference", num(rf.get("tb_diff_k"), "K")));
+            facts.push(("reference compound", rf.compound.clone()));
+            facts.push(("reference source", without_urls(&rf.reference_source)));
+            facts.push(("max |p fit / p ref − 1|", num(rf.max_rel_diff_pct, "%")));
+            facts.push(("RMS of p fit / p ref − 1", num(rf.rms_rel_diff_pct, "%")));
+            facts.push(("reference Tb", num(rf.tb_reference_k, "K")));
+            facts.push(("Tb fit − Tb reference", num(rf.tb_diff_k, "K")));
         }
         None => facts.push((
             "reference compound",
             "none found in the bundled tables".to_string(),
         )),
     }
-    if let Some(s) = v.get("structure_tb_k").and_then(|x| x.as_array()) {
-        if let (Some(tb), Some(e)) = (
-            s.first().and_then(|x| x.as_f64()),
-            s.get(1).and_then(|x| x.as_f64()),
-        ) {
-            facts.push((
-                "structure estimate Tb",
-                format!("{tb:.1} K (typical error {e:.1} K)"),
-            ));
-        }
+    if let Some((tb, e)) = v
+        .structure_tb_k
+        .filter(|(a, b)| a.is_finite() && b.is_finite())
+    {
+        facts.push((
+            "structure estimate Tb",
+            format!("{tb:.1} K (typical error {e:.1} K)"),
+        ));
     }
     let sub = sub.subsection("Reference comparison");
     sub.facts(facts);
@@ -405,7 +394,7 @@ pub fn fit_report(
     let s = r.section("Summary and findings");
     let mut findings = fit_findings(fits);
     for (c, e) in failed {
-        findings.push(Finding::new(
+        findings.push(FindingRow::new(
             Severity::Error,
             c.clone().unwrap_or_else(|| "data".into()),
             "fit-failed",

@@ -8,11 +8,11 @@
 //! words and border patterns, not colour alone, so a greyscale print keeps them.
 //!
 //! ```
-//! use ebullio::report::html::{Finding, Report, Severity, Table};
+//! use ebullio::report::html::{FindingRow, Report, Severity, Table};
 //! let mut r = Report::new("Vapor-pressure fit <HV-12>");
 //! r.section("Summary")
 //!     .paragraph("One outlier & one extrapolation.")
-//!     .findings(vec![Finding::new(Severity::Warning, "HV-12", "outlier-point", "Point 6 is far off.")]);
+//!     .findings(vec![FindingRow::new(Severity::Warning, "HV-12", "outlier-point", "Point 6 is far off.")]);
 //! let mut t = Table::new(["quantity", "value"]);
 //! t.row(["Tb/K", "456.2"]);
 //! r.section("Constants").table(t);
@@ -48,9 +48,11 @@ pub fn escape(s: &str) -> String {
 /// Severity of a finding: the same type the table screener uses.
 pub use crate::screen::Severity;
 
-/// One finding shown in the report: what it is about, a stable code, a sentence.
+/// One line of a report's findings table: the view of a
+/// [`Finding`](crate::finding::Finding) (or of a row's several codes, or of a job that
+/// failed) with its subject written out.
 #[derive(Debug, Clone, PartialEq, Serialize)]
-pub struct Finding {
+pub struct FindingRow {
     /// Severity.
     pub severity: Severity,
     /// What it is about (compound, row, file).
@@ -61,7 +63,7 @@ pub struct Finding {
     pub message: String,
 }
 
-impl Finding {
+impl FindingRow {
     /// A finding.
     pub fn new(
         severity: Severity,
@@ -75,6 +77,17 @@ impl Finding {
             code: code.into(),
             message: message.into(),
         }
+    }
+
+    /// The row showing `f`; `subject` names what the job was about, used when the
+    /// finding is about the whole job.
+    pub fn of(f: &crate::finding::Finding, subject: impl Into<String>) -> Self {
+        let subject = if f.subject.is_whole() {
+            subject.into()
+        } else {
+            f.subject.to_string()
+        };
+        Self::new(f.severity, subject, f.code.as_str(), f.message.clone())
     }
 }
 
@@ -204,7 +217,7 @@ pub enum Block {
     /// A paragraph of text.
     Paragraph(String),
     /// A list of findings, worst first.
-    Findings(Vec<Finding>),
+    Findings(Vec<FindingRow>),
     /// A table.
     Table(Table),
     /// An inline SVG figure.
@@ -241,7 +254,7 @@ impl Section {
     }
 
     /// Add findings (sorted worst first, order otherwise kept).
-    pub fn findings(&mut self, mut findings: Vec<Finding>) -> &mut Self {
+    pub fn findings(&mut self, mut findings: Vec<FindingRow>) -> &mut Self {
         findings.sort_by_key(|f| std::cmp::Reverse(f.severity));
         self.blocks.push(Block::Findings(findings));
         self
@@ -613,7 +626,7 @@ mod tests {
             .list([evil])
             .facts([(evil, evil)])
             .code(evil)
-            .findings(vec![Finding::new(Severity::Error, evil, evil, evil)]);
+            .findings(vec![FindingRow::new(Severity::Error, evil, evil, evil)]);
         let mut t = Table::new([evil]).caption(evil);
         t.flagged_row([evil], Some(Severity::Warning));
         s.table(t);
@@ -647,9 +660,9 @@ mod tests {
     fn findings_are_sorted_worst_first_and_labelled_in_words() {
         let mut r = Report::new("t");
         r.section("Summary").findings(vec![
-            Finding::new(Severity::Info, "a", "x-info", "i"),
-            Finding::new(Severity::Error, "b", "x-error", "e"),
-            Finding::new(Severity::Warning, "c", "x-warning", "w"),
+            FindingRow::new(Severity::Info, "a", "x-info", "i"),
+            FindingRow::new(Severity::Error, "b", "x-error", "e"),
+            FindingRow::new(Severity::Warning, "c", "x-warning", "w"),
         ]);
         let html = r.render();
         let e = html.find("x-error").unwrap();

@@ -3,7 +3,7 @@
 //! Used by the demo (and by any command that reports a plan). Formatting only.
 
 use super::fit_section::mbar;
-use super::html::{Figure, Finding, Section, Severity, Table};
+use super::html::{Figure, FindingRow, Section, Severity, Table};
 use crate::plan::{Component, Plan};
 
 fn c(t_k: f64) -> String {
@@ -15,13 +15,13 @@ fn opt(v: Option<f64>, digits: usize) -> String {
 }
 
 /// The plan's verdict and findings as report findings, the key pair as subject.
-pub fn plan_findings(plan: &Plan) -> Vec<Finding> {
+pub fn plan_findings(plan: &Plan) -> Vec<FindingRow> {
     let subject = format!("{} / {}", plan.key_pair[0], plan.key_pair[1]);
     let code = serde_json::to_value(plan.verdict.code)
         .ok()
         .and_then(|v| v.as_str().map(String::from))
         .unwrap_or_default();
-    let mut out = vec![Finding::new(
+    let mut out = vec![FindingRow::new(
         Severity::Info,
         subject.clone(),
         format!("plan-{code}"),
@@ -30,7 +30,7 @@ pub fn plan_findings(plan: &Plan) -> Vec<Finding> {
     out.extend(
         plan.findings
             .iter()
-            .map(|f| Finding::new(f.severity, subject.clone(), f.code, f.message.clone())),
+            .map(|f| FindingRow::of(f, subject.clone())),
     );
     out
 }
@@ -187,14 +187,7 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
     section.findings(
         plan.findings
             .iter()
-            .map(|f| {
-                Finding::new(
-                    f.severity,
-                    format!("{} / {}", plan.key_pair[0], plan.key_pair[1]),
-                    f.code,
-                    f.message.clone(),
-                )
-            })
+            .map(|f| FindingRow::of(f, format!("{} / {}", plan.key_pair[0], plan.key_pair[1])))
             .collect(),
     );
     section.paragraph(format!("Limits: {}", plan.limits));

@@ -8,7 +8,7 @@
 //! the evidence singles it out (far beyond the tolerance, the only candidate),
 //! a second finding naming the slip ([`super::slip`]).
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use super::slip::diagnose;
 use crate::units::TemperatureUnit;
 use crate::vapor::AntoineConstants;
@@ -30,7 +30,7 @@ pub fn check_implied_vs_listed(
         return;
     }
     out.push(Finding::new(
-        Code::TbAntoineMismatch,
+        CheckCode::TbAntoineMismatch,
         format!(
             "The Antoine constants imply a normal boiling point of {implied_tb_k:.1} K; the listed {listed_tb_k:.1} K disagrees by {:.1} K (tolerance {tol_k} K).",
             d.abs()
@@ -61,6 +61,9 @@ mod tests {
         let t = wrong.t_at(ATM_PA).unwrap();
         check_implied_vs_listed(&wrong, t, 329.35, TemperatureUnit::Kelvin, 1.0, &mut out);
         let codes: Vec<_> = out.iter().map(|f| f.code).collect();
-        assert_eq!(codes, [Code::TbAntoineMismatch, Code::SlipPressureUnit]);
+        assert_eq!(
+            codes,
+            [CheckCode::TbAntoineMismatch, CheckCode::SlipPressureUnit]
+        );
     }
 }

@@ -5,7 +5,7 @@
 //! constant for non-associating liquids); the band used is common practice,
 //! see [`crate::vapor::slope::TROUTON_BAND_J_MOL_K`].
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use crate::vapor::slope::{svap_j_mol_k, trouton_plausible, TROUTON_BAND_J_MOL_K};
 use crate::vapor::AntoineConstants;
 
@@ -20,7 +20,7 @@ pub fn check_constants(
 ) {
     if k.b <= 0.0 || k.b.is_nan() {
         out.push(Finding::new(
-            Code::AntoineBNotPositive,
+            CheckCode::AntoineBNotPositive,
             format!(
                 "B = {} is not positive, so the vapor pressure would not rise with temperature.",
                 k.b
@@ -41,7 +41,7 @@ pub fn check_constants(
     if let Some((rlo, rhi)) = k.range_k {
         if rlo.is_finite() && rhi.is_finite() && rlo >= rhi {
             out.push(Finding::new(
-                Code::RangeInverted,
+                CheckCode::RangeInverted,
                 format!(
                     "The validity range {rlo:.1}–{rhi:.1} K is empty: Tmin must be below Tmax."
                 ),
@@ -52,7 +52,7 @@ pub fn check_constants(
         let u = k.convention.t_unit;
         let worst = (u.from_kelvin(lo) + k.c).min(u.from_kelvin(hi) + k.c);
         out.push(Finding::new(
-            Code::AntoineDenominatorNotPositive,
+            CheckCode::AntoineDenominatorNotPositive,
             format!(
                 "t + C falls to {worst:.1} (C = {}) within {lo:.1}–{hi:.1} K, where the Antoine equation is undefined.",
                 k.c
@@ -62,7 +62,7 @@ pub fn check_constants(
     }
     let Some(tb) = implied_tb_k else {
         out.push(Finding::new(
-            Code::AntoineNoBoilingPoint,
+            CheckCode::AntoineNoBoilingPoint,
             format!(
                 "The constants never reach one atmosphere (A = {} is too small for the {} convention), so they imply no normal boiling point.",
                 k.a, k.convention
@@ -74,7 +74,7 @@ pub fn check_constants(
     if !trouton_plausible(s) {
         let (blo, bhi) = TROUTON_BAND_J_MOL_K;
         out.push(Finding::new(
-            Code::TroutonImplausible,
+            CheckCode::TroutonImplausible,
             format!(
                 "The constants imply an entropy of vaporization of {s:.0} J/(mol·K) at {tb:.1} K, outside the usual {blo:.0}–{bhi:.0} (Trouton's rule, common practice)."
             ),
@@ -97,7 +97,7 @@ pub fn check_range(k: &AntoineConstants, t_k: f64, listed: bool, out: &mut Vec<F
         (false, false) => return,
     };
     out.push(Finding::new(
-        Code::TbOutsideRange,
+        CheckCode::TbOutsideRange,
         format!(
             "The {which} boiling point {t_k:.1} K lies outside the constants' validity range ({range}), so using them there is an extrapolation."
         ),
@@ -110,7 +110,7 @@ mod tests {
     use crate::units::ATM_PA;
     use crate::vapor::Curve;
 
-    fn codes(v: &[Finding]) -> Vec<Code> {
+    fn codes(v: &[Finding]) -> Vec<crate::finding::Code> {
         v.iter().map(|f| f.code).collect()
     }
 
@@ -136,19 +136,19 @@ mod tests {
         k.b = -2726.81;
         let mut out = vec![];
         check_constants(&k, None, Some(353.15), &mut out);
-        assert_eq!(codes(&out), [Code::AntoineBNotPositive]);
+        assert_eq!(codes(&out), [CheckCode::AntoineBNotPositive]);
 
         let mut k = benzene();
         k.c = -217.572; // t + C < 0 across 6–104 °C
         let mut out = vec![];
         check_constants(&k, k.t_at(ATM_PA), Some(353.15), &mut out);
-        assert_eq!(codes(&out), [Code::AntoineDenominatorNotPositive]);
+        assert_eq!(codes(&out), [CheckCode::AntoineDenominatorNotPositive]);
 
         let mut k = benzene();
         k.a = 3.0; // never reaches 1 atm
         let mut out = vec![];
         check_constants(&k, k.t_at(ATM_PA), None, &mut out);
-        assert_eq!(codes(&out), [Code::AntoineNoBoilingPoint]);
+        assert_eq!(codes(&out), [CheckCode::AntoineNoBoilingPoint]);
     }
 
     #[test]
@@ -158,9 +158,12 @@ mod tests {
         k.a -= 6.0;
         let mut out = vec![];
         check_constants(&k, k.t_at(ATM_PA), None, &mut out);
-        assert!(codes(&out).contains(&Code::TroutonImplausible), "{out:?}");
+        assert!(
+            codes(&out).contains(&CheckCode::TroutonImplausible.into()),
+            "{out:?}"
+        );
         let mut out = vec![];
         check_range(&benzene(), 400.0, true, &mut out);
-        assert_eq!(codes(&out), [Code::TbOutsideRange]);
+        assert_eq!(codes(&out), [CheckCode::TbOutsideRange]);
     }
 }

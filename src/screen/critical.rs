@@ -4,7 +4,7 @@
 //! here, 0.5–0.85, is common practice: it holds from water (0.58) to long
 //! alkanes (about 0.8), so a ratio outside it points at a wrong entry.
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use crate::units::ATM_PA;
 
 /// Band of Tb/Tc accepted as plausible (common practice).
@@ -21,7 +21,7 @@ pub fn check_critical(
     if let Some(pc) = pc_pa {
         if pc <= ATM_PA || pc.is_nan() {
             out.push(Finding::new(
-                Code::PcImplausible,
+                CheckCode::PcImplausible,
                 format!(
                     "The critical pressure {:.3} bar is not above one atmosphere, so no normal boiling point could exist.",
                     pc / 1e5
@@ -35,7 +35,7 @@ pub fn check_critical(
     let which = if listed { "listed" } else { "implied" };
     if tb >= tc {
         out.push(Finding::new(
-            Code::TbAboveTc,
+            CheckCode::TbAboveTc,
             format!(
                 "The {which} boiling point {tb:.1} K is not below the critical temperature {tc:.1} K."
             ),
@@ -46,7 +46,7 @@ pub fn check_critical(
     let (lo, hi) = GULDBERG_BAND;
     if !(lo..=hi).contains(&r) {
         out.push(Finding::new(
-            Code::GuldbergRatio,
+            CheckCode::GuldbergRatio,
             format!(
                 "Tb/Tc = {r:.2} ({which} Tb {tb:.1} K, Tc {tc:.1} K) is far from Guldberg's ratio of about 2/3 (accepted {lo}–{hi}, common practice)."
             ),
@@ -67,9 +67,9 @@ mod tests {
         assert!(out.is_empty(), "{out:?}");
         check_critical(Some(700.0), true, Some(647.096), Some(50_000.0), &mut out);
         let codes: Vec<_> = out.iter().map(|f| f.code).collect();
-        assert_eq!(codes, [Code::PcImplausible, Code::TbAboveTc]);
+        assert_eq!(codes, [CheckCode::PcImplausible, CheckCode::TbAboveTc]);
         out.clear();
         check_critical(Some(373.124), true, Some(1200.0), None, &mut out);
-        assert_eq!(out[0].code, Code::GuldbergRatio);
+        assert_eq!(out[0].code, CheckCode::GuldbergRatio);
     }
 }

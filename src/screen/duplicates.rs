@@ -5,7 +5,7 @@
 //! transitive (union–find), so a row matched by CAS to one row and by name to
 //! another joins both.
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use super::sources::{fast_hash, with_name_key, FastMap};
 use rayon::prelude::*;
 
@@ -206,7 +206,7 @@ pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)
                 out.push((
                     i,
                     Finding::new(
-                        Code::DuplicateDisagrees,
+                        CheckCode::DuplicateDisagrees,
                         format!(
                             "The same compound is also on line {} with a boiling point {d:.1} K different ({:.1} K there, {v:.1} K here).",
                             keys[far].line, keys[far].tb_k

@@ -5,7 +5,7 @@
 //! published and whose listed boiling point is the implied one plus noise.
 //! No row carries a slip, so every `slip-*` finding on them is a false cause.
 
-use super::{screen, Code, RowInput, ScreenContext};
+use super::{screen, CheckCode, RowInput, ScreenContext};
 use crate::reference::table;
 use crate::units::ATM_PA;
 use crate::vapor::Curve;
@@ -62,7 +62,7 @@ pub(crate) fn false_cause_rate(rows: &dyn super::Rows, tol_k: f64) -> (f64, f64)
         if f.iter().any(|x| x.code.as_str().starts_with("slip-")) {
             slips += 1;
         }
-        if f.iter().any(|x| x.code == Code::TbAntoineMismatch) {
+        if f.iter().any(|x| x.code == CheckCode::TbAntoineMismatch) {
             mism += 1;
         }
     }

@@ -1,6 +1,6 @@
 //! Identity checks: CAS check digit and form, and cells that could not be read.
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use crate::reference::cas::{validate, CasError};
 
 /// Check a CAS number; returns the normalised number when it is valid.
@@ -15,7 +15,7 @@ pub fn check_cas<'a>(cas: &'a str, out: &mut Vec<Finding>) -> Option<&'a str> {
             given, expected, ..
         }) => {
             out.push(Finding::new(
-                Code::CasCheckDigit,
+                CheckCode::CasCheckDigit,
                 format!(
                     "CAS number {t} ends in check digit {given}, but its digits give {expected}, so it is mistyped."
                 ),
@@ -24,7 +24,7 @@ pub fn check_cas<'a>(cas: &'a str, out: &mut Vec<Finding>) -> Option<&'a str> {
         }
         Err(CasError::Format(_)) => {
             out.push(Finding::new(
-                Code::CasMalformed,
+                CheckCode::CasMalformed,
                 format!("'{t}' is not a CAS number (expected digits-digits-digit, e.g. 67-64-1)."),
             ));
             None
@@ -36,7 +36,7 @@ pub fn check_cas<'a>(cas: &'a str, out: &mut Vec<Finding>) -> Option<&'a str> {
 pub fn check_unreadable(cells: &[(&str, String)], line: usize, out: &mut Vec<Finding>) {
     for (column, why) in cells {
         out.push(Finding::new(
-            Code::UnreadableCell,
+            CheckCode::UnreadableCell,
             format!("Column '{column}' on line {line}: {why}."),
         ));
     }
@@ -53,8 +53,8 @@ mod tests {
         assert_eq!(check_cas("67-64-1", &mut out), Some("67-64-1"));
         assert!(out.is_empty());
         assert_eq!(check_cas("67-64-2", &mut out), None);
-        assert_eq!(out[0].code, Code::CasCheckDigit);
+        assert_eq!(out[0].code, CheckCode::CasCheckDigit);
         check_cas("67641", &mut out);
-        assert_eq!(out[1].code, Code::CasMalformed);
+        assert_eq!(out[1].code, CheckCode::CasMalformed);
     }
 }

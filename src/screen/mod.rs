@@ -14,7 +14,7 @@
 //! depend on where they come from.
 //!
 //! ```
-//! use ebullio::screen::{screen, Code, RowInput, ScreenContext};
+//! use ebullio::screen::{screen, CheckCode, RowInput, ScreenContext};
 //! // Toluene (Smith, Van Ness & Abbott App. B Table B.2, ln/kPa/°C, tn 383.75 K)
 //! // entered with its convention mislabelled as mmHg.
 //! let conv = "ln,mmHg,degC".parse().unwrap();
@@ -45,7 +45,7 @@ pub mod sources;
 pub mod structure;
 
 pub use bundled::BundledReference;
-pub use finding::{Code, Finding, Severity};
+pub use finding::{CheckCode, Finding, Severity};
 pub use report::{ScreenReport, Summary, WorstRow};
 pub use row::{row_label, AntoineCell, RowInput};
 pub use sources::{
@@ -199,7 +199,7 @@ fn check_row<'r>(
     match &row.antoine {
         AntoineCell::Absent => {}
         AntoineCell::Incomplete => out.push(Finding::new(
-            Code::AntoineIncomplete,
+            CheckCode::AntoineIncomplete,
             "Only some of the Antoine constants A, B, C are given, so the row's curve cannot be checked.",
         )),
         AntoineCell::NoConvention => {}

@@ -7,7 +7,7 @@
 //! Reference: B. Iglewicz and D. C. Hoaglin, *How to Detect and Handle
 //! Outliers*, ASQC Quality Press (1993) (from memory).
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 
 /// |z| above which a residual is an outlier.
 pub const Z_LIMIT: f64 = 3.5;
@@ -61,7 +61,7 @@ pub fn check_outliers(residuals: &[f64]) -> Vec<(usize, Finding)> {
             (
                 i,
                 Finding::new(
-                    Code::StructureOutlier,
+                    CheckCode::StructureOutlier,
                     format!(
                         "Against the structure estimate this row's residual of {:+.1} K is an outlier in the table (robust z = {z:.1}; median {med:+.1} K, MAD {mad:.1} K).",
                         residuals[i]

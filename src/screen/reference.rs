@@ -1,6 +1,6 @@
 //! Boiling point against the reference table (bundled or user-supplied).
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use super::sources::{Identity, ReferenceLookup};
 
 /// Compare `tb_k` (listed, or implied when `listed` is false) with the
@@ -20,7 +20,7 @@ pub fn check_reference(
     if d.abs() > tol_k {
         let which = if listed { "listed" } else { "implied" };
         out.push(Finding::new(
-            Code::ReferenceMismatch,
+            CheckCode::ReferenceMismatch,
             format!(
                 "The {which} boiling point {tb_k:.1} K differs by {:.1} K from the reference value {:.1} K for {} ({}).",
                 d.abs(),
@@ -56,6 +56,6 @@ mod tests {
         check_reference(&r, &id, 353.5, true, 1.0, &mut out);
         assert!(out.is_empty());
         check_reference(&r, &id, 363.15, true, 1.0, &mut out);
-        assert_eq!(out[0].code, Code::ReferenceMismatch);
+        assert_eq!(out[0].code, CheckCode::ReferenceMismatch);
     }
 }

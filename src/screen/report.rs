@@ -1,6 +1,6 @@
 //! The result of screening: findings per row, the added columns, and a summary.
 
-use super::finding::{Code, Finding, Severity};
+use super::finding::{CheckCode, Finding, Severity};
 use super::row::row_label;
 use super::Rows;
 use serde::Serialize;
@@ -94,16 +94,16 @@ impl ScreenReport {
     }
 
     /// How many rows carry each code, in code order, only codes that occur.
-    pub fn counts(&self) -> Vec<(Code, usize)> {
-        let mut n = vec![0usize; Code::ALL.len()];
+    pub fn counts(&self) -> Vec<(CheckCode, usize)> {
+        let mut n = vec![0usize; CheckCode::ALL.len()];
         for f in &self.findings {
             for x in f {
-                if let Some(k) = Code::ALL.iter().position(|c| *c == x.code) {
+                if let Some(k) = CheckCode::ALL.iter().position(|c| *c == x.code) {
                     n[k] += 1;
                 }
             }
         }
-        Code::ALL
+        CheckCode::ALL
             .iter()
             .zip(n)
             .filter(|(_, k)| *k > 0)

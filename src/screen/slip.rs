@@ -17,7 +17,8 @@
 //!    atm are 1.3 % apart) are named together.
 //!
 //! Otherwise the row only says how far apart the two boiling points are.
-use super::finding::Code;
+
+use super::finding::CheckCode;
 use crate::units::{PressureUnit, TemperatureUnit, ATM_PA, CELSIUS_OFFSET};
 use crate::vapor::slope::{svap_j_mol_k, trouton_plausible};
 use crate::vapor::{AntoineConstants, AntoineConvention, Curve, LogBase};
@@ -42,7 +43,7 @@ pub const SLIP_CLAIM_MULTIPLE: f64 = 5.0;
 #[derive(Debug, Clone, PartialEq)]
 pub struct Slip {
     /// Which slip (one of the `slip-*` codes).
-    pub code: Code,
+    pub code: CheckCode,
     /// The boiling point the row gives once the slip is undone, K.
     pub corrected_tb_k: f64,
     /// The value it is compared with, K (listed Tb, or implied Tb for a Tb slip).
@@ -76,14 +77,14 @@ fn t_unit_word(u: TemperatureUnit) -> &'static str {
 ///
 /// ```
 /// use ebullio::screen::slip::diagnose;
-/// use ebullio::screen::Code;
+/// use ebullio::screen::CheckCode;
 /// use ebullio::units::TemperatureUnit;
 /// use ebullio::vapor::AntoineConstants;
 /// // Toluene ln(p/kPa) constants (Smith, Van Ness & Abbott, App. B Table B.2)
 /// // labelled as ln(p/mmHg): the listed 383.8 K only fits with kPa.
 /// let k = AntoineConstants::new(13.9320, 3056.96, 217.625, "ln,mmHg,degC".parse().unwrap());
 /// let slip = diagnose(&k, 383.8, TemperatureUnit::Kelvin, 1.0).unwrap();
-/// assert_eq!(slip.code, Code::SlipPressureUnit);
+/// assert_eq!(slip.code, CheckCode::SlipPressureUnit);
 /// assert!(slip.message.contains("kPa, not mmHg"));
 /// ```
 pub fn diagnose(
@@ -136,7 +137,7 @@ pub fn diagnose(
                     format!("the implied Tb is {t:.1} K, matching the listed {listed_tb_k:.1} K");
                 let (code, message) = match (dp, db, dt) {
                     (1, 0, 0) => (
-                        Code::SlipPressureUnit,
+                        CheckCode::SlipPressureUnit,
                         format!(
                             "The constants look like {}, not {}: with {} {tail}.",
                             p_unit.symbol(),
@@ -145,7 +146,7 @@ pub fn diagnose(
                         ),
                     ),
                     (0, 1, 0) => (
-                        Code::SlipLogBase,
+                        CheckCode::SlipLogBase,
                         format!(
                             "The constants look like {}, not {}: with {} {tail}.",
                             log_base.symbol(),
@@ -154,7 +155,7 @@ pub fn diagnose(
                         ),
                     ),
                     (0, 0, 1) => (
-                        Code::SlipConstantsTemperatureUnit,
+                        CheckCode::SlipConstantsTemperatureUnit,
                         format!(
                             "The constants look like they are for t in {}, not {} (C = {}): read that way {tail}.",
                             t_unit_word(t_unit),
@@ -163,7 +164,7 @@ pub fn diagnose(
                         ),
                     ),
                     _ => (
-                        Code::SlipConvention,
+                        CheckCode::SlipConvention,
                         format!(
                             "The constants look like {conv}, not {declared}: with {conv} {tail}."
                         ),
@@ -183,7 +184,7 @@ pub fn diagnose(
                     tol_k,
                 );
                 if let Some(c) = best.last_mut() {
-                    if c.2.code == Code::SlipPressureUnit && c.3.is_none() {
+                    if c.2.code == CheckCode::SlipPressureUnit && c.3.is_none() {
                         c.3 = Some(p_unit);
                     }
                 }
@@ -204,7 +205,7 @@ pub fn diagnose(
             (t - listed_tb_k).abs(),
             &swapped,
             Slip {
-                code: Code::SlipSwappedAB,
+                code: CheckCode::SlipSwappedAB,
                 corrected_tb_k: t,
                 matches_k: listed_tb_k,
                 message: format!(
@@ -231,7 +232,7 @@ pub fn diagnose(
                 (as_k - t_impl).abs(),
                 k,
                 Slip {
-                    code: Code::SlipTbTemperatureUnit,
+                    code: CheckCode::SlipTbTemperatureUnit,
                     corrected_tb_k: as_k,
                     matches_k: t_impl,
                     message: format!(
@@ -282,7 +283,7 @@ fn choose(cands: Vec<Cand>, declared: &AntoineConvention) -> Option<Slip> {
             })
             .collect();
         return Some(Slip {
-            code: Code::SlipPressureUnit,
+            code: CheckCode::SlipPressureUnit,
             corrected_tb_k: first.corrected_tb_k,
             matches_k: listed,
             message: format!(
@@ -476,7 +477,7 @@ fn digit_slips(
                 residual,
                 &alt,
                 Slip {
-                    code: Code::SlipDigit,
+                    code: CheckCode::SlipDigit,
                     corrected_tb_k: t,
                     matches_k: listed_tb_k,
                     message: format!(
@@ -506,7 +507,7 @@ fn digit_slips(
             (as_k - t_impl).abs(),
             k,
             Slip {
-                code: Code::SlipDigit,
+                code: CheckCode::SlipDigit,
                 corrected_tb_k: as_k,
                 matches_k: t_impl,
                 message: format!(
@@ -562,7 +563,7 @@ mod tests {
             1.0,
         )
         .unwrap();
-        assert_eq!(s.code, Code::SlipPressureUnit);
+        assert_eq!(s.code, CheckCode::SlipPressureUnit);
         assert!(s.message.contains("kPa, not mmHg"), "{}", s.message);
         assert!((s.corrected_tb_k - TOLUENE_TB_K).abs() < 1.0);
     }
@@ -576,7 +577,7 @@ mod tests {
             1.0,
         )
         .unwrap();
-        assert_eq!(s.code, Code::SlipLogBase);
+        assert_eq!(s.code, CheckCode::SlipLogBase);
         assert!(s.message.contains("ln, not log10"), "{}", s.message);
     }
 
@@ -589,7 +590,7 @@ mod tests {
             1.0,
         )
         .unwrap();
-        assert_eq!(s.code, Code::SlipConvention);
+        assert_eq!(s.code, CheckCode::SlipConvention);
         assert!(s.message.contains("ln,kPa,degC"), "{}", s.message);
     }
 
@@ -602,10 +603,10 @@ mod tests {
             "ln,kPa,degC".parse().unwrap(),
         );
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipSwappedAB);
+        assert_eq!(s.code, CheckCode::SlipSwappedAB);
         // 110.6 written into a K column
         let s = diagnose(&toluene("ln,kPa,degC"), 110.6, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipTbTemperatureUnit);
+        assert_eq!(s.code, CheckCode::SlipTbTemperatureUnit);
         assert!(s.message.contains("°C written as K"), "{}", s.message);
     }
 
@@ -615,7 +616,12 @@ mod tests {
     fn rps_toluene_kelvin_constants_labelled_celsius() {
         let k = AntoineConstants::new(16.0137, 3096.52, -53.67, "ln,mmHg,degC".parse().unwrap());
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipConstantsTemperatureUnit, "{}", s.message);
+        assert_eq!(
+            s.code,
+            CheckCode::SlipConstantsTemperatureUnit,
+            "{}",
+            s.message
+        );
     }
 
     #[test]
@@ -628,7 +634,7 @@ mod tests {
             "ln,kPa,degC".parse().unwrap(),
         );
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipDigit);
+        assert_eq!(s.code, CheckCode::SlipDigit);
         assert!(
             s.message.contains("B = 3056.96 instead of 305.696"),
             "{}",
@@ -637,7 +643,7 @@ mod tests {
         // B with its 5 dropped: 306.96.
         let k = AntoineConstants::new(TOLUENE.0, 306.96, TOLUENE.2, "ln,kPa,degC".parse().unwrap());
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipDigit);
+        assert_eq!(s.code, CheckCode::SlipDigit);
         assert!(s.message.contains("dropped digit"), "{}", s.message);
         // Tb 383.75 typed without its decimal point.
         let s = diagnose(
@@ -647,7 +653,7 @@ mod tests {
             1.0,
         )
         .unwrap();
-        assert_eq!(s.code, Code::SlipDigit);
+        assert_eq!(s.code, CheckCode::SlipDigit);
         assert!(
             s.message.contains("383.75 K instead of 38375 K"),
             "{}",
@@ -673,7 +679,7 @@ mod tests {
             "ln,kPa,degC".parse().unwrap(),
         );
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipDigit);
+        assert_eq!(s.code, CheckCode::SlipDigit);
         assert!(
             s.message.contains("two adjacent digits swapped")
                 && s.message.contains("B = 3056.96 instead of 3506.96"),
@@ -706,7 +712,7 @@ mod tests {
             "ln,mmHg,degC".parse().unwrap(),
         );
         let s = diagnose(&k, TOLUENE_TB_K, TemperatureUnit::Kelvin, 1.0).unwrap();
-        assert_eq!(s.code, Code::SlipPressureUnit);
+        assert_eq!(s.code, CheckCode::SlipPressureUnit);
         assert!(
             s.message.contains("bar or atm, not mmHg") && s.message.contains("cannot tell"),
             "{}",

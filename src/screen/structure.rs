@@ -4,7 +4,7 @@
 //! for a correct entry (about 0.3 % of rows for normally distributed errors),
 //! so it is flagged as a warning, not an error: the method can be wrong too.
 
-use super::finding::{Code, Finding};
+use super::finding::{CheckCode, Finding};
 use super::sources::StructureOutcome;
 
 /// Multiple of the typical error beyond which a row is flagged.
@@ -22,7 +22,7 @@ pub fn check_structure(
     match outcome {
         StructureOutcome::Unreadable { reason } => {
             out.push(Finding::new(
-                Code::SmilesUnreadable,
+                CheckCode::SmilesUnreadable,
                 format!("The SMILES '{smiles}' cannot be read: {reason}."),
             ));
             None
@@ -39,7 +39,7 @@ pub fn check_structure(
             if d.abs() > limit {
                 let which = if listed { "listed" } else { "implied" };
                 out.push(Finding::new(
-                    Code::TbStructureMismatch,
+                    CheckCode::TbStructureMismatch,
                     format!(
                         "The {which} boiling point {tb:.1} K is {:.1} K from the structure estimate {est:.1} K, more than {STRUCTURE_SIGMAS} times the method's typical error of {typical_error_k:.1} K.",
                         d.abs()
@@ -69,11 +69,11 @@ mod tests {
         );
         assert!(out.is_empty());
         check_structure("CCO", &est, Some(385.0), true, &mut out);
-        assert_eq!(out[0].code, Code::TbStructureMismatch);
+        assert_eq!(out[0].code, CheckCode::TbStructureMismatch);
         let bad = StructureOutcome::Unreadable {
             reason: "ring 1 not closed".into(),
         };
         check_structure("C1CC", &bad, Some(385.0), true, &mut out);
-        assert_eq!(out[1].code, Code::SmilesUnreadable);
+        assert_eq!(out[1].code, CheckCode::SmilesUnreadable);
     }
 }

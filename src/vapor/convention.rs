@@ -129,6 +129,24 @@ impl fmt::Display for AntoineConvention {
     }
 }
 
+/// Serde for a convention written as text (`log10,mmHg,degC`), as in fit reports:
+/// `#[serde(with = "crate::vapor::convention::as_text")]`.
+pub mod as_text {
+    use super::AntoineConvention;
+    use serde::{Deserialize, Deserializer, Serializer};
+
+    /// Write the convention as `base,p_unit,t_unit`.
+    pub fn serialize<S: Serializer>(c: &AntoineConvention, s: S) -> Result<S::Ok, S::Error> {
+        s.collect_str(c)
+    }
+
+    /// Read `base,p_unit,t_unit`.
+    pub fn deserialize<'de, D: Deserializer<'de>>(d: D) -> Result<AntoineConvention, D::Error> {
+        let text = String::deserialize(d)?;
+        text.parse().map_err(serde::de::Error::custom)
+    }
+}
+
 /// Antoine constants with their convention and, optionally, validity range.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct AntoineConstants {

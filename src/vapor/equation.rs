@@ -93,7 +93,56 @@ pub enum Equation {
     Wagner(Wagner),
 }
 
+/// Which equation, by name: `antoine`, `clapeyron`, `riedel` or `wagner` in JSON and
+/// on the command line.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Model {
+    /// ln p = A − B/T.
+    Clapeyron,
+    /// ln(p/Pa) = A − B/(T/K + C).
+    Antoine,
+    /// ln p = A + B/T + C ln T + D T⁶.
+    Riedel,
+    /// Wagner 2.5–5 form.
+    Wagner,
+}
+
+impl Model {
+    /// The lower-case name.
+    pub fn as_str(self) -> &'static str {
+        match self {
+            Model::Clapeyron => "clapeyron",
+            Model::Antoine => "antoine",
+            Model::Riedel => "riedel",
+            Model::Wagner => "wagner",
+        }
+    }
+}
+
+impl std::fmt::Display for Model {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(self.as_str())
+    }
+}
+
+impl PartialEq<&str> for Model {
+    fn eq(&self, other: &&str) -> bool {
+        self.as_str() == *other
+    }
+}
+
 impl Equation {
+    /// Which equation this is.
+    pub fn model(&self) -> Model {
+        match self {
+            Equation::Clapeyron(_) => Model::Clapeyron,
+            Equation::Antoine(_) => Model::Antoine,
+            Equation::Riedel(_) => Model::Riedel,
+            Equation::Wagner(_) => Model::Wagner,
+        }
+    }
+
     /// The equation as a trait object.
     pub fn as_dyn(&self) -> &dyn VaporEquation {
         match self {

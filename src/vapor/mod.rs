@@ -8,7 +8,7 @@
 
 mod antoine;
 mod clapeyron;
-mod convention;
+pub mod convention;
 pub mod convert;
 mod curve;
 pub mod equation;
@@ -20,6 +20,6 @@ pub use antoine::Antoine;
 pub use clapeyron::Clapeyron;
 pub use convention::{AntoineConstants, AntoineConvention, ConventionError, LogBase};
 pub use curve::{invert_monotone, Curve};
-pub use equation::{Equation, VaporEquation};
+pub use equation::{Equation, Model, VaporEquation};
 pub use riedel::Riedel;
 pub use wagner::Wagner;
