@@ -36,7 +36,7 @@ pub struct Refit {
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum RefitError {
     /// No validity range: nothing to refit over.
-    #[error("the constants carry no validity range; give one (e.g. --range \"20 degC..110 degC\") to refit over")]
+    #[error("the constants carry no validity range to refit over")]
     NoRange,
     /// The Antoine curve is undefined somewhere in the range.
     #[error("the Antoine equation is undefined at {0:.2} K inside the range (t + C <= 0)")]

@@ -27,17 +27,17 @@ pub fn barometric() -> Option<ebullio::units::Pressure> {
 }
 
 /// Parse a pressure given on the command line: absolute, or gauge with `--barometric`.
-pub fn parse_pressure(s: &str) -> Result<ebullio::units::Pressure, ebullio::units::UnitError> {
-    ebullio::units::parse_pressure_at(s, barometric())
+pub fn parse_pressure(s: &str) -> Result<ebullio::units::Pressure, super::hints::UnitHint> {
+    ebullio::units::parse_pressure_at(s, barometric()).map_err(super::hints::UnitHint)
 }
 
 /// Parse a temperature or a pressure given on the command line (gauge with `--barometric`).
-pub fn parse_quantity(s: &str) -> Result<ebullio::units::Quantity, ebullio::units::UnitError> {
+pub fn parse_quantity(s: &str) -> Result<ebullio::units::Quantity, super::hints::UnitHint> {
     match ebullio::units::parse_quantity(s) {
         Err(ebullio::units::UnitError::GaugePressure { .. }) if barometric().is_some() => {
             parse_pressure(s).map(ebullio::units::Quantity::Pressure)
         }
-        r => r,
+        r => r.map_err(super::hints::UnitHint),
     }
 }
 

@@ -142,7 +142,7 @@ fn run_refit(args: &Args, k: AntoineConstants, model: ModelSelection) -> anyhow:
         }
         None => None,
     };
-    let r = refit(&k, model, critical).map_err(|e| InputError(e.to_string()))?;
+    let r = refit(&k, model, critical).map_err(|e| InputError(super::hints::refit_error(&e)))?;
     let out = Refitted {
         model: r.model.clone(),
         equation: equation_form(model),

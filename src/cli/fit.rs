@@ -266,7 +266,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             }
             Err(e) => Row::Failed {
                 compound: s.compound.clone(),
-                error: e.to_string(),
+                error: super::hints::fit_error(&e),
             },
         })
         .collect();

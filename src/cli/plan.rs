@@ -332,7 +332,7 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
 
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let (comps, opts) = resolve(&args)?;
-    let p = plan::plan(&comps, &opts).map_err(|e| InputError(e.to_string()))?;
+    let p = plan::plan(&comps, &opts).map_err(|e| InputError(super::hints::plan_error(&e)))?;
     if let Some(path) = &args.plot {
         let svg = ebullio::report::plan_plot::plan_svg(&p, &comps)?;
         let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();

@@ -1,5 +1,6 @@
 //! `ebullio vle`: vapor–liquid equilibrium of a binary (diagram, azeotropes, liquid split).
 
+use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
@@ -7,7 +8,7 @@ use ebullio::mixture::{
     self, ActivityModel, Condition, Ideal, Nrtl, StudyComponent, StudyOptions, Unifac, VleStudy,
     Wilson,
 };
-use ebullio::units::{parse_pressure, parse_temperature, ATM_PA, CELSIUS_OFFSET};
+use ebullio::units::{parse_temperature, ATM_PA, CELSIUS_OFFSET};
 use ebullio::vapor::Curve;
 use serde::Serialize;
 use std::fmt::Write as _;

@@ -24,23 +24,29 @@
 // Index loops mirror the formulas (matrix subscripts); iterator chains would hide them.
 #![allow(clippy::needless_range_loop)]
 
+mod build;
 pub mod comparison;
 pub mod curve;
 pub mod equation_fit;
+pub mod error;
 pub mod findings;
+mod fit_findings;
 pub mod linear;
 pub mod lsq;
 pub mod options;
+mod outlier_refit;
 pub mod plausibility;
 pub mod report;
 pub mod stats;
 pub mod svd;
 pub mod termination;
+mod validate;
 pub mod vapor_fit;
 
 pub use curve::FittedCurve;
 pub use equation_fit::{Point, RobustLoss};
+pub use error::FitError;
 pub use findings::{Finding, FitCode, Severity};
 pub use options::{At, Exclude, FitOptions, ModelSelection};
 pub use report::{FitReport, PredictionKind};
-pub use vapor_fit::{fit_points, fit_points_with_lines, FitError};
+pub use vapor_fit::{fit_points, fit_points_with_lines};

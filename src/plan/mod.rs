@@ -113,7 +113,7 @@ pub enum PlanError {
         x: f64,
     },
     /// UNIFAC was asked for but a component has no structure.
-    #[error("--model unifac needs a structure (SMILES) for {name}; give the component with --smiles or use --model ideal")]
+    #[error("the UNIFAC model needs a structure (SMILES) for {name}; give the component as a structure or choose the ideal-solution model")]
     NoStructure {
         /// The components without one.
         name: String,

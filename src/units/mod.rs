@@ -92,7 +92,7 @@ pub enum UnitError {
     },
     /// A gauge pressure unit given where no barometric pressure is known.
     #[error(
-        "'{unit}' is a gauge pressure (relative to the atmosphere); give the site's barometric pressure, e.g. --barometric \"1013 mbar\", to convert it to absolute, or write the value in absolute {base}"
+        "'{unit}' is a gauge pressure (relative to the atmosphere); give the site's barometric pressure to convert it to absolute, or write the value in absolute {base}"
     )]
     GaugePressure {
         /// The unit as written.

@@ -292,7 +292,7 @@ mod tests {
             assert!(matches!(e, UnitError::GaugePressure { .. }), "{text}: {e}");
             let msg = e.to_string();
             assert!(
-                msg.contains("gauge") && msg.contains("--barometric"),
+                msg.contains("gauge") && msg.contains("barometric pressure"),
                 "{msg}"
             );
             assert!(!msg.contains("unknown"), "{msg}");
