@@ -91,7 +91,7 @@ pub fn parse_temperature(s: &str) -> Result<Temperature, UnitError> {
 /// use ebullio::units::parse_pressure;
 /// assert!((parse_pressure("1 atm").unwrap().pa() - 101_325.0).abs() < 1e-9);
 /// assert!(parse_pressure("0 mbar").is_err());
-/// assert!(parse_pressure("0.5 barg").unwrap_err().to_string().contains("--barometric"));
+/// assert!(parse_pressure("0.5 barg").unwrap_err().to_string().contains("barometric pressure"));
 /// ```
 pub fn parse_pressure(s: &str) -> Result<Pressure, UnitError> {
     parse_pressure_at(s, None)
