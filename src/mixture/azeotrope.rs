@@ -10,10 +10,10 @@
 //! Systems*, McGraw-Hill 2001, Ch. 2 (azeotropes of binary mixtures).
 
 use super::{Binary, Condition, MixtureError, VlePoint};
-use serde::Serialize;
+use serde::{Deserialize, Serialize};
 
 /// The kind of azeotrope.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum AzeotropeKind {
     /// Positive deviation: boils below both neighbours.

@@ -33,12 +33,16 @@ mod azeotrope;
 mod diagram;
 mod equilibrium;
 mod error;
+pub mod fit;
+mod legendre;
+mod margules;
 mod nrtl;
 mod stability;
 mod study;
 mod unifac;
 mod unifac_groups;
 mod unifac_table;
+mod van_laar;
 mod wilson;
 
 pub use activity::{ActivityModel, Ideal};
@@ -46,6 +50,8 @@ pub use azeotrope::{Azeotrope, AzeotropeKind};
 pub use diagram::Condition;
 pub use equilibrium::{Binary, VlePoint};
 pub use error::MixtureError;
+pub use legendre::{Legendre, MAX_LEGENDRE_TERMS};
+pub use margules::Margules;
 pub use nrtl::Nrtl;
 pub use stability::{is_unstable, liquid_split_at, polish_split, stability_slope, ThreePhase};
 pub use study::{
@@ -55,6 +61,7 @@ pub use study::{
 pub use unifac::{Unifac, MAX_SUBGROUPS};
 pub use unifac_groups::{assign_subgroups, subgroup_names, SubgroupCounts};
 pub use unifac_table::{unifac_table, Subgroup, UnifacTable};
+pub use van_laar::VanLaar;
 pub use wilson::Wilson;
 
 #[cfg(test)]

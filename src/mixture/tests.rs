@@ -126,6 +126,11 @@ fn models() -> Vec<Box<dyn ActivityModel>> {
         Box::new(Unifac::from_smiles(["Cc1ccccc1", "O"]).unwrap()),
         Box::new(Unifac::from_smiles(["CCOC(C)=O", "CCCCCC"]).unwrap()),
         Box::new(Unifac::from_smiles(["CCCCO", "O"]).unwrap()),
+        Box::new(Margules::new(0.7, 1.4).unwrap()),
+        Box::new(Margules::new(-0.6, -0.2).unwrap()),
+        Box::new(VanLaar::new(0.9, 1.6).unwrap()),
+        Box::new(VanLaar::new(-0.5, -0.8).unwrap()),
+        Box::new(Legendre::new(&[0.8, -0.3, 0.2, 0.1, -0.05]).unwrap()),
     ]
 }
 
