@@ -51,7 +51,7 @@ fn ethanol() -> AntoineConstants {
     AntoineConstants::new(16.8958, 3795.17, 230.918, conv())
 }
 
-const P: f64 = 101_325.0;
+const P: f64 = crate::units::ATM_PA;
 const T_ISO: f64 = 350.0;
 
 /// Data from `truth` at the given x1 (isobaric at 1 atm or isothermal at 350 K),
