@@ -16,6 +16,7 @@
 //! assert_eq!(f.severity, Severity::Warning);
 //! ```
 
+mod binary_fit;
 mod check;
 mod fit;
 mod mixture;
@@ -23,6 +24,7 @@ mod plan;
 mod reference;
 
 pub use crate::severity::Severity;
+pub use binary_fit::BinaryFitCode;
 pub use check::CheckCode;
 pub use fit::FitCode;
 pub use mixture::MixtureCode;
@@ -164,6 +166,8 @@ codes_of_domains! {
     Check(CheckCode),
     /// About a two-component vapor-liquid study.
     Mixture(MixtureCode),
+    /// About a binary VLE data fit.
+    BinaryFit(BinaryFitCode),
 }
 
 impl std::fmt::Display for Code {
@@ -285,6 +289,12 @@ mod tests {
                 .collect::<Vec<_>>(),
         );
         check(&PlanCode::ALL.iter().map(|c| c.as_str()).collect::<Vec<_>>());
+        check(
+            &BinaryFitCode::ALL
+                .iter()
+                .map(|c| c.as_str())
+                .collect::<Vec<_>>(),
+        );
         check(
             &ReferenceCode::ALL
                 .iter()

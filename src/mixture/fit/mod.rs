@@ -24,7 +24,7 @@
 //! }).collect();
 //! let data = BinaryData { kind: DataKind::Isobaric, points };
 //! let r = fit_binary(&data, [&bz, &tol], vec![], &BinaryFitOptions::default()).unwrap();
-//! assert!(r.statistics.termination.converged);
+//! assert!(r.statistics.termination.is_success());
 //! assert!(r.consistency.iter().all(|t| t.passed));
 //! ```
 

@@ -9,9 +9,9 @@
 use super::data::DataKind;
 use super::model::FitModel;
 use super::problem::Uncertainties;
+use crate::finding::Finding;
 use crate::fit::lsq::Termination;
 use crate::fit::report::ParameterEstimate;
-use crate::fit::Finding;
 use crate::mixture::AzeotropeKind;
 use serde::{Deserialize, Serialize};
 

@@ -18,9 +18,9 @@ use super::point_test::point_test;
 use super::problem::{Obs, Uncertainties, VleProblem};
 use super::report::*;
 use super::solve::{fit_model, ModelFit};
+use crate::finding::{BinaryFitCode, Finding, FitCode, MixtureCode};
 use crate::fit::report::ParameterEstimate;
 use crate::fit::stats::{external_studentized, t_quantile};
-use crate::fit::{Finding, Severity};
 use crate::mixture::Condition;
 use crate::vapor::Curve;
 
@@ -182,8 +182,7 @@ fn build_report(
     let mut flags = Vec::new();
     if !converged {
         flags.push(Finding::new(
-            "not-converged",
-            Severity::Error,
+            FitCode::NotConverged,
             format!(
                 "the {} fit did not converge ({}); its parameters are not estimates and no interval is given.",
                 f.model.name(),
@@ -273,8 +272,7 @@ fn build_report(
     }
     for p in points.iter().filter(|p| p.outlier) {
         flags.push(Finding::new(
-            "outlier-point",
-            Severity::Warning,
+            FitCode::OutlierPoint,
             format!(
                 "point {}{} (x1 = {}) deviates beyond the Bonferroni limit {:.2} of the externally studentized residuals (T or p: {}, y1: {}); it was kept: check the analysis and the still's steady state.",
                 p.number,
@@ -316,8 +314,7 @@ fn build_report(
     };
     if converged && dof >= 3 && s2 > 4.0 {
         flags.push(Finding::new(
-            "scatter-above-stated",
-            Severity::Warning,
+            BinaryFitCode::ScatterAboveStated,
             format!(
                 "the residuals are {:.1} times the stated uncertainties (reduced chi-square {:.1}): either the uncertainties are understated or the model does not describe the data; the intervals use the observed scatter.",
                 s2.sqrt(),
@@ -355,8 +352,7 @@ fn build_report(
         a.condition_ci95 = a.condition_ci95.map(|[l, h]| [sig(l, 6), sig(h, 6)]);
         if !a.inside_data {
             flags.push(Finding::new(
-                "azeotrope-outside-data",
-                Severity::Info,
+                BinaryFitCode::AzeotropeOutsideData,
                 format!(
                     "the fitted model puts a {} azeotrope at x1 = {}, outside the measured compositions: it is an extrapolation until measured.",
                     a.kind.as_str(),
@@ -377,8 +373,7 @@ fn build_report(
     if liquid_split.inside_data {
         let [a, b] = liquid_split.x1.unwrap_or([f64::NAN; 2]);
         flags.push(Finding::new(
-            "fitted-liquid-split",
-            Severity::Warning,
+            BinaryFitCode::FittedLiquidSplit,
             format!(
                 "the fitted {} parameters split the liquid between x1 = {:.3} and {:.3} at {:.1} K, where the data show one liquid: the parameters are not usable for distillation there; try another model.",
                 f.model.name(),
@@ -393,8 +388,7 @@ fn build_report(
     let (consistency, consistency_not_run) = consistency(data, curves, cond, u);
     for t in consistency.iter().filter(|t| !t.passed) {
         flags.push(Finding::new(
-            "consistency-failed",
-            Severity::Warning,
+            BinaryFitCode::ConsistencyFailed,
             format!(
                 "the {} test fails ({} = {:.3}, needs {}): the data are not thermodynamically consistent; look for a bias in the vapor analysis, the temperature probe or the still's pressure.",
                 t.test, "statistic", t.statistic, t.criterion
@@ -403,8 +397,7 @@ fn build_report(
     }
     if !data.has_y() {
         flags.push(Finding::new(
-            "no-vapor-composition",
-            Severity::Info,
+            BinaryFitCode::NoVaporComposition,
             "no y1 column: the parameters rest on T (or p) alone and no consistency test can run (all three need measured y1).",
         ));
     }
@@ -413,8 +406,7 @@ fn build_report(
         if let Some((a, b)) = c.valid_range_k() {
             if lo < a || hi > b {
                 flags.push(Finding::new(
-                    "vapor-pressure-extrapolated",
-                    Severity::Info,
+                    MixtureCode::VaporPressureExtrapolated,
                     format!(
                         "the vapor pressure of {} is used outside its stated range ({:.1}-{:.1} K).",
                         components.get(i).map_or("a component", |c| c.name.as_str()),

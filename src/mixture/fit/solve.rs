@@ -21,7 +21,7 @@ pub struct ModelFit {
 impl ModelFit {
     /// Whether the solver converged at a finite point.
     pub fn converged(&self) -> bool {
-        self.lsq.termination.converged
+        self.lsq.termination.is_success()
     }
 }
 
@@ -68,7 +68,7 @@ pub fn fit_model(
         let r = lsq::solve(&prob, &prob.sigma, &s, settings());
         let better = match &best {
             None => true,
-            Some(b) => match (r.termination.converged, b.termination.converged) {
+            Some(b) => match (r.termination.is_success(), b.termination.is_success()) {
                 (true, false) => true,
                 (false, true) => false,
                 _ => r.rss < b.rss || !b.rss.is_finite(),
@@ -80,7 +80,7 @@ pub fn fit_model(
     }
     let lsq = best.expect("every model has at least one start");
     let (n, k) = (lsq.residuals.len() as f64, model.n_params() as f64);
-    let aicc = if lsq.termination.converged && n > k + 1.0 && lsq.rss > 0.0 {
+    let aicc = if lsq.termination.is_success() && n > k + 1.0 && lsq.rss > 0.0 {
         n * (lsq.rss / n).ln() + 2.0 * k + 2.0 * k * (k + 1.0) / (n - k - 1.0)
     } else {
         f64::NAN
@@ -90,8 +90,7 @@ pub fn fit_model(
 
 fn not_started() -> lsq::Termination {
     lsq::Termination {
-        converged: false,
-        reason: "start".into(),
+        reason: crate::fit::termination::StopReason::Other("start".into()),
         evaluations: 0,
     }
 }
