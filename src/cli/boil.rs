@@ -5,9 +5,10 @@ use super::common::{Format, OutputArgs};
 use super::convert::parse_abc;
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::boiling::{self, BoilResult, VACUUM_CAUTIONS};
+use ebullio::boiling::{self, VACUUM_CAUTIONS};
 use ebullio::fit::FittedCurve;
 use ebullio::reference::Library;
+use ebullio::report::text::boil::{self as boil_text, BoilReport};
 use ebullio::units::{parse_temperature, ATM_PA};
 use ebullio::vapor::{AntoineConstants, AntoineConvention, Curve};
 use std::path::{Path, PathBuf};
@@ -59,15 +60,6 @@ pub struct Args {
     pub steps: usize,
     #[command(flatten)]
     pub out: OutputArgs,
-}
-
-#[derive(serde::Serialize)]
-struct Report {
-    source: String,
-    mode: &'static str,
-    results: Vec<BoilResult>,
-    notes: Vec<String>,
-    cautions: Vec<String>,
 }
 
 fn split_range(s: &str, what: &str) -> Result<(String, String), InputError> {
@@ -224,7 +216,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
                 name,
                 report.model,
                 report.n_points,
-                excluded_note(report)
+                boil_text::excluded_note(report)
             ),
             k,
         )
@@ -297,7 +289,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     } else {
         Vec::new()
     };
-    let rep = Report {
+    let rep = BoilReport {
         source,
         mode,
         results,
@@ -306,111 +298,9 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     let text = match args.out.format() {
         Format::Json => super::common::json_text(&rep)? + "\n",
-        Format::Csv => {
-            let mut s = String::from(
-                "p_pa,t_k,ci95_low_k,ci95_high_k,ci95_low_pa,ci95_high_pa,extrapolated,error\n",
-            );
-            // A value that could not be computed is an empty cell (the error
-            // column says why), never NaN text; numbers to 12 significant digits.
-            let o = |x: Option<f64>| {
-                x.filter(|v| v.is_finite())
-                    .map_or(String::new(), |v| format!("{}", ebullio::units::tidy(v)))
-            };
-            for r in &rep.results {
-                s.push_str(&format!(
-                    "{},{},{},{},{},{},{},\"{}\"\n",
-                    o(Some(r.p_pa)),
-                    o(Some(r.t_k)),
-                    o(r.ci95_low_k),
-                    o(r.ci95_high_k),
-                    o(r.ci95_low_pa),
-                    o(r.ci95_high_pa),
-                    r.extrapolated,
-                    r.error
-                ));
-            }
-            s
-        }
-        Format::Table => table(&rep),
+        Format::Csv => boil_text::csv(&rep)?,
+        Format::Table => boil_text::table(&rep),
     };
     args.out.emit(&text, &inputs)?;
     Ok(Outcome::Success)
-}
-
-/// "; point 5 (line 6) excluded by the user" for a fit made with `--exclude`.
-fn excluded_note(r: &ebullio::fit::FitReport) -> String {
-    if r.excluded.is_empty() {
-        return String::new();
-    }
-    let list: Vec<String> = r
-        .excluded
-        .iter()
-        .map(|e| match e.line {
-            Some(l) => format!("point {} (line {l})", e.number),
-            None => format!("point {}", e.number),
-        })
-        .collect();
-    format!("; {} excluded by the user", list.join(", "))
-}
-
-fn table(rep: &Report) -> String {
-    use ebullio::units::{pa_to_mbar, CELSIUS_OFFSET};
-    let mut s = format!("Source: {}\n\n", rep.source);
-    let vapor = rep.mode == "vapor-pressure";
-    // The interval is in the unit of the computed quantity: °C for a boiling
-    // temperature, mbar for a vapor pressure.
-    if vapor {
-        s.push_str("   t / degC     p / mbar    95 % interval / mbar   note\n");
-    } else {
-        s.push_str("   p / mbar     t / degC    95 % interval / degC   note\n");
-    }
-    let num = |x: f64, w: usize, d: usize| {
-        if x.is_finite() {
-            format!("{x:w$.d$}")
-        } else {
-            format!("{:>w$}", "-")
-        }
-    };
-    for r in &rep.results {
-        let ci = match (r.ci95_low_k, r.ci95_high_k, r.ci95_low_pa, r.ci95_high_pa) {
-            (Some(a), Some(b), _, _) => {
-                format!("{:8.2} .. {:8.2}", a - CELSIUS_OFFSET, b - CELSIUS_OFFSET)
-            }
-            (_, _, Some(a), Some(b)) => {
-                format!("{:8.3} .. {:8.3}", pa_to_mbar(a), pa_to_mbar(b))
-            }
-            _ => "-".into(),
-        };
-        let note = if !r.error.is_empty() {
-            r.error.clone()
-        } else if r.extrapolated {
-            "extrapolated".into()
-        } else {
-            String::new()
-        };
-        let (first, second) = if vapor {
-            (
-                num(r.t_k - CELSIUS_OFFSET, 11, 2),
-                num(pa_to_mbar(r.p_pa), 12, 3),
-            )
-        } else {
-            (
-                num(pa_to_mbar(r.p_pa), 11, 3),
-                num(r.t_k - CELSIUS_OFFSET, 12, 2),
-            )
-        };
-        s.push_str(&format!("{first} {second}    {ci:22} {note}\n"));
-    }
-    for n in &rep.notes {
-        s.push_str(&format!("\nNote: {n}"));
-    }
-    if !rep.cautions.is_empty() {
-        s.push_str("\n\nVacuum-distillation cautions:\n");
-        for c in &rep.cautions {
-            s.push_str(&format!("  - {c}\n"));
-        }
-    } else {
-        s.push('\n');
-    }
-    s
 }

@@ -5,13 +5,11 @@ use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::mixture::{
-    self, ActivityModel, Condition, Ideal, Nrtl, StudyComponent, StudyOptions, Unifac, VleStudy,
-    Wilson,
+    self, ActivityModel, Condition, Ideal, Nrtl, StudyComponent, StudyOptions, Unifac, Wilson,
 };
-use ebullio::units::{parse_temperature, ATM_PA, CELSIUS_OFFSET};
+use ebullio::report::text::vle::{self as vle_text, AtX1, VleOutput};
+use ebullio::units::{parse_temperature, ATM_PA};
 use ebullio::vapor::Curve;
-use serde::Serialize;
-use std::fmt::Write as _;
 use std::path::PathBuf;
 
 /// Vapor–liquid equilibrium of two components: the T–x–y diagram at a pressure
@@ -257,34 +255,6 @@ fn model(
     Ok((m, note))
 }
 
-/// Bubble and dew points at one composition.
-#[derive(Debug, Serialize)]
-struct AtX1 {
-    x1: f64,
-    /// Bubble point: T (K) or p (Pa), and the first vapor.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    bubble_t_k: Option<f64>,
-    #[serde(skip_serializing_if = "Option::is_none")]
-    bubble_p_pa: Option<f64>,
-    bubble_y1: f64,
-    /// Liquid phases at the bubble point (2 inside the predicted split).
-    liquids: u8,
-    /// Dew point of a vapor with y1 = x1, and the first liquid.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    dew_t_k: Option<f64>,
-    #[serde(skip_serializing_if = "Option::is_none")]
-    dew_p_pa: Option<f64>,
-    dew_x1: Option<f64>,
-}
-
-#[derive(Debug, Serialize)]
-struct Output {
-    #[serde(flatten)]
-    study: VleStudy,
-    #[serde(skip_serializing_if = "Option::is_none")]
-    at_x1: Option<AtX1>,
-}
-
 fn round(v: f64, d: i32) -> f64 {
     let f = 10f64.powi(d);
     (v * f).round() / f
@@ -369,11 +339,11 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         Some(_) => Some(ebullio::report::vle_plot::vle_svg(&study)?),
         None => None,
     };
-    let out = Output { study, at_x1 };
+    let out = VleOutput { study, at_x1 };
     let text = match args.out.format() {
         Format::Json => serde_json::to_string_pretty(&out)? + "\n",
-        Format::Csv => csv_table(&out.study)?,
-        Format::Table => table(&out),
+        Format::Csv => vle_text::csv(&out.study)?,
+        Format::Table => vle_text::table(&out),
     };
     if let (Some(path), Some(svg)) = (&args.plot, svg) {
         ebullio::table_io::write_atomic(path, svg.as_bytes(), &[])
@@ -424,219 +394,4 @@ fn point_at(
         dew_p_pa: dew.filter(|_| !iso).map(|d| round(d.p_pa, 1)),
         dew_x1: dew.map(|d| round(d.x1, 6)),
     })
-}
-
-fn csv_table(s: &VleStudy) -> anyhow::Result<String> {
-    let mut w = csv::Writer::from_writer(Vec::new());
-    let iso = s.pressure_pa.is_some();
-    w.write_record([
-        "x1",
-        "y1",
-        if iso { "t_k" } else { "p_pa" },
-        "gamma1",
-        "gamma2",
-        "alpha12",
-        "liquids",
-    ])?;
-    for r in &s.diagram {
-        let v = if iso { r.t_k } else { r.p_pa }.unwrap_or(f64::NAN);
-        w.write_record([
-            r.x1.to_string(),
-            r.y1.to_string(),
-            v.to_string(),
-            r.gamma1.to_string(),
-            r.gamma2.to_string(),
-            r.alpha12.to_string(),
-            r.liquids.to_string(),
-        ])?;
-    }
-    Ok(String::from_utf8(w.into_inner()?)?)
-}
-
-fn c(t_k: f64) -> f64 {
-    t_k - CELSIUS_OFFSET
-}
-
-fn table(o: &Output) -> String {
-    let s = &o.study;
-    let mut t = String::new();
-    let iso = s.pressure_pa.is_some();
-    let names: Vec<&str> = s.components.iter().map(|c| c.name.as_str()).collect();
-    let _ = match (s.pressure_pa, s.temperature_k) {
-        (Some(p), _) => writeln!(
-            t,
-            "{} (1) / {} (2) at {:.3} kPa, activity model {}",
-            names[0],
-            names[1],
-            p / 1000.0,
-            s.activity_model
-        ),
-        (_, Some(tk)) => writeln!(
-            t,
-            "{} (1) / {} (2) at {:.2} °C, activity model {}",
-            names[0],
-            names[1],
-            c(tk),
-            s.activity_model
-        ),
-        _ => Ok(()),
-    };
-    for (i, comp) in s.components.iter().enumerate() {
-        let _ = writeln!(
-            t,
-            "  {} {}{}: vapor pressure from {}",
-            i + 1,
-            comp.name,
-            comp.smiles
-                .as_deref()
-                .map(|s| format!(" ({s})"))
-                .unwrap_or_default(),
-            comp.vapor_pressure_source
-        );
-    }
-    let _ = writeln!(t);
-    let _ = writeln!(
-        t,
-        "{:>7} {:>8} {:>9} {:>9} {:>9} {:>8}",
-        "x1",
-        "y1",
-        if iso { "t/°C" } else { "p/kPa" },
-        "γ1",
-        "γ2",
-        "α12"
-    );
-    let n = s.diagram.len();
-    let step = ((n - 1) / 20).max(1);
-    for (j, r) in s.diagram.iter().enumerate() {
-        if j % step != 0 && j != n - 1 {
-            continue;
-        }
-        let v = if iso {
-            c(r.t_k.unwrap_or(f64::NAN))
-        } else {
-            r.p_pa.unwrap_or(f64::NAN) / 1000.0
-        };
-        let _ = writeln!(
-            t,
-            "{:>7.3} {:>8.4} {:>9.2} {:>9.4} {:>9.4} {:>8.3}{}",
-            r.x1,
-            r.y1,
-            v,
-            r.gamma1,
-            r.gamma2,
-            r.alpha12,
-            if r.liquids == 2 { "  two liquids" } else { "" }
-        );
-    }
-    if step > 1 {
-        let _ = writeln!(
-            t,
-            "(every {step}th of {n} points; all of them with --format csv or json)"
-        );
-    }
-    let _ = writeln!(t);
-    if s.azeotropes.is_empty() {
-        let _ = writeln!(t, "Azeotropes: none predicted.");
-    } else {
-        let _ = writeln!(t, "Azeotropes (predicted; confirm with mixture data):");
-        for a in &s.azeotropes {
-            let where_ = match (a.t_k, a.p_pa) {
-                (Some(tk), _) => format!("{:.2} °C", c(tk)),
-                (_, Some(p)) => format!("{:.3} kPa", p / 1000.0),
-                _ => String::new(),
-            };
-            let _ = writeln!(t, "  {:<16} x1 = {:.3} at {where_}", a.kind_str(), a.x1);
-        }
-    }
-    if !s.azeotrope_pressure_shift.is_empty() {
-        let _ = writeln!(t, "  with pressure:");
-        for r in &s.azeotrope_pressure_shift {
-            let _ = writeln!(
-                t,
-                "    {:>10.2} kPa  {}{}",
-                r.p_pa / 1000.0,
-                match (r.x1, r.t_k) {
-                    (Some(x), Some(tk)) => format!("x1 = {x:.3} at {:.2} °C", c(tk)),
-                    _ => "no azeotrope".into(),
-                },
-                if r.extrapolated {
-                    "  (curve extrapolated)"
-                } else {
-                    ""
-                }
-            );
-        }
-    }
-    let ls = &s.liquid_split;
-    if ls.predicted {
-        let _ = writeln!(
-            t,
-            "Liquid split: two liquids between x1 = {:.4} and {:.4}{}",
-            ls.x1_low.unwrap_or(f64::NAN),
-            ls.x1_high.unwrap_or(f64::NAN),
-            match (ls.t_k, ls.p_pa) {
-                (Some(tk), _) => format!(" at the three-phase point {:.2} °C", c(tk)),
-                (_, Some(p)) => format!(" at the three-phase point {:.3} kPa", p / 1000.0),
-                _ => String::new(),
-            }
-        );
-    } else {
-        let _ = writeln!(t, "Liquid split: none predicted at the boiling point.");
-    }
-    if let Some(a) = &o.at_x1 {
-        let _ = writeln!(t);
-        match (a.bubble_t_k, a.bubble_p_pa) {
-            (Some(tk), _) => {
-                let _ = writeln!(
-                    t,
-                    "At x1 = {}: bubble point {:.2} °C, first vapor y1 = {:.4}{}",
-                    a.x1,
-                    c(tk),
-                    a.bubble_y1,
-                    if a.liquids == 2 { " (two liquids)" } else { "" }
-                );
-            }
-            (_, Some(p)) => {
-                let _ = writeln!(
-                    t,
-                    "At x1 = {}: bubble pressure {:.3} kPa, first vapor y1 = {:.4}{}",
-                    a.x1,
-                    p / 1000.0,
-                    a.bubble_y1,
-                    if a.liquids == 2 { " (two liquids)" } else { "" }
-                );
-            }
-            _ => {}
-        }
-        match (a.dew_t_k, a.dew_p_pa, a.dew_x1) {
-            (Some(tk), _, Some(x)) => {
-                let _ = writeln!(
-                    t,
-                    "  a vapor of y1 = {}: dew point {:.2} °C, first liquid x1 = {:.4}",
-                    a.x1,
-                    c(tk),
-                    x
-                );
-            }
-            (_, Some(p), Some(x)) => {
-                let _ = writeln!(
-                    t,
-                    "  a vapor of y1 = {}: dew pressure {:.3} kPa, first liquid x1 = {:.4}",
-                    a.x1,
-                    p / 1000.0,
-                    x
-                );
-            }
-            _ => {}
-        }
-    }
-    let _ = writeln!(t);
-    for f in &s.flags {
-        let _ = writeln!(t, "{}: {} [{}]", f.severity.as_str(), f.message, f.code);
-    }
-    let _ = writeln!(t);
-    for caution in s.cautions {
-        let _ = writeln!(t, "Caution: {caution}");
-    }
-    t
 }

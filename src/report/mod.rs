@@ -15,4 +15,5 @@ pub mod html;
 pub mod palette;
 pub mod plan_plot;
 pub mod plan_section;
+pub mod text;
 pub mod vle_plot;
