@@ -6,7 +6,7 @@
 //! value that could not be computed is an empty cell, never `NaN` text.
 //!
 //! ```
-//! use crate::report::text::{cell, sig, Csv};
+//! use ebullio::report::text::{cell, sig, Csv};
 //! let mut w = Csv::new(["x1", "t_k"]);
 //! w.row([cell(Some(0.1 + 0.2)), cell(Some(f64::NAN))]);
 //! assert_eq!(w.finish().unwrap(), "x1,t_k\n0.3,\n");
