@@ -3,6 +3,7 @@
 use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::convert::parse_abc;
+use super::curve_source::{self, ByStructure};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::boiling::{self, VACUUM_CAUTIONS};
@@ -176,13 +177,7 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             }
             None => Library::bundled(),
         };
-        let c = lib.find(name)?;
-        let rc = c.best_curve().ok_or_else(|| {
-            InputError(format!(
-                "reference compound '{}' has a boiling point but no vapor-pressure curve",
-                c.name
-            ))
-        })?;
+        let (c, rc) = curve_source::by_name(lib, name)?;
         if !rc.note.is_empty() {
             notes.push(format!("Reference row note: {}", rc.note));
         }
@@ -220,51 +215,46 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             ),
             k,
         )
-    } else if let Some((c, rc)) = args
-        .smiles
-        .as_deref()
-        .and_then(|s| Library::bundled().reference_for_smiles(s))
-    {
-        // Reference first: a structure that is a reference compound uses its reference curve.
-        let s = args.smiles.as_deref().unwrap_or_default();
-        notes.push(format!(
-            "The structure {s} is the reference compound {}: its reference curve is used, not a structure estimate.",
-            c.name
-        ));
-        if !rc.note.is_empty() {
-            notes.push(format!("Reference note: {}", rc.note));
-        }
-        notes.push(format!(
-            "Interval from a {:.2} % standard uncertainty in p of the reference.",
-            100.0 * rc.u_p_rel
-        ));
-        (
-            Box::new(rc.clone()),
-            format!(
-                "reference {} (matched by structure {s}): {}",
-                c.name, rc.source
-            ),
-            1.96,
-        )
     } else {
         let s = args.smiles.as_deref().unwrap_or_default();
-        if let Err(e @ ebullio::reference::LookupError::Stereo { .. }) =
-            Library::bundled().find_smiles(s)
-        {
-            notes.push(format!("Not matched to a reference compound: {e}."));
+        match curve_source::by_structure(s)? {
+            // Reference first: a structure that is a reference compound uses its reference curve.
+            ByStructure::Reference(c, rc) => {
+                notes.push(format!(
+                    "The structure {s} is the reference compound {}: its reference curve is used, not a structure estimate.",
+                    c.name
+                ));
+                if !rc.note.is_empty() {
+                    notes.push(format!("Reference note: {}", rc.note));
+                }
+                notes.push(format!(
+                    "Interval from a {:.2} % standard uncertainty in p of the reference.",
+                    100.0 * rc.u_p_rel
+                ));
+                (
+                    Box::new(rc.clone()),
+                    format!(
+                        "reference {} (matched by structure {s}): {}",
+                        c.name, rc.source
+                    ),
+                    1.96,
+                )
+            }
+            ByStructure::Estimate(e) => {
+                if let Some(why) = &e.not_matched {
+                    notes.push(format!("Not matched to a reference compound: {why}."));
+                }
+                notes.push(format!(
+                    "Structure estimate (Tb {:.1} K, {}, 90 % interval {:.1}-{:.1} K; Lee-Kesler curve): not a measurement.",
+                    e.tb_k, e.variant.name(), e.pi90_k.0, e.pi90_k.1
+                ));
+                (
+                    Box::new(e.curve),
+                    format!("structure estimate for {s}"),
+                    1.96,
+                )
+            }
         }
-        let e = ebullio::estimate::estimate_smiles(s)
-            .map_err(|e| InputError(format!("--smiles '{s}': {e}")))?;
-        let c = e.curve().ok_or_else(|| {
-            InputError(format!(
-                "--smiles '{s}': no critical constants for this structure, so no curve"
-            ))
-        })?;
-        notes.push(format!(
-            "Structure estimate (Tb {:.1} K, {}, 90 % interval {:.1}-{:.1} K; Lee-Kesler curve): not a measurement.",
-            e.tb_k, e.tb_variant.name(), e.tb_pi90_low_k, e.tb_pi90_high_k
-        ));
-        (Box::new(c), format!("structure estimate for {s}"), 1.96)
     };
     // 3. Compute (library) and print.
     let (mode, results) = if pressures.is_empty() {

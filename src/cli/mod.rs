@@ -6,6 +6,7 @@
 //! above `--fail-on`, 2 bad input or usage. A broken pipe is success.
 
 mod common;
+mod curve_source;
 mod hints;
 
 mod boil;

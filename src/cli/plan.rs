@@ -2,6 +2,7 @@
 
 use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
+use super::curve_source::{self, ByStructure};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::plan::{self, ActivityChoice, Component, PlanOptions, PressureRequest, RayleighModel};
@@ -142,16 +143,7 @@ fn antoine_component(
 
 /// One `--compound` value into a component from the bundled reference.
 fn reference_component(name: &str) -> Result<Component, InputError> {
-    let lib = ebullio::reference::Library::bundled();
-    let c = lib
-        .find(name)
-        .map_err(|e| InputError(format!("--compound '{name}': {e}")))?;
-    let curve = c.best_curve().ok_or_else(|| {
-        InputError(format!(
-            "--compound '{name}': the reference has no vapor-pressure curve for {}",
-            c.name
-        ))
-    })?;
+    let (c, curve) = curve_source::by_name(ebullio::reference::Library::bundled(), name)?;
     let source = format!("reference: {}", curve.source);
     let comp = Component::new(c.name.clone(), Box::new(curve), source);
     Ok(match &c.smiles {
@@ -160,64 +152,29 @@ fn reference_component(name: &str) -> Result<Component, InputError> {
     })
 }
 
-/// One `--smiles` value into a component.
+/// One `--smiles` value into a component (reference first, else an estimate).
 fn smiles_component(text: &str) -> Result<Component, InputError> {
-    let mut parts = text.split_whitespace();
-    let smiles = parts.next().ok_or_else(|| {
-        InputError("--smiles: empty value; give a SMILES such as \"CC(=O)C\"".into())
-    })?;
-    let rest: Vec<&str> = parts.collect();
-    let name = if rest.is_empty() {
-        smiles.to_string()
-    } else {
-        rest.join(" ")
-    };
-    // Reference first: a structure that is a reference compound uses its reference curve.
-    if let Some((c, rc)) = ebullio::reference::Library::bundled().reference_for_smiles(smiles) {
-        let shown = if rest.is_empty() {
-            c.name.clone()
-        } else {
-            name
-        };
-        let source = format!(
-            "reference (structure {smiles} is {}): {}",
-            c.name, rc.source
-        );
-        return Ok(Component::new(shown, Box::new(rc), source));
-    }
-    let e = ebullio::estimate::estimate_smiles(smiles)
-        .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
-    let curve = e.curve().ok_or_else(|| {
-        InputError(format!(
-            "--smiles '{smiles}': no critical constants could be estimated, so there is no vapor-pressure curve"
-        ))
-    })?;
-    Ok(Component::new(
-        name,
-        Box::new(curve),
-        format!(
-            "structure estimate from SMILES {smiles} ({} normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
-            variant_words(e.tb_variant),
-            e.tb_k,
-            e.tb_typical_error_k
-        ),
-    )
-    .with_smiles(smiles))
-}
-
-/// The estimate variant actually used for this Tb, in words.
-fn variant_words(v: ebullio::estimate::TbVariant) -> &'static str {
-    use ebullio::estimate::TbVariant;
-    match v {
-        TbVariant::Joback => "Joback",
-        TbVariant::SteinBrown => "Stein–Brown",
-        TbVariant::JobackGroupsRefitLog => "Joback-group (refitted, log form)",
-        TbVariant::JobackGroupsRefitSteinBrown => "Joback-group (refitted, Stein–Brown form)",
-        TbVariant::ExtendedGroupsLog => "extended-group (log form)",
-        TbVariant::ExtendedGroupsSteinBrown => "extended-group (Stein–Brown form)",
-        #[allow(unreachable_patterns)]
-        other => other.name(),
-    }
+    let (smiles, given) = curve_source::smiles_and_name(text)?;
+    Ok(match curve_source::by_structure(smiles)? {
+        ByStructure::Reference(c, rc) => {
+            let source = format!(
+                "reference (structure {smiles} is {}): {}",
+                c.name, rc.source
+            );
+            Component::new(given.unwrap_or_else(|| c.name.clone()), Box::new(rc), source)
+        }
+        ByStructure::Estimate(e) => Component::new(
+            given.unwrap_or_else(|| smiles.to_string()),
+            Box::new(e.curve),
+            format!(
+                "structure estimate from SMILES {smiles} ({} normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+                curve_source::variant_words(e.variant),
+                e.tb_k,
+                e.typical_error_k
+            ),
+        )
+        .with_smiles(smiles),
+    })
 }
 
 /// The components in one fit result file.

@@ -2,6 +2,7 @@
 
 use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
+use super::curve_source::{self, ByStructure};
 use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::mixture::{
@@ -83,16 +84,7 @@ struct Comp {
 }
 
 fn reference_comp(name: &str) -> Result<Comp, InputError> {
-    let lib = ebullio::reference::Library::bundled();
-    let c = lib
-        .find(name)
-        .map_err(|e| InputError(format!("--compound '{name}': {e}")))?;
-    let curve = c.best_curve().ok_or_else(|| {
-        InputError(format!(
-            "--compound '{name}': the reference has no vapor-pressure curve for {}",
-            c.name
-        ))
-    })?;
+    let (c, curve) = curve_source::by_name(ebullio::reference::Library::bundled(), name)?;
     let source = format!(
         "reference: {} (u(p)/p = {:.1} %)",
         citation(&curve.source),
@@ -123,48 +115,31 @@ fn citation(source: &str) -> String {
 }
 
 fn smiles_comp(text: &str) -> Result<Comp, InputError> {
-    let mut parts = text.split_whitespace();
-    let smiles = parts.next().ok_or_else(|| {
-        InputError("--smiles: empty value; give a SMILES such as \"CC(=O)C acetone\"".into())
-    })?;
-    let rest: Vec<&str> = parts.collect();
-    let name = if rest.is_empty() {
-        smiles.to_string()
-    } else {
-        rest.join(" ")
-    };
-    // A structure the bundled reference knows gets its reference curve (the better source).
-    let lib = ebullio::reference::Library::bundled();
-    if let Ok(c) = lib.find_smiles(smiles) {
-        if let Some(curve) = c.best_curve() {
-            return Ok(Comp {
-                name,
-                smiles: Some(smiles.to_string()),
-                source: format!(
-                    "reference, matched by structure to {}: {} (u(p)/p = {:.1} %)",
-                    c.name,
-                    citation(&curve.source),
-                    100.0 * curve.u_p_rel
-                ),
-                curve: Box::new(curve),
-            });
-        }
-    }
-    let e = ebullio::estimate::estimate_smiles(smiles)
-        .map_err(|e| InputError(format!("--smiles '{smiles}': {e}")))?;
-    let curve = e.curve().ok_or_else(|| {
-        InputError(format!(
-            "--smiles '{smiles}': no critical constants could be estimated, so there is no vapor-pressure curve"
-        ))
-    })?;
-    Ok(Comp {
-        name,
-        smiles: Some(smiles.to_string()),
-        source: format!(
-            "structure estimate (Joback normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
-            e.tb_k, e.tb_typical_error_k
-        ),
-        curve: Box::new(curve),
+    let (smiles, given) = curve_source::smiles_and_name(text)?;
+    let name = given.unwrap_or_else(|| smiles.to_string());
+    Ok(match curve_source::by_structure(smiles)? {
+        ByStructure::Reference(c, curve) => Comp {
+            name,
+            smiles: Some(smiles.to_string()),
+            source: format!(
+                "reference, matched by structure to {}: {} (u(p)/p = {:.1} %)",
+                c.name,
+                citation(&curve.source),
+                100.0 * curve.u_p_rel
+            ),
+            curve: Box::new(curve),
+        },
+        ByStructure::Estimate(e) => Comp {
+            name,
+            smiles: Some(smiles.to_string()),
+            source: format!(
+                "structure estimate ({} normal boiling point {:.1} K, typical error {:.1} K; Lee–Kesler curve)",
+                curve_source::variant_words(e.variant),
+                e.tb_k,
+                e.typical_error_k
+            ),
+            curve: Box::new(e.curve),
+        },
     })
 }
 
