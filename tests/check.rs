@@ -290,7 +290,7 @@ fn malformed_tables_are_clear_errors_with_no_output() {
     expect_input_error(
         "compound,Tb/K\nbenzene,hot\ntoluene,warm\n",
         &[],
-        "column 'Tb/K' should hold temperatures (numbers), but line 2 holds 'hot'",
+        "line 2, column Tb/K: should hold temperatures (numbers), but holds 'hot'",
     );
     expect_input_error(
         "compound,A,B\nbenzene,13.78,2726.81\n",
@@ -305,17 +305,17 @@ fn malformed_tables_are_clear_errors_with_no_output() {
     expect_input_error(
         "compound,Tb\nbenzene,80.1 degC\ntoluene,383.8 K\n",
         &[],
-        "column 'Tb' mixes units (degC (line 2), K (line 3))",
+        "column Tb: mixes units (degC (line 2), K (line 3))",
     );
     expect_input_error(
         "compound,Tb\nbenzene,353.2\n",
         &[],
-        "column 'Tb' has no unit",
+        "column Tb: has no unit",
     );
     expect_input_error(
         "compound,A,B,C\nbenzene,13.78,2726.81,217.57\n",
         &[],
-        "need their convention",
+        "need their convention: give it for the whole table (for example \"log10,mmHg,degC\") or add a 'convention' column (--constants)",
     );
     expect_input_error(
         "compound,Tb/K\nbenzene,353.2\n",

@@ -96,8 +96,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .into());
     }
     let read_opts = PropertyReadOptions { constants };
-    let table =
-        PropertyTable::read(&args.table, &read_opts).map_err(|e| InputError(e.to_string()))?;
+    let table = PropertyTable::read(&args.table, &read_opts)
+        .map_err(|e| InputError(super::hints::table_error(&e)))?;
     let joback = JobackEstimator;
     let estimator: &dyn ebullio::screen::StructureEstimator = if args.no_structure {
         &NoStructure
@@ -107,7 +107,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
 
     let user_reference = match &args.reference_table {
         Some(p) => {
-            let rt = PropertyTable::read(p, &read_opts).map_err(|e| InputError(e.to_string()))?;
+            let rt = PropertyTable::read(p, &read_opts)
+                .map_err(|e| InputError(super::hints::table_error(&e)))?;
             let implied = rt.implied_tb_k();
             TableReference::from_rows(&rt, implied.as_deref(), &p.display().to_string())
         }

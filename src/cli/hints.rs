@@ -44,6 +44,16 @@ pub fn refit_error(e: &RefitError) -> String {
     }
 }
 
+/// A property-table error with the option of `check` that fixes it.
+pub fn table_error(e: &ebullio::table_io::ReadError) -> String {
+    if e.kind == ebullio::table_io::ReadErrorKind::MissingColumn && e.message.contains("convention")
+    {
+        format!("{e} (--constants)")
+    } else {
+        e.to_string()
+    }
+}
+
 /// A plan error with the options of `plan` that fix it.
 pub fn plan_error(e: &PlanError) -> String {
     match e {

@@ -53,6 +53,8 @@ pub enum ReadErrorKind {
     Parquet,
     /// A file that should hold `ebullio fit` JSON does not.
     FitFile,
+    /// A column the table needs is missing (or incomplete, as A and B without C).
+    MissingColumn,
 }
 
 impl ReadErrorKind {
@@ -81,6 +83,7 @@ impl ReadErrorKind {
             Self::ColumnType => "column-type",
             Self::Parquet => "parquet",
             Self::FitFile => "fit-file",
+            Self::MissingColumn => "missing-column",
         }
     }
 }
@@ -166,6 +169,12 @@ impl ReadError {
     /// Attach a column: 0-based index (shown 1-based) and its heading.
     pub fn at_column(mut self, index0: usize, heading: &str) -> Self {
         self.column_index = Some(index0 + 1);
+        self.column = Some(heading.to_string());
+        self
+    }
+
+    /// Attach a column by its heading alone (its position unknown).
+    pub fn at_heading(mut self, heading: &str) -> Self {
         self.column = Some(heading.to_string());
         self
     }

@@ -10,6 +10,8 @@
 //! `pc/bar`) are read into SI. A recognised column that cannot be understood
 //! is an error naming it; one unreadable cell is reported on its row.
 
+use super::error::{Locus, ReadError, ReadErrorKind};
+use super::headings::split_heading;
 use crate::screen::{AntoineCell, RowInput, Rows};
 use crate::units::{PressureUnit, TemperatureUnit};
 use crate::vapor::{AntoineConstants, AntoineConvention, LogBase};
@@ -19,69 +21,9 @@ use rayon::prelude::*;
 use std::collections::HashMap;
 use std::path::{Path, PathBuf};
 
-/// Error reading or writing a property table: always names the file, and the
-/// column where it applies.
-#[derive(Debug, thiserror::Error)]
-pub enum TableError {
-    /// The file cannot be read or parsed as CSV/Parquet.
-    #[error("{path}: cannot read the table: {message}")]
-    Read {
-        /// File.
-        path: PathBuf,
-        /// What went wrong.
-        message: String,
-    },
-    /// A recognised column holds no value of the expected kind.
-    #[error("{path}: column '{column}' should hold {expected}, but line {line} holds '{value}' and no cell in it is {expected}")]
-    WrongType {
-        /// File.
-        path: PathBuf,
-        /// Column heading.
-        column: String,
-        /// What was expected.
-        expected: String,
-        /// First offending line.
-        line: usize,
-        /// The offending value.
-        value: String,
-    },
-    /// Values with different units in one column.
-    #[error("{path}: column '{column}' mixes units ({units}); give one unit per column, e.g. in the heading 'Tb/K'")]
-    MixedUnits {
-        /// File.
-        path: PathBuf,
-        /// Column heading.
-        column: String,
-        /// Units found, with the first line of each.
-        units: String,
-    },
-    /// A recognised column with no unit in its heading or cells.
-    #[error("{path}: column '{column}' has no unit; write it in the heading, e.g. '{example}'")]
-    MissingUnit {
-        /// File.
-        path: PathBuf,
-        /// Column heading.
-        column: String,
-        /// Example heading.
-        example: String,
-    },
-    /// Recognised columns missing or incomplete.
-    #[error("{path}: {message}")]
-    Columns {
-        /// File.
-        path: PathBuf,
-        /// What is missing.
-        message: String,
-    },
-    /// Writing failed.
-    #[error("{path}: cannot write the table: {message}")]
-    Write {
-        /// File.
-        path: PathBuf,
-        /// What went wrong.
-        message: String,
-    },
-}
+/// The error of reading a property table is the one [`ReadError`] of every
+/// table reader (file, line, column, value, what was expected).
+pub type TableError = ReadError;
 
 /// How to read a property table.
 #[derive(Debug, Clone, Copy, Default)]
@@ -143,15 +85,9 @@ fn is_temperature(r: Role) -> bool {
 /// Split a heading into (role, unit text): `Tb/K`, `Tb [K]`, `Tb (K)`, `tb_k`.
 fn parse_heading(h: &str) -> Option<(Role, Option<String>)> {
     let t = h.trim();
-    let split = if let Some((n, u)) = t.split_once('/') {
-        Some((n, u.trim()))
-    } else if let (Some(i), true) = (t.find(['[', '(']), t.ends_with([']', ')'])) {
-        Some((&t[..i], t[i + 1..t.len() - 1].trim()))
-    } else {
-        None
-    };
-    if let Some((n, u)) = split {
-        return role_of(n.trim()).map(|r| (r, Some(u.to_string())));
+    // The one heading form of every table: `Tb/K`, `Tb [K]`, `Tb (K)`.
+    if let (q, Some(u)) = split_heading(t) {
+        return role_of(&q).map(|r| (r, Some(u)));
     }
     if let Some((n, u)) = t.rsplit_once('_') {
         if let Some(r) = role_of(n) {
@@ -221,13 +157,15 @@ fn read_numeric(
         ));
     }
     let Some(ca) = text_of(col) else {
-        return Err(TableError::WrongType {
-            path: path.into(),
-            column: heading.into(),
-            expected: "numbers".into(),
-            line: line0,
-            value: format!("a column of type {}", col.dtype()),
-        });
+        return Err(ReadError::file(
+            path,
+            ReadErrorKind::ColumnType,
+            format!(
+                "should hold numbers, but holds a column of type {}",
+                col.dtype()
+            ),
+        )
+        .at_heading(heading));
     };
     let mut raw = Vec::with_capacity(n);
     let mut bad = Vec::new();
@@ -274,17 +212,20 @@ fn read_numeric(
     if good == 0 {
         if let Some((i, _)) = bad.first() {
             let value = ca.get(*i).unwrap_or("").to_string();
-            return Err(TableError::WrongType {
-                path: path.into(),
-                column: heading.into(),
-                expected: match kind {
-                    Kind::Temperature => "temperatures (numbers)".into(),
-                    Kind::Pressure => "pressures (numbers)".into(),
-                    Kind::Plain => "numbers".into(),
-                },
-                line: i + line0,
-                value,
-            });
+            let expected = match kind {
+                Kind::Temperature => "temperatures (numbers)",
+                Kind::Pressure => "pressures (numbers)",
+                Kind::Plain => "numbers",
+            };
+            return Err(ReadError::file(
+                path,
+                ReadErrorKind::NotANumber,
+                format!(
+                    "should hold {expected}, but holds '{value}' and no cell in it is {expected}"
+                ),
+            )
+            .at_line((i + line0) as u64, Locus::Line)
+            .at_heading(heading));
         }
     }
     let unit = match (unit, cell_units.len()) {
@@ -293,11 +234,15 @@ fn read_numeric(
         (h, _) => {
             let mut all: Vec<String> = h.map(|u| format!("{u} (heading)")).into_iter().collect();
             all.extend(cell_units.iter().map(|(u, l)| format!("{u} (line {l})")));
-            return Err(TableError::MixedUnits {
-                path: path.into(),
-                column: heading.into(),
-                units: all.join(", "),
-            });
+            return Err(ReadError::file(
+                path,
+                ReadErrorKind::HeadingUnit,
+                format!(
+                    "mixes units ({}); give one unit per column, e.g. in the heading 'Tb/K'",
+                    all.join(", ")
+                ),
+            )
+            .at_heading(heading));
         }
     };
     let (values, unit) = convert(path, heading, raw, kind, unit.as_deref())?;
@@ -313,23 +258,17 @@ fn convert(
 ) -> Result<(Vec<f64>, Option<String>), TableError> {
     match (kind, unit) {
         (Kind::Plain, _) | (Kind::Temperature, None) => Ok((raw, unit.map(str::to_string))),
-        (Kind::Pressure, None) => Err(TableError::MissingUnit {
-            path: path.into(),
-            column: heading.into(),
-            example: "pc/bar".into(),
-        }),
+        (Kind::Pressure, None) => Err(missing_unit(path, heading, "pc/bar")),
         (Kind::Temperature, Some(u)) => {
-            let tu = TemperatureUnit::parse(u).map_err(|e| TableError::Columns {
-                path: path.into(),
-                message: format!("column '{heading}': {e}"),
+            let tu = TemperatureUnit::parse(u).map_err(|e| {
+                ReadError::file(path, ReadErrorKind::HeadingUnit, e.to_string()).at_heading(heading)
             })?;
             raw.iter_mut().for_each(|v| *v = tu.to_kelvin(*v));
             Ok((raw, Some(u.to_string())))
         }
         (Kind::Pressure, Some(u)) => {
-            let pu = PressureUnit::parse(u).map_err(|e| TableError::Columns {
-                path: path.into(),
-                message: format!("column '{heading}': {e}"),
+            let pu = PressureUnit::parse(u).map_err(|e| {
+                ReadError::file(path, ReadErrorKind::HeadingUnit, e.to_string()).at_heading(heading)
             })?;
             raw.iter_mut().for_each(|v| *v = pu.to_pa(*v));
             Ok((raw, Some(u.to_string())))
@@ -338,10 +277,24 @@ fn convert(
 }
 
 fn read_err(path: &Path, e: impl std::fmt::Display) -> TableError {
-    TableError::Read {
-        path: path.into(),
-        message: e.to_string(),
-    }
+    ReadError::file(
+        path,
+        ReadErrorKind::Io,
+        format!("cannot read the table: {e}"),
+    )
+}
+
+fn missing_unit(path: &Path, heading: &str, example: &str) -> ReadError {
+    ReadError::file(
+        path,
+        ReadErrorKind::HeadingUnit,
+        format!("has no unit; write it in the heading, e.g. '{example}'"),
+    )
+    .at_heading(heading)
+}
+
+fn columns_err(path: &Path, kind: ReadErrorKind, message: impl Into<String>) -> ReadError {
+    ReadError::file(path, kind, message)
 }
 
 /// A property table: the original frame plus its recognised columns in SI.
@@ -453,12 +406,13 @@ impl PropertyTable {
             let h = c.name().to_string();
             if let Some((r, u)) = parse_heading(&h) {
                 if let Some((other, _)) = roles.get(&r) {
-                    return Err(TableError::Columns {
-                        path: path.into(),
-                        message: format!(
+                    return Err(columns_err(
+                        path,
+                        ReadErrorKind::AmbiguousColumn,
+                        format!(
                             "columns '{other}' and '{h}' both look like the same quantity; keep one"
                         ),
-                    });
+                    ));
                 }
                 roles.insert(r, (h, u));
             }
@@ -469,13 +423,12 @@ impl PropertyTable {
                 None => Ok(None),
                 Some(c) => match text_of(c) {
                     Some(ca) => Ok(Some(ca.rechunk().into_owned())),
-                    None => Err(TableError::WrongType {
-                        path: path.into(),
-                        column: c.name().to_string(),
-                        expected: "text".into(),
-                        line: line0,
-                        value: format!("a column of type {}", c.dtype()),
-                    }),
+                    None => Err(ReadError::file(
+                        path,
+                        ReadErrorKind::ColumnType,
+                        format!("should hold text, but holds a column of type {}", c.dtype()),
+                    )
+                    .at_heading(c.name())),
                 },
             }
         };
@@ -489,16 +442,18 @@ impl PropertyTable {
             .filter(|r| have(**r))
             .count();
         if n_abc > 0 && n_abc < 3 {
-            return Err(TableError::Columns {
-                path: path.into(),
-                message: "Antoine constants need all three columns A, B and C".into(),
-            });
+            return Err(columns_err(
+                path,
+                ReadErrorKind::MissingColumn,
+                "Antoine constants need all three columns A, B and C",
+            ));
         }
         if !have(Role::Tb) && n_abc == 0 && !have(Role::Smiles) {
-            return Err(TableError::Columns {
-                path: path.into(),
-                message: "no column to check: expected a boiling point (e.g. 'Tb/K'), Antoine 'A', 'B', 'C', or 'smiles'".into(),
-            });
+            return Err(columns_err(
+                path,
+                ReadErrorKind::MissingColumn,
+                "no column to check: expected a boiling point (e.g. 'Tb/K'), Antoine 'A', 'B', 'C', or 'smiles'",
+            ));
         }
 
         let numeric: Vec<(Role, Kind)> = vec![
@@ -537,24 +492,12 @@ impl PropertyTable {
                 tb_unit = TemperatureUnit::parse(&u).unwrap_or(TemperatureUnit::Kelvin);
                 Some(c.values)
             }
-            Some((_, None)) => {
-                return Err(TableError::MissingUnit {
-                    path: path.into(),
-                    column: roles[&Role::Tb].0.clone(),
-                    example: "Tb/K".into(),
-                })
-            }
+            Some((_, None)) => return Err(missing_unit(path, &roles[&Role::Tb].0, "Tb/K")),
             None => None,
         };
         let tc_k = match take(Role::Tc) {
             Some((c, Some(_))) => Some(c.values),
-            Some((_, None)) => {
-                return Err(TableError::MissingUnit {
-                    path: path.into(),
-                    column: roles[&Role::Tc].0.clone(),
-                    example: "Tc/K".into(),
-                })
-            }
+            Some((_, None)) => return Err(missing_unit(path, &roles[&Role::Tc].0, "Tc/K")),
             None => None,
         };
         let pc_pa = take(Role::Pc).map(|(c, _)| c.values);
@@ -572,10 +515,11 @@ impl PropertyTable {
             let parts = [text(Role::LogBase)?, text(Role::PUnit)?, text(Role::TUnit)?];
             let three = parts.iter().all(Option::is_some);
             if conv_col.is_none() && !three && opts.constants.is_none() {
-                return Err(TableError::Columns {
-                    path: path.into(),
-                    message: "Antoine constants A, B, C need their convention: pass --constants \"log10,mmHg,degC\" or add a 'convention' column".into(),
-                });
+                return Err(columns_err(
+                    path,
+                    ReadErrorKind::MissingColumn,
+                    "Antoine constants A, B, C need their convention: give it for the whole table (for example \"log10,mmHg,degC\") or add a 'convention' column",
+                ));
             }
             // Tables repeat a handful of conventions: parse each distinct
             // text once, and compare with the previous row's before hashing.
@@ -800,15 +744,19 @@ pub fn with_added(
     let mut df = frame.clone();
     for (name, values) in added {
         if df.column(name).is_ok() {
-            return Err(TableError::Columns {
-                path: path_for_errors.into(),
-                message: format!("the input already has a column named '{name}'; rename it so the check columns can be added"),
-            });
+            return Err(columns_err(
+                path_for_errors,
+                ReadErrorKind::AmbiguousColumn,
+                format!("the input already has a column named '{name}'; rename it so the check columns can be added"),
+            ));
         }
         df.with_column(Column::new(name.into(), values))
-            .map_err(|e| TableError::Write {
-                path: path_for_errors.into(),
-                message: e.to_string(),
+            .map_err(|e| {
+                ReadError::file(
+                    path_for_errors,
+                    ReadErrorKind::Io,
+                    format!("cannot add the check columns: {e}"),
+                )
             })?;
     }
     Ok(df)
@@ -821,9 +769,12 @@ pub fn write_frame(
     w: &mut dyn std::io::Write,
     path_for_errors: &Path,
 ) -> Result<(), TableError> {
-    let werr = |e: PolarsError| TableError::Write {
-        path: path_for_errors.into(),
-        message: e.to_string(),
+    let werr = |e: PolarsError| {
+        ReadError::file(
+            path_for_errors,
+            ReadErrorKind::Io,
+            format!("cannot write the table: {e}"),
+        )
     };
     if parquet {
         ParquetWriter::new(w).finish(&mut df).map_err(werr)?;
