@@ -16,6 +16,7 @@
 pub mod boil;
 pub mod fit;
 pub mod plan;
+pub mod reference;
 pub mod vle;
 
 use crate::units::TemperatureUnit;
