@@ -11,6 +11,7 @@ mod convert;
 mod demo;
 mod estimate;
 mod fit;
+mod fit_binary;
 #[cfg(unix)]
 mod interrupt;
 mod plan;

@@ -6,7 +6,7 @@ use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::fit::{At, Exclude, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
 use ebullio::report::text::fit::{self as fit_text, FitRow};
-use ebullio::table_io::{fit_set, read_measured, ReadOptions};
+use ebullio::table_io::{fit_set, read_measured_bytes, ReadOptions};
 use ebullio::units::{parse_temperature, PressureUnit, Quantity, TemperatureUnit};
 use ebullio::vapor::AntoineConvention;
 use rayon::prelude::*;
@@ -35,9 +35,11 @@ pub struct Args {
     /// Semicolon-separated values with decimal commas.
     #[arg(long)]
     pub decimal_comma: bool,
-    /// Equation: antoine, clapeyron, riedel, wagner or auto (lowest AICc).
-    #[arg(long, default_value = "antoine")]
-    pub model: String,
+    /// Equation: antoine, clapeyron, riedel, wagner or auto (lowest AICc)
+    /// [default: antoine]. For binary VLE data (an x1 column): margules,
+    /// van-laar, wilson, nrtl (α = 0.3), nrtl-alpha (α fitted) or auto [default: auto].
+    #[arg(long)]
+    pub model: Option<String>,
     /// Critical temperature for the Wagner equation, with unit ("562.0 K").
     #[arg(long)]
     pub tc: Option<String>,
@@ -57,11 +59,21 @@ pub struct Args {
     #[arg(long, value_name = "FILE.svg")]
     pub plot: Option<PathBuf>,
     /// Compare with this bundled reference compound (else the `compound` column is tried).
+    /// For binary VLE data give it twice (component 1 first), or name the
+    /// components in a "# components: A, B" line above the header.
     #[arg(long)]
-    pub compound: Option<String>,
-    /// Structure (SMILES) for the reference lookup and the Joback comparison.
+    pub compound: Vec<String>,
+    /// Structure (SMILES) for the reference lookup and the Joback comparison
+    /// (for binary data, a component: "CCO ethanol"; repeatable).
     #[arg(long)]
-    pub smiles: Option<String>,
+    pub smiles: Vec<String>,
+    /// Binary VLE data: the still's pressure when the file has no pressure column
+    /// ("1 atm", "200 mbar"); checked against a pressure column when there is one.
+    #[arg(long, allow_hyphen_values = true)]
+    pub pressure: Option<String>,
+    /// Binary VLE data: the cell's temperature for p-x-y data without a temperature column.
+    #[arg(long, allow_hyphen_values = true)]
+    pub temperature: Option<String>,
     /// Allowed relative difference in p from the reference curve, in percent.
     #[arg(long, default_value_t = 2.0)]
     pub ref_p_tolerance_pct: f64,
@@ -141,6 +153,8 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
         .map_err(|e| InputError(format!("--p-unit: {e}")))?;
     let model: ModelSelection = a
         .model
+        .as_deref()
+        .unwrap_or("antoine")
         .parse()
         .map_err(|e| InputError(format!("--model: {e}")))?;
     let convention: AntoineConvention = a
@@ -193,8 +207,30 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
 }
 
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
+    let bytes =
+        ebullio::table_io::source::read_bytes(&args.data).map_err(|e| InputError(e.to_string()))?;
+    let plain = ReadOptions {
+        decimal_comma: args.decimal_comma,
+        ..Default::default()
+    };
+    if ebullio::table_io::binary::looks_binary(&args.data, &bytes, &plain) {
+        return super::fit_binary::run(&args, &bytes);
+    }
+    if args.compound.len() > 1 || args.smiles.len() > 1 {
+        return Err(InputError(
+            "--compound and --smiles are given once for vapor-pressure data (twice only for binary VLE data with an x1 column)".into(),
+        )
+        .into());
+    }
+    if args.pressure.is_some() || args.temperature.is_some() {
+        return Err(InputError(
+            "--pressure and --temperature apply to binary VLE data (an x1 column); this file has none".into(),
+        )
+        .into());
+    }
     let r = resolve(&args)?;
-    let data = read_measured(&args.data, &r.read).map_err(|e| InputError(e.to_string()))?;
+    let data =
+        read_measured_bytes(&args.data, &bytes, &r.read).map_err(|e| InputError(e.to_string()))?;
     for w in &data.warnings {
         eprintln!("warning: {}:{}: {} ({})", w.file, w.line, w.message, w.code);
     }
@@ -229,11 +265,15 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         .zip(&data.sets)
         .map(|(r, s)| match r {
             Ok(mut rep) => {
-                let smiles = args.smiles.as_deref().or(s.smiles.as_deref());
+                let smiles = args
+                    .smiles
+                    .first()
+                    .map(String::as_str)
+                    .or(s.smiles.as_deref());
                 let chk = ebullio::reference::fit_check::check_fit(
                     &mut rep,
                     lib,
-                    args.compound.as_deref(),
+                    args.compound.first().map(String::as_str),
                     smiles,
                     tol,
                 );

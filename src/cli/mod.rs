@@ -16,6 +16,7 @@ mod convert;
 mod demo;
 mod estimate;
 mod fit;
+mod fit_binary;
 mod plan;
 mod reference;
 mod vle;

@@ -76,14 +76,15 @@ pub enum ModelArg {
     Ideal,
 }
 
-struct Comp {
-    name: String,
-    smiles: Option<String>,
-    source: String,
-    curve: Box<dyn Curve>,
+/// A component with its vapor-pressure curve and where it came from (shared with `fit`).
+pub(super) struct Comp {
+    pub(super) name: String,
+    pub(super) smiles: Option<String>,
+    pub(super) source: String,
+    pub(super) curve: Box<dyn Curve>,
 }
 
-fn reference_comp(name: &str) -> Result<Comp, InputError> {
+pub(super) fn reference_comp(name: &str) -> Result<Comp, InputError> {
     let (c, curve) = curve_source::by_name(ebullio::reference::Library::bundled(), name)?;
     let source = format!(
         "reference: {} (u(p)/p = {:.1} %)",
@@ -114,7 +115,7 @@ fn citation(source: &str) -> String {
     }
 }
 
-fn smiles_comp(text: &str) -> Result<Comp, InputError> {
+pub(super) fn smiles_comp(text: &str) -> Result<Comp, InputError> {
     let (smiles, given) = curve_source::smiles_and_name(text)?;
     let name = given.unwrap_or_else(|| smiles.to_string());
     Ok(match curve_source::by_structure(smiles)? {

@@ -55,6 +55,12 @@ pub enum ReadErrorKind {
     FitFile,
     /// A column the table needs is missing (or incomplete, as A and B without C).
     MissingColumn,
+    /// A mole fraction outside 0–1.
+    CompositionRange,
+    /// Binary VLE data that cannot be fitted as given (missing x1, one composition, ...).
+    BinaryData,
+    /// A column that disagrees with the fixed condition given on the command line.
+    ConditionMismatch,
 }
 
 impl ReadErrorKind {
@@ -84,6 +90,9 @@ impl ReadErrorKind {
             Self::Parquet => "parquet",
             Self::FitFile => "fit-file",
             Self::MissingColumn => "missing-column",
+            Self::CompositionRange => "composition-range",
+            Self::BinaryData => "binary-data",
+            Self::ConditionMismatch => "condition-mismatch",
         }
     }
 }

@@ -79,11 +79,23 @@ use crate::units::{Pressure, Temperature};
 use std::collections::HashMap;
 
 /// A table as text cells, whatever the file format: what the validator reads.
-struct RawTable {
-    headers: Vec<String>,
+pub(crate) struct RawTable {
+    pub(crate) headers: Vec<String>,
     /// (line or row number, cells)
-    rows: Vec<(u64, Vec<String>)>,
-    locus: Locus,
+    pub(crate) rows: Vec<(u64, Vec<String>)>,
+    pub(crate) locus: Locus,
+}
+
+/// Any measured table as text cells (CSV or Parquet): shared with the binary reader.
+pub(crate) fn raw_table(
+    path: &Path,
+    bytes: &[u8],
+    opts: &ReadOptions,
+) -> Result<RawTable, ReadError> {
+    match detect_format(path, bytes) {
+        TableFormat::Parquet => parquet_raw(path, bytes),
+        TableFormat::Csv => csv_raw(path, bytes, opts),
+    }
 }
 
 /// Read measured (T, p) data from CSV, Parquet (by extension or magic bytes) or stdin (`-`).
@@ -112,10 +124,7 @@ pub fn read_measured_bytes(
     bytes: &[u8],
     opts: &ReadOptions,
 ) -> Result<MeasuredData, ReadError> {
-    let raw = match detect_format(path, bytes) {
-        TableFormat::Parquet => parquet_raw(path, bytes)?,
-        TableFormat::Csv => csv_raw(path, bytes, opts)?,
-    };
+    let raw = raw_table(path, bytes, opts)?;
     validate(path, raw, opts)
 }
 
@@ -290,7 +299,7 @@ fn find_columns(path: &Path, headers: &[String], locus: Locus) -> Result<Columns
     })
 }
 
-fn number(
+pub(crate) fn number(
     path: &Path,
     line: u64,
     locus: Locus,

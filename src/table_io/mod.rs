@@ -7,6 +7,7 @@
 //! write over an input. Commands never parse files themselves.
 
 pub mod atomic;
+pub mod binary;
 pub mod error;
 pub mod estimates;
 pub mod fit_file;

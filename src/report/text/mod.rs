@@ -13,6 +13,7 @@
 //! assert_eq!(sig(101.3251, 4), "101.3");
 //! ```
 
+pub mod binary_fit;
 pub mod boil;
 pub mod fit;
 pub mod plan;
