@@ -230,3 +230,91 @@ fn table_and_csv_output() {
     assert_eq!(c.lines().count(), 13, "{c}");
     assert!(c.starts_with("point,line,x1,y1,T/K"), "{c}");
 }
+
+/// `vle --from` and `plan --from` reuse the fitted parameters: the vle diagram's γ∞ are
+/// the fit's (Margules or not, ln γ1 at x1 = 0 is the fitted model's), the components
+/// may come in either order, a fit for another pair is refused, and the plan names the
+/// fitted model for the key pair.
+#[test]
+fn vle_and_plan_reuse_the_fit() {
+    let d = scratch();
+    let o = run_in(
+        d.path(),
+        &[
+            "fit",
+            &still(),
+            "--pressure",
+            "1 atm",
+            "--format",
+            "json",
+            "-o",
+            "sr14.json",
+        ],
+    );
+    ok(&o);
+    let fit: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(d.path().join("sr14.json")).unwrap())
+            .unwrap();
+    let model = fit["model"].as_str().unwrap().to_string();
+    let o = run_in(
+        d.path(),
+        &["vle", "--from", "sr14.json", "--format", "json"],
+    );
+    ok(&o);
+    let v: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    assert_eq!(v["activity_model"], model.as_str());
+    assert_eq!(v["pressure_pa"].as_f64(), Some(101_325.0));
+    // γ1 at x1 = 0 and the fit's γ1∞ are both at the boiling point of component 2.
+    let g1 = v["diagram"][0]["gamma1"].as_f64().unwrap();
+    let want = fit["gamma_infinity"][0].as_f64().unwrap();
+    assert!((g1 / want - 1.0).abs() < 1e-3, "{g1} vs {want}");
+    // Components the other way round: the model is renumbered, not misapplied.
+    let o = run_in(
+        d.path(),
+        &[
+            "vle",
+            "--from",
+            "sr14.json",
+            "--compound",
+            "ethanol",
+            "--compound",
+            "ethyl acetate",
+            "--format",
+            "json",
+        ],
+    );
+    ok(&o);
+    let w: serde_json::Value = serde_json::from_slice(&o.stdout).unwrap();
+    let last = w["diagram"].as_array().unwrap().last().unwrap().clone();
+    assert!(
+        (last["gamma2"].as_f64().unwrap() / want - 1.0).abs() < 1e-3,
+        "{last}"
+    );
+    let o = run_in(
+        d.path(),
+        &[
+            "vle",
+            "--from",
+            "sr14.json",
+            "--compound",
+            "ethanol",
+            "--compound",
+            "water",
+        ],
+    );
+    assert_eq!(o.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&o.stderr).contains("the fit is for ethyl acetate / ethanol"));
+    let o = run_in(
+        d.path(),
+        &["plan", "--from", "sr14.json", "--format", "table"],
+    );
+    ok(&o);
+    let t = String::from_utf8_lossy(&o.stdout);
+    assert!(
+        t.contains(&format!(
+            "key pair liquid: {} activity coefficients",
+            model.to_uppercase()
+        )),
+        "{t}"
+    );
+}

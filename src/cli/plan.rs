@@ -32,7 +32,9 @@ pub struct Args {
     #[arg(long, value_name = "NAME")]
     pub compound: Vec<String>,
     /// A component from a fit result file written by `ebullio fit --format json`
-    /// (repeatable; every compound in a batch file becomes a component).
+    /// (repeatable; every compound in a batch file becomes a component). A binary
+    /// VLE fit (`ebullio fit` on x1, y1 data) gives the key pair's liquid model
+    /// instead, with its two components unless they are already given.
     #[arg(long, value_name = "FIT.json")]
     pub from: Vec<PathBuf>,
     /// Convention of the --antoine constants, e.g. "log10,mmHg,degC".
@@ -231,8 +233,45 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
     for s in &args.smiles {
         comps.push(smiles_component(s)?);
     }
+    let mut fitted = None;
     for f in &args.from {
+        if ebullio::table_io::is_binary_fit(f) {
+            let r = ebullio::table_io::read_binary_fit(f)
+                .map_err(|e| InputError(format!("--from {e}")))?;
+            let model = r
+                .fitted_model()
+                .map_err(|e| InputError(format!("--from {}: {e}", f.display())))?;
+            let names: Vec<String> = r.components.iter().map(|c| c.name.clone()).collect();
+            if names.len() != 2 || fitted.is_some() {
+                return Err(InputError(format!(
+                    "--from {}: a plan takes one binary VLE fit with its two components named",
+                    f.display()
+                )));
+            }
+            for c in &r.components {
+                if !comps
+                    .iter()
+                    .any(|k: &Component| k.name.eq_ignore_ascii_case(&c.name))
+                {
+                    comps.push(match (reference_component(&c.name), &c.smiles) {
+                        (Ok(k), _) => k,
+                        (Err(_), Some(sm)) => smiles_component(&format!("{sm} {}", c.name))?,
+                        (Err(e), None) => return Err(e),
+                    });
+                }
+            }
+            fitted = Some(ActivityChoice::Fitted {
+                model,
+                names: [names[0].clone(), names[1].clone()],
+            });
+            continue;
+        }
         comps.extend(fit_components(f)?);
+    }
+    if fitted.is_some() && args.model.is_some() {
+        return Err(InputError(
+            "--model and a binary VLE fit in --from both choose the liquid model; give one".into(),
+        ));
     }
     if comps.len() < 2 {
         return Err(InputError(format!(
@@ -263,6 +302,7 @@ fn resolve(args: &Args) -> Result<(Vec<Component>, PlanOptions), InputError> {
             RayleighArg::Constant => RayleighModel::Constant,
         },
         activity: match args.model {
+            None if fitted.is_some() => fitted.unwrap_or_default(),
             None => ActivityChoice::Auto,
             Some(ModelArg::Unifac) => ActivityChoice::Unifac,
             Some(ModelArg::Ideal) => ActivityChoice::Ideal,

@@ -50,6 +50,11 @@ pub struct Args {
     /// NRTL parameters "b12,b21,alpha", τ12 = b12/T with b in kelvin (implies --model nrtl).
     #[arg(long, value_name = "b12,b21,alpha", allow_hyphen_values = true)]
     pub nrtl: Option<String>,
+    /// A binary VLE fit (`ebullio fit still.csv --format json -o fit.json`): its fitted
+    /// model and parameters, its components (unless given) and its pressure or temperature
+    /// (unless given).
+    #[arg(long, value_name = "FIT.json", conflicts_with_all = ["model", "wilson", "nrtl"])]
+    pub from: Option<PathBuf>,
     /// Also give the bubble and dew points at this mole fraction of component 1.
     #[arg(long, value_name = "X1", allow_hyphen_values = true)]
     pub x1: Option<String>,
@@ -238,6 +243,21 @@ fn round(v: f64, d: i32) -> f64 {
 
 pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let mut comps = Vec::new();
+    let fitted = args
+        .from
+        .as_deref()
+        .map(ebullio::table_io::read_binary_fit)
+        .transpose()
+        .map_err(|e| InputError(format!("--from {e}")))?;
+    if let (Some(f), true) = (&fitted, args.compound.is_empty() && args.smiles.is_empty()) {
+        for c in &f.components {
+            comps.push(match (reference_comp(&c.name), &c.smiles) {
+                (Ok(comp), _) => comp,
+                (Err(_), Some(s)) => smiles_comp(&format!("{s} {}", c.name))?,
+                (Err(e), None) => return Err(e.into()),
+            });
+        }
+    }
     for c in &args.compound {
         comps.push(reference_comp(c)?);
     }
@@ -278,9 +298,16 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
                 .map_err(|e| InputError(format!("--pressure: {e}")))?
                 .pa(),
         ),
-        (None, None) => Condition::Pressure(ATM_PA),
+        (None, None) => match fitted.as_ref().map(|f| (f.pressure_pa, f.temperature_k)) {
+            Some((Some(p), _)) => Condition::Pressure(p),
+            Some((None, Some(t))) => Condition::Temperature(t),
+            _ => Condition::Pressure(ATM_PA),
+        },
     };
-    let (model, note) = model(&args, &comps)?;
+    let (model, note) = match &fitted {
+        Some(f) => (fitted_model(f, &comps, args.from.as_deref())?, None),
+        None => model(&args, &comps)?,
+    };
     fn sc(c: &Comp) -> StudyComponent<'_> {
         StudyComponent {
             name: &c.name,
@@ -370,4 +397,28 @@ fn point_at(
         dew_p_pa: dew.filter(|_| !iso).map(|d| round(d.p_pa, 1)),
         dew_x1: dew.map(|d| round(d.x1, 6)),
     })
+}
+
+/// The model of a binary fit file, numbered as the components given (swapped when they
+/// come in the other order); refused when the fit is for another pair.
+fn fitted_model(
+    f: &ebullio::mixture::fit::BinaryFitReport,
+    comps: &[Comp],
+    path: Option<&std::path::Path>,
+) -> Result<Box<dyn ActivityModel>, InputError> {
+    let file = path.map(|p| p.display().to_string()).unwrap_or_default();
+    let bad = |e: ebullio::mixture::MixtureError| InputError(format!("--from {file}: {e}"));
+    let m = f.fitted_model().map_err(bad)?;
+    let fit: Vec<String> = f.components.iter().map(|c| c.name.to_lowercase()).collect();
+    let given: Vec<String> = comps.iter().map(|c| c.name.to_lowercase()).collect();
+    if fit.len() != 2 || fit == given {
+        return Ok(Box::new(m));
+    }
+    if fit[0] == given[1] && fit[1] == given[0] {
+        return Ok(Box::new(m.swapped().map_err(bad)?));
+    }
+    Err(InputError(format!(
+        "--from {file}: the fit is for {} / {}, not {} / {}",
+        f.components[0].name, f.components[1].name, comps[0].name, comps[1].name
+    )))
 }

@@ -79,6 +79,18 @@ impl Legendre {
         })
     }
 
+    /// The same mixture with the components numbered the other way round
+    /// (z = 2x1 − 1 changes sign, so the odd coefficients do).
+    pub fn swapped(&self) -> Self {
+        let mut a = self.a;
+        for (k, v) in a.iter_mut().enumerate() {
+            if k % 2 == 1 {
+                *v = -*v;
+            }
+        }
+        Self { a, n: self.n }
+    }
+
     /// g = G^E/RT and its first two derivatives in x1.
     fn g(&self, x1: f64) -> [f64; 3] {
         let z = 2.0 * x1 - 1.0;

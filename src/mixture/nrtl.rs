@@ -53,6 +53,17 @@ impl Nrtl {
     }
 }
 
+impl Nrtl {
+    /// The same mixture with the components numbered the other way round.
+    pub fn swapped(&self) -> Self {
+        Self {
+            b12: self.b21,
+            b21: self.b12,
+            alpha: self.alpha,
+        }
+    }
+}
+
 impl ActivityModel for Nrtl {
     fn name(&self) -> &'static str {
         "nrtl"

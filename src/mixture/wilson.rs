@@ -54,6 +54,15 @@ impl Wilson {
         })
     }
 
+    /// The same mixture with the components numbered the other way round.
+    pub fn swapped(&self) -> Self {
+        Self {
+            a12: self.a21,
+            a21: self.a12,
+            v: [self.v[1], self.v[0]],
+        }
+    }
+
     /// [Λ12, Λ21] at `t_k`.
     pub fn lambdas(&self, t_k: f64) -> [f64; 2] {
         [

@@ -2,12 +2,13 @@
 
 use super::rayleigh::Equilibrium;
 use super::{Component, PlanError};
+use crate::mixture::fit::Fitted;
 use crate::mixture::{
     self, ActivityModel, Binary, Condition, Ideal, StudyComponent, StudyOptions, Unifac, VleStudy,
 };
 
 /// Which liquid model a plan uses for its key pair.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+#[derive(Debug, Clone, PartialEq, Default)]
 pub enum ActivityChoice {
     /// UNIFAC when both key components have a known structure, otherwise the
     /// ideal solution (with a finding saying why).
@@ -17,6 +18,14 @@ pub enum ActivityChoice {
     Unifac,
     /// The ideal solution (Raoult's law, γ = 1).
     Ideal,
+    /// A model fitted to measured binary data (`ebullio fit` on x1, y1 data) for the
+    /// two components named, component 1 first; used when they are the key pair.
+    Fitted {
+        /// The fitted model, numbered as `names`.
+        model: Fitted,
+        /// The fit's component 1 and 2.
+        names: [String; 2],
+    },
 }
 
 /// The model chosen for a key pair, and why `Auto` fell back to the ideal solution when it did.
@@ -39,6 +48,25 @@ pub fn choose_model(
     };
     if choice == ActivityChoice::Ideal {
         return Ok(ideal(None));
+    }
+    if let ActivityChoice::Fitted { model, names } = &choice {
+        let same = |a: &str, b: &str| a.eq_ignore_ascii_case(b);
+        let m = if same(&names[0], &light.name) && same(&names[1], &heavy.name) {
+            *model
+        } else if same(&names[1], &light.name) && same(&names[0], &heavy.name) {
+            model
+                .swapped()
+                .map_err(|e| PlanError::Mixture(e.to_string()))?
+        } else {
+            return Err(PlanError::Mixture(format!(
+                "the fitted activity model is for {} / {}, but the key pair is {} / {}",
+                names[0], names[1], light.name, heavy.name
+            )));
+        };
+        return Ok(KeyPairModel {
+            model: Box::new(m),
+            fallback: None,
+        });
     }
     let missing: Vec<&str> = [light, heavy]
         .iter()

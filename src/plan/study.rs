@@ -31,7 +31,7 @@ pub enum RayleighModel {
 }
 
 /// What the plan is asked for.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct PlanOptions {
     /// Operating pressure.
     pub pressure: PressureRequest,
@@ -429,7 +429,7 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
     }
 
     // 6. The key pair's liquid model, azeotropes and equilibrium curve.
-    let chosen = activity::choose_model(opts.activity, light, heavy)?;
+    let chosen = activity::choose_model(opts.activity.clone(), light, heavy)?;
     if let Some(why) = &chosen.fallback {
         findings.push(Finding::new(
             PlanCode::IdealSolutionAssumed,

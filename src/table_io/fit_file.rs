@@ -77,3 +77,27 @@ pub fn pick_fit<'a>(
             }),
     }
 }
+
+/// Whether a fit result file holds a binary VLE fit (the JSON of `ebullio fit` on x1, y1 data).
+pub fn is_binary_fit(path: &Path) -> bool {
+    read_bytes(path)
+        .ok()
+        .and_then(|b| serde_json::from_slice::<serde_json::Value>(&b).ok())
+        .is_some_and(|v| v.get("model_spec").is_some() && v.get("gamma_infinity").is_some())
+}
+
+/// Read a binary VLE fit result (`ebullio fit DATA --format json` on x1, y1, T or p data).
+pub fn read_binary_fit(path: &Path) -> Result<crate::mixture::fit::BinaryFitReport, ReadError> {
+    let bytes = read_bytes(path)?;
+    let text = decode_text(path, &bytes)?;
+    serde_json::from_str(text).map_err(|e| {
+        ReadError::file(
+            path,
+            ReadErrorKind::FitFile,
+            format!(
+                "not a binary VLE fit (expected the JSON of `ebullio fit` on x1, y1 data): {e}"
+            ),
+        )
+        .at_line(e.line().max(1) as u64, Locus::Line)
+    })
+}

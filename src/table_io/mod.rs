@@ -25,7 +25,7 @@ pub mod text_table;
 pub use atomic::{write_atomic, write_atomic_with, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::estimates_csv;
-pub use fit_file::{pick_fit, read_fit_reports};
+pub use fit_file::{is_binary_fit, pick_fit, read_binary_fit, read_fit_reports};
 pub use measured::{
     fit_set, read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet,
     ReadOptions, ReadWarning,

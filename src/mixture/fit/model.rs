@@ -80,6 +80,26 @@ impl ActivityModel for Fitted {
     }
 }
 
+impl Fitted {
+    /// The same mixture with the components numbered the other way round
+    /// (component 1 becomes 2): A12 ↔ A21, a12 ↔ a21, b12 ↔ b21.
+    pub fn swapped(&self) -> Result<Fitted, MixtureError> {
+        Ok(match *self {
+            Fitted::Margules(m) => {
+                let [a, b] = [m.ln_gamma(0.0, 300.0)[0], m.ln_gamma(1.0, 300.0)[1]];
+                Fitted::Margules(Margules::new(b, a)?)
+            }
+            Fitted::VanLaar(m) => {
+                let [a, b] = [m.ln_gamma(0.0, 300.0)[0], m.ln_gamma(1.0, 300.0)[1]];
+                Fitted::VanLaar(VanLaar::new(b, a)?)
+            }
+            Fitted::Wilson(w) => Fitted::Wilson(w.swapped()),
+            Fitted::Nrtl(n) => Fitted::Nrtl(n.swapped()),
+            Fitted::Legendre(l) => Fitted::Legendre(l.swapped()),
+        })
+    }
+}
+
 impl FitModel {
     /// Name in output: `margules`, `van-laar`, `wilson`, `nrtl`, `legendre`.
     pub fn name(&self) -> &'static str {

@@ -232,3 +232,21 @@ pub struct BinaryFitReport {
     /// Cautions.
     pub cautions: Vec<String>,
 }
+
+impl BinaryFitReport {
+    /// The fitted model, rebuilt from `model_spec` and the parameter values (for
+    /// `vle --from` and `plan --from`); refused when the fit did not converge.
+
+    pub fn fitted_model(&self) -> Result<super::Fitted, crate::mixture::MixtureError> {
+        let theta: Vec<f64> = self.parameters.iter().map(|p| p.value).collect();
+        if !self.statistics.termination.is_success() || theta.iter().any(|v| !v.is_finite()) {
+            return Err(crate::mixture::MixtureError::BadParameter {
+                model: "fitted",
+                name: "parameters",
+                value: f64::NAN,
+                expected: "a converged fit (this one did not converge)",
+            });
+        }
+        self.model_spec.build(&theta)
+    }
+}
