@@ -236,7 +236,6 @@ pub struct BinaryFitReport {
 impl BinaryFitReport {
     /// The fitted model, rebuilt from `model_spec` and the parameter values (for
     /// `vle --from` and `plan --from`); refused when the fit did not converge.
-
     pub fn fitted_model(&self) -> Result<super::Fitted, crate::mixture::MixtureError> {
         let theta: Vec<f64> = self.parameters.iter().map(|p| p.value).collect();
         if !self.statistics.termination.is_success() || theta.iter().any(|v| !v.is_finite()) {
