@@ -77,6 +77,10 @@ pub struct Args {
     /// Also draw boiling points against pressure and the Rayleigh curve to this SVG file.
     #[arg(long, value_name = "FILE.svg")]
     pub plot: Option<PathBuf>,
+    /// Also write one self-contained HTML report (the plan, its drawings: the
+    /// column on the equilibrium curve and the key pair's T–x–y diagram) to this file.
+    #[arg(long, value_name = "FILE.html")]
+    pub report: Option<PathBuf>,
     #[command(flatten)]
     pub out: OutputArgs,
 }
@@ -341,5 +345,11 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     let inputs: Vec<&std::path::Path> = args.from.iter().map(|p| p.as_path()).collect();
     args.out.emit(&text, &inputs)?;
+    if let Some(path) = &args.report {
+        let html =
+            ebullio::report::plan_section::plan_report(&p, &comps, &super::common::command_line())
+                .render();
+        super::common::write_report(path, &html, &inputs, args.out.output.as_deref())?;
+    }
     Ok(Outcome::Success)
 }

@@ -223,6 +223,13 @@ pub struct Plan {
     pub limits: &'static str,
     /// The usual cautions.
     pub cautions: &'static [&'static str],
+    /// The key pair's equilibrium curve as the column was stepped on: (x, y) of
+    /// the light key at 101 liquid compositions, for drawing (not in the JSON).
+    #[serde(skip)]
+    pub equilibrium_curve: Vec<(f64, f64)>,
+    /// The key pair's T–x–y study with a liquid model, for drawing (not in the JSON).
+    #[serde(skip)]
+    pub key_pair_vle: Option<VleStudy>,
 }
 
 /// Make a plan for `components` under `opts`.
@@ -586,6 +593,13 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         }
     }
 
+    // The curve the column was stepped on, for drawing.
+    let equilibrium_curve: Vec<(f64, f64)> = (0..=100)
+        .filter_map(|i| {
+            let x = f64::from(i) / 100.0;
+            curve.y(x).ok().filter(|y| y.is_finite()).map(|y| (x, y))
+        })
+        .collect();
     Ok(Plan {
         pressure_pa: p,
         pressure_choice,
@@ -614,6 +628,8 @@ pub fn plan(components: &[Component], opts: &PlanOptions) -> Result<Plan, PlanEr
         } else {
             limits::CAUTIONS_MIXTURE
         },
+        equilibrium_curve,
+        key_pair_vle: study,
     })
 }
 

@@ -12,6 +12,7 @@ pub mod estimate_section;
 pub mod fit_plot;
 pub mod fit_section;
 pub mod html;
+pub mod mccabe_plot;
 pub mod palette;
 pub mod plan_plot;
 pub mod plan_section;

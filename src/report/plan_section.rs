@@ -3,7 +3,7 @@
 //! Used by the demo (and by any command that reports a plan). Formatting only.
 
 use super::fit_section::mbar;
-use super::html::{Figure, FindingRow, Section, Severity, Table};
+use super::html::{Figure, FindingRow, Report, Section, Severity, Table};
 use crate::plan::{Component, Plan};
 
 fn c(t_k: f64) -> String {
@@ -133,6 +133,27 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
             section.figure(fig);
         }
     }
+    if let Some(Ok(svg)) = super::mccabe_plot::mccabe_svg(plan) {
+        if let Ok(fig) = Figure::new(
+            &svg,
+            "The column on the key pair's equilibrium curve (McCabe–Thiele, constant molar overflow): stages stepped between the operating lines and the curve",
+        ) {
+            section.figure(fig);
+        }
+    }
+    if let Some(study) = &plan.key_pair_vle {
+        if let Ok(svg) = super::vle_plot::vle_svg(study) {
+            if let Ok(fig) = Figure::new(
+                &svg,
+                format!(
+                    "The key pair's predicted vapor–liquid equilibrium ({}; an estimate: confirm azeotropes with mixture data)",
+                    study.activity_model
+                ),
+            ) {
+                section.figure(fig);
+            }
+        }
+    }
     let mut head = vec!["p".to_string()];
     head.extend(plan.components.iter().map(|k| format!("t_b {}/°C", k.name)));
     head.extend(["Δt_b/K", "α", "N_min"].map(String::from));
@@ -191,4 +212,21 @@ pub fn add_plan(section: &mut Section, plan: &Plan, components: &[Component]) {
             .collect(),
     );
     section.paragraph(format!("Limits: {}", plan.limits));
+}
+/// The whole report of `ebullio plan`: findings, then the plan with its drawings
+/// (boiling points and Rayleigh curve, the column on the equilibrium curve, the
+/// key pair's T–x–y diagram with a liquid model), tables and cautions.
+pub fn plan_report(plan: &Plan, components: &[Component], command_line: &str) -> Report {
+    let mut r = Report::new(format!(
+        "Separation plan: {} / {}",
+        plan.key_pair[0], plan.key_pair[1]
+    ));
+    r.subtitle(
+        "A plan is a starting point, not a design: confirm the equilibrium with mixture data, and follow local codes and a qualified process-safety review before anything is heated.",
+    );
+    r.command_line(command_line);
+    r.section("Summary and findings")
+        .findings(plan_findings(plan));
+    add_plan(r.section("Plan"), plan, components);
+    r
 }
