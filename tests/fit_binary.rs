@@ -318,3 +318,36 @@ fn vle_and_plan_reuse_the_fit() {
         "{t}"
     );
 }
+
+/// `--report` and `--plot` on binary data: the HTML holds the consistency verdict and the
+/// figure (T–x–y with the model, ln(γ1/γ2), residuals), and both keep to the palette.
+#[test]
+fn report_and_plot_keep_to_the_palette() {
+    let d = scratch();
+    let o = run_in(
+        d.path(),
+        &[
+            "fit",
+            &still(),
+            "--pressure",
+            "1 atm",
+            "--format",
+            "json",
+            "-o",
+            "f.json",
+            "--report",
+            "f.html",
+            "--plot",
+            "f.svg",
+        ],
+    );
+    ok(&o);
+    let html = std::fs::read_to_string(d.path().join("f.html")).unwrap();
+    let svg = std::fs::read_to_string(d.path().join("f.svg")).unwrap();
+    assert!(html.contains("herington-area") && html.contains("FAIL") && html.contains("<svg"));
+    assert!(svg.contains("ln(γ1/γ2)") && svg.contains("residuals in y1"));
+    for doc in [&html, &svg] {
+        let foreign = ebullio::report::palette::foreign_colours(doc);
+        assert!(foreign.is_empty(), "{foreign:?}");
+    }
+}

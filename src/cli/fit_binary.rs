@@ -6,6 +6,7 @@ use super::common::{parse_pressure, Format};
 use super::fit::Args;
 use super::vle::{reference_comp, smiles_comp, Comp};
 use super::{InputError, Outcome};
+use anyhow::Context;
 use ebullio::mixture::fit::report::ComponentInfo;
 use ebullio::mixture::fit::{
     fit_binary, BinaryFitOptions, BinaryModelSelection, FitModel, NRTL_ALPHA_DEFAULT,
@@ -138,6 +139,25 @@ pub fn run(args: &Args, bytes: &[u8]) -> anyhow::Result<Outcome> {
             table.units.1.unwrap_or(PressureUnit::KPa),
         ),
     };
+    if let Some(path) = &args.plot {
+        let svg = ebullio::report::binary_fit_plot::binary_fit_svg(&report)?;
+        ebullio::table_io::write_atomic(path, svg.as_bytes(), &[args.data.as_path()])
+            .with_context(|| format!("writing {}", path.display()))?;
+    }
     args.out.emit(&text, &[args.data.as_path()])?;
+    if let Some(path) = &args.report {
+        let html = ebullio::report::binary_fit_section::binary_fit_report(
+            &table.source,
+            &report,
+            &super::common::command_line(),
+        )
+        .render();
+        super::common::write_report(
+            path,
+            &html,
+            &[args.data.as_path()],
+            args.out.output.as_deref(),
+        )?;
+    }
     Ok(Outcome::Success)
 }

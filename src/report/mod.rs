@@ -6,6 +6,8 @@
 //! anywhere else. The `*_section` modules build the report sections of each
 //! job (fit, estimate, check, plan); the commands' `--report` and the demo share them.
 
+pub mod binary_fit_plot;
+pub mod binary_fit_section;
 pub mod check_section;
 pub mod curve_plot;
 pub mod estimate_section;

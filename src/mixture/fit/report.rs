@@ -227,6 +227,16 @@ pub struct BinaryFitReport {
     pub points: Vec<PointOut>,
     /// Findings.
     pub flags: Vec<Finding>,
+    /// The fitted model's bubble line at the data's condition, 41 points from x1 = 0
+    /// to 1: `[x1, y1, T/K or p/Pa]` (for plots).
+    #[serde(default)]
+    pub model_curve: Vec<[f64; 3]>,
+    /// `[x1, ln(γ1/γ2)]` of each point with y1, from the data alone (the area tests' input).
+    #[serde(default)]
+    pub ln_gamma_ratio: Vec<[f64; 2]>,
+    /// Coefficients (constant first) of the polynomial in x1 the area test integrates.
+    #[serde(default)]
+    pub ln_gamma_ratio_polynomial: Option<Vec<f64>>,
     /// The standard uncertainties used as weights.
     pub uncertainties: Uncertainties,
     /// Cautions.

@@ -417,6 +417,33 @@ fn build_report(
             }
         }
     }
+    let model_curve = match f.model.build(&theta) {
+        Ok(m) if converged => {
+            let b = crate::mixture::Binary {
+                names: ["1", "2"],
+                curves,
+                model: &m,
+            };
+            b.diagram(cond, 41)
+                .map(|d| {
+                    d.iter()
+                        .map(|v| {
+                            let c = match cond {
+                                Condition::Pressure(_) => sig(v.t_k, 7),
+                                Condition::Temperature(_) => sig(v.p_pa, 7),
+                            };
+                            [sig(v.x1, 6), sig(v.y1, 6), c]
+                        })
+                        .collect()
+                })
+                .unwrap_or_default()
+        }
+        _ => Vec::new(),
+    };
+    let ratio = super::area::ln_gamma_ratio(data, curves);
+    let ln_gamma_ratio_polynomial =
+        super::area::ratio_polynomial(&ratio).map(|c| c.into_iter().map(|v| sig(v, 6)).collect());
+    let ln_gamma_ratio = ratio.iter().map(|&(x, r)| [x, sig(r, 5)]).collect();
     let (pressure_pa, temperature_k) = match cond {
         Condition::Pressure(p) => (Some(sig(p, 6)), None),
         Condition::Temperature(t) => (None, Some(sig(t, 6))),
@@ -454,6 +481,9 @@ fn build_report(
         consistency_not_run,
         points,
         flags,
+        model_curve,
+        ln_gamma_ratio,
+        ln_gamma_ratio_polynomial,
         uncertainties: u,
         cautions: FIT_CAUTIONS.iter().map(|s| s.to_string()).collect(),
     }
