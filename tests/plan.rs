@@ -391,55 +391,47 @@ fn benzene_toluene_gets_mccabe_thiele_numbers() {
     assert!(v["rayleigh"]["points"][0]["pot_t_k"].as_f64().is_some());
 }
 
-/// `plan --report` draws the column on the equilibrium curve and, with UNIFAC,
-/// the key pair's T–x–y diagram, in the palette; and it never overwrites an input.
-#[test]
-fn plan_report_has_the_column_and_the_key_pair_diagram() {
+/// The HTML of `plan SOURCES --pressure "1 atm" --distillate-purity 0.95 --report`.
+fn plan_report_html(sources: &[&str]) -> String {
     let d = scratch();
     let html = d.path().join("plan.html");
-    let o = ebullio()
-        .args([
-            "plan",
-            "--compound",
-            "benzene",
-            "--compound",
-            "toluene",
-            "--pressure",
-            "1 atm",
-            "--distillate-purity",
-            "0.95",
-            "--report",
-            html.to_str().unwrap(),
-        ])
-        .output()
-        .unwrap();
+    let mut args = vec!["plan"];
+    args.extend_from_slice(sources);
+    args.extend_from_slice(&[
+        "--pressure",
+        "1 atm",
+        "--distillate-purity",
+        "0.95",
+        "--report",
+    ]);
+    args.push(html.to_str().unwrap());
+    let o = ebullio().args(&args).output().unwrap();
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
-    let text = std::fs::read_to_string(&html).unwrap();
+    std::fs::read_to_string(&html).unwrap()
+}
+
+/// `plan --report` draws the column on the equilibrium curve and, with UNIFAC,
+/// the key pair's T–x–y diagram, in the palette.
+#[test]
+fn plan_report_has_the_column_and_the_key_pair_diagram() {
+    let text = plan_report_html(&["--compound", "benzene", "--compound", "toluene"]);
     assert_eq!(text.matches("<svg").count(), 3, "three drawings");
     assert!(text.contains("McCabe–Thiele"));
-    assert!(text.contains("T–x–y") || text.contains("vapor–liquid equilibrium"));
+    assert!(text.contains("vapor–liquid equilibrium (unifac"));
     assert!(ebullio::report::palette::foreign_colours(&text).is_empty());
     // The ideal model has no T–x–y study to draw, but still the column.
-    let html2 = d.path().join("ideal.html");
-    let o = ebullio()
-        .args([
-            "plan",
-            "--antoine",
-            BZ,
-            "--antoine",
-            TOL,
-            "--constants",
-            "ln,kPa,degC",
-            "--pressure",
-            "1 atm",
-            "--distillate-purity",
-            "0.95",
-            "--report",
-            html2.to_str().unwrap(),
-        ])
-        .output()
-        .unwrap();
-    assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
-    let text = std::fs::read_to_string(&html2).unwrap();
-    assert_eq!(text.matches("<svg").count(), 2, "boiling points and the column");
+    let text = plan_report_html(&[
+        "--antoine",
+        BZ,
+        "--antoine",
+        TOL,
+        "--constants",
+        "ln,kPa,degC",
+    ]);
+    assert_eq!(
+        text.matches("<svg").count(),
+        2,
+        "boiling points and the column"
+    );
+    assert!(text.contains("McCabe–Thiele"));
 }

@@ -218,6 +218,21 @@ pub struct ExcludedPoint {
     pub by: String,
 }
 
+impl FitReport {
+    /// The excluded points in words, "point 5 (line 6), point 9".
+    pub fn excluded_list(&self) -> String {
+        let list: Vec<String> = self
+            .excluded
+            .iter()
+            .map(|e| match e.line {
+                Some(l) => format!("point {} (line {l})", e.number),
+                None => format!("point {}", e.number),
+            })
+            .collect();
+        list.join(", ")
+    }
+}
+
 /// The whole result of fitting one compound.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct FitReport {

@@ -58,21 +58,14 @@ pub fn fit_points_with_lines(
             by: format!("user: --exclude {by}"),
         })
         .collect();
-    let list: Vec<String> = r
-        .excluded
-        .iter()
-        .map(|e| match e.line {
-            Some(l) => format!("point {} (line {l})", e.number),
-            None => format!("point {}", e.number),
-        })
-        .collect();
+    let list = r.excluded_list();
     r.flags.insert(
         0,
         Finding::new(
             FitCode::ExcludedPoints,
             format!(
                 "Excluded by the user (--exclude): {}. The constants, intervals and predictions are from the remaining {} points; boil --from and plan --from use exactly this fit.",
-                list.join(", "),
+                list,
                 kept.len()
             ),
         ),

@@ -1,7 +1,7 @@
 //! SVG of a column on the key pair's equilibrium curve: the McCabe–Thiele
 //! construction (curve, diagonal, q-line, operating lines, the stages stepped).
 
-use super::palette::{self, draw, font, INK, PAPER, RULE};
+use super::palette::{self, draw, font, PAPER, RULE};
 use super::plan_plot::PlotError;
 use crate::plan::column_plan::ColumnSummary;
 use crate::plan::Plan;
@@ -67,16 +67,12 @@ fn draw_column(plan: &Plan, col: &ColumnSummary) -> Result<String, PlotError> {
             .y_label_area_size(55)
             .build_cartesian_2d(0.0f64..1.0f64, 0.0f64..1.0f64)
             .map_err(err)?;
-        ch.configure_mesh()
-            .x_desc(format!("x (liquid mole fraction {light})"))
-            .y_desc(format!("y (vapor mole fraction {light})"))
-            .axis_style(INK.rgb())
-            .bold_line_style(palette::GRID.rgb())
-            .light_line_style(palette::SHADE.rgb())
-            .label_style(font(12))
-            .axis_desc_style(font(14))
-            .draw()
-            .map_err(err)?;
+        draw::mesh(
+            &mut ch,
+            &format!("x (liquid mole fraction {light})"),
+            &format!("y (vapor mole fraction {light})"),
+        )
+        .map_err(err)?;
         ch.draw_series(LineSeries::new(
             vec![(0.0, 0.0), (1.0, 1.0)],
             RULE.rgb().stroke_width(1),
@@ -110,13 +106,7 @@ fn draw_column(plan: &Plan, col: &ColumnSummary) -> Result<String, PlotError> {
             Some("stages"),
         )
         .map_err(err)?;
-        ch.configure_series_labels()
-            .position(SeriesLabelPosition::LowerRight)
-            .background_style(PAPER.rgb().mix(0.85))
-            .border_style(RULE.rgb())
-            .label_font(font(12))
-            .draw()
-            .map_err(err)?;
+        draw::legend_box(&mut ch, SeriesLabelPosition::LowerRight).map_err(err)?;
         root.present().map_err(err)?;
     }
     Ok(buf)

@@ -66,16 +66,12 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .y_label_area_size(55)
             .build_cartesian_2d(0.0f64..1.0f64, (lo - pad)..(hi + pad))
             .map_err(err)?;
-        ch.configure_mesh()
-            .x_desc(format!("x1, y1 (mole fraction {n1})"))
-            .y_desc(if isobaric { "t / °C" } else { "p / kPa" })
-            .axis_style(INK.rgb())
-            .bold_line_style(palette::GRID.rgb())
-            .light_line_style(palette::SHADE.rgb())
-            .label_style(font(12))
-            .axis_desc_style(font(14))
-            .draw()
-            .map_err(err)?;
+        draw::mesh(
+            &mut ch,
+            &format!("x1, y1 (mole fraction {n1})"),
+            if isobaric { "t / °C" } else { "p / kPa" },
+        )
+        .map_err(err)?;
         draw::line(
             &mut ch,
             &liquid,
@@ -104,16 +100,7 @@ pub fn vle_svg(study: &VleStudy) -> Result<String, PlotError> {
             .y_label_area_size(55)
             .build_cartesian_2d(0.0f64..1.0f64, 0.0f64..1.0f64)
             .map_err(err)?;
-        ch.configure_mesh()
-            .x_desc("x1 (liquid)")
-            .y_desc("y1 (vapor)")
-            .axis_style(INK.rgb())
-            .bold_line_style(palette::GRID.rgb())
-            .light_line_style(palette::SHADE.rgb())
-            .label_style(font(12))
-            .axis_desc_style(font(14))
-            .draw()
-            .map_err(err)?;
+        draw::mesh(&mut ch, "x1 (liquid)", "y1 (vapor)").map_err(err)?;
         ch.draw_series(LineSeries::new(
             vec![(0.0, 0.0), (1.0, 1.0)],
             RULE.rgb().stroke_width(1),

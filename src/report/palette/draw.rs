@@ -160,3 +160,42 @@ impl<DB: DrawingBackend> Drawable<DB> for LegendSample {
         }
     }
 }
+
+/// The project's mesh on a chart of numbers: ink axes, grid and shade lines,
+/// label and axis-title fonts, and the two axis titles.
+pub fn mesh<'a, DB, X, Y>(chart: Chart<'_, 'a, DB, X, Y>, x_desc: &str, y_desc: &str) -> Drawn<DB>
+where
+    DB: DrawingBackend + 'a,
+    X: Ranged<ValueType = f64> + plotters::coord::ranged1d::ValueFormatter<f64>,
+    Y: Ranged<ValueType = f64> + plotters::coord::ranged1d::ValueFormatter<f64>,
+{
+    chart
+        .configure_mesh()
+        .x_desc(x_desc)
+        .y_desc(y_desc)
+        .axis_style(super::INK.rgb())
+        .bold_line_style(super::GRID.rgb())
+        .light_line_style(super::SHADE.rgb())
+        .label_style(super::font(12))
+        .axis_desc_style(super::font(14))
+        .draw()
+}
+
+/// The legend box in the palette, at `position`.
+pub fn legend_box<'a, DB, X, Y>(
+    chart: Chart<'_, 'a, DB, X, Y>,
+    position: plotters::chart::SeriesLabelPosition,
+) -> Drawn<DB>
+where
+    DB: DrawingBackend + 'a,
+    X: Ranged<ValueType = f64>,
+    Y: Ranged<ValueType = f64>,
+{
+    chart
+        .configure_series_labels()
+        .position(position)
+        .background_style(super::PAPER.rgb().mix(0.85))
+        .border_style(super::RULE.rgb())
+        .label_font(super::font(12))
+        .draw()
+}

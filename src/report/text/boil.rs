@@ -51,15 +51,7 @@ pub fn excluded_note(r: &crate::fit::FitReport) -> String {
     if r.excluded.is_empty() {
         return String::new();
     }
-    let list: Vec<String> = r
-        .excluded
-        .iter()
-        .map(|e| match e.line {
-            Some(l) => format!("point {} (line {l})", e.number),
-            None => format!("point {}", e.number),
-        })
-        .collect();
-    format!("; {} excluded by the user", list.join(", "))
+    format!("; {} excluded by the user", r.excluded_list())
 }
 
 /// The readable report.
