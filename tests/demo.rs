@@ -34,6 +34,13 @@ fn demo_writes_a_self_contained_report_with_svg_plots() {
         assert!(!lower.contains(bad), "report contains {bad}");
     }
     assert!(html.contains("HV-12 ketone") && html.contains("Cautions"));
+    // Still run SR-14 carries a planted y1 bias (reference-data/demo/README.md): both
+    // consistency tests must catch it, in the summary and in the report.
+    assert!(
+        stdout.contains("herington-area FAILS, point-to-point FAILS"),
+        "{stdout}"
+    );
+    assert!(html.contains("Still run SR-14") && html.contains("consistency-failed"));
     // Every colour in the report (CSS and every plot) is one of the palette's.
     let foreign = ebullio::report::palette::foreign_colours(&html);
     assert!(

@@ -12,19 +12,22 @@ use ebullio::estimate::anchor::MeasuredPoint;
 use ebullio::estimate::batch::EstimateRow;
 use ebullio::estimate::estimate_smiles;
 use ebullio::fit::{FitOptions, FitReport, FittedCurve};
+use ebullio::mixture::fit::report::ComponentInfo;
+use ebullio::mixture::fit::{fit_binary, BinaryFitOptions, BinaryFitReport};
 use ebullio::plan::{Component, Plan, PlanOptions, PressureRequest};
 use ebullio::reference::compare::Tolerances;
 use ebullio::reference::fit_check::check_fit;
 use ebullio::reference::Library;
 use ebullio::report::curve_plot::{CurvePlot, PlotCurve};
 use ebullio::report::html::{Figure, FindingRow, Report, Severity, Table};
-use ebullio::report::{estimate_section, fit_section, plan_section};
+use ebullio::report::{binary_fit_section, estimate_section, fit_section, plan_section};
+use ebullio::table_io::binary::{read_binary_bytes, BinaryReadOptions};
 use ebullio::table_io::{fit_set, read_measured_bytes, ReadOptions};
 use ebullio::units::{parse_pressure, parse_quantity, parse_temperature, Quantity};
 use std::path::Path;
 
 /// The embedded files: (name, text).
-pub const FILES: [(&str, &str); 6] = [
+pub const FILES: [(&str, &str); 7] = [
     (
         "ebulliometer-2026.csv",
         include_str!("../../reference-data/demo/ebulliometer-2026.csv"),
@@ -49,7 +52,14 @@ pub const FILES: [(&str, &str); 6] = [
         "README.md",
         include_str!("../../reference-data/demo/README.md"),
     ),
+    (
+        "still-run-2026.csv",
+        include_str!("../../reference-data/demo/still-run-2026.csv"),
+    ),
 ];
+
+/// The still run's pressure, Pa (the still runs at one atmosphere).
+pub const STILL_PA: f64 = ebullio::units::ATM_PA;
 
 /// The planned vacuum of the scenario, Pa (20 mbar).
 pub const VACUUM_PA: f64 = 2000.0;
@@ -96,8 +106,48 @@ pub struct DemoRun {
     pub check: Option<DemoCheck>,
     /// The plan (None with the reason in `findings` when it could not be made).
     pub plan: Option<DemoPlan>,
+    /// The binary fit of still run SR-14 with its consistency tests.
+    pub still: Option<BinaryFitReport>,
     /// Findings for the summary.
     pub findings: Vec<FindingRow>,
+}
+
+/// Fit still run SR-14 (ethyl acetate / ethanol, T-x-y at 1 atm) as `ebullio fit` does.
+fn fit_still_run() -> Result<BinaryFitReport, String> {
+    let (name, text) = FILES[6];
+    let opts = BinaryReadOptions {
+        pressure_pa: Some(STILL_PA),
+        ..Default::default()
+    };
+    let t =
+        read_binary_bytes(Path::new(name), text.as_bytes(), &opts).map_err(|e| e.to_string())?;
+    let (names, _) = t
+        .components
+        .clone()
+        .ok_or("the still run names no components")?;
+    let lib = Library::bundled();
+    let mut curves = Vec::new();
+    let mut info = Vec::new();
+    for n in &names {
+        let c = lib.find(n).map_err(|e| e.to_string())?;
+        let curve = c.best_curve().ok_or("no reference curve")?;
+        info.push(ComponentInfo {
+            name: c.name.clone(),
+            smiles: c.smiles.clone(),
+            vapor_pressure_source: format!(
+                "reference: {}",
+                fit_section::without_urls(&curve.source)
+            ),
+        });
+        curves.push(curve);
+    }
+    fit_binary(
+        &t.data,
+        [&curves[0], &curves[1]],
+        info,
+        &BinaryFitOptions::default(),
+    )
+    .map_err(|e| e.to_string())
 }
 
 /// Run the whole scenario. Errors only if the embedded data are broken.
@@ -157,6 +207,22 @@ pub fn run() -> Result<DemoRun, String> {
     }
     findings.extend(estimate_section::estimate_findings(&estimates));
 
+    let still = match fit_still_run() {
+        Ok(r) => {
+            findings.extend(binary_fit_section::binary_fit_findings(&r));
+            Some(r)
+        }
+        Err(e) => {
+            findings.push(FindingRow::new(
+                Severity::Error,
+                FILES[6].0,
+                "fit-failed",
+                e,
+            ));
+            None
+        }
+    };
+
     let check = check_supplier_table()?;
     #[cfg(feature = "tables")]
     if let Some(c) = &check {
@@ -201,6 +267,7 @@ pub fn run() -> Result<DemoRun, String> {
         estimates,
         check,
         plan,
+        still,
         findings,
     })
 }
@@ -458,6 +525,15 @@ pub fn html(run: &DemoRun, command_line: &str) -> String {
         ));
         ebullio::report::check_section::add_check(sec, FILES[2].0, &ch.table, &ch.report);
     }
+    if let Some(st) = &run.still {
+        let sec = r.section("Still run SR-14: ethyl acetate / ethanol at 1 atm");
+        sec.paragraph(
+            "The site's recirculating still (T-x-y, 12 points): the activity model fitted to it, and whether the data are thermodynamically consistent.",
+        );
+        binary_fit_section::add_consistency(sec, st);
+        binary_fit_section::add_model(sec.subsection("Model and parameters"), st);
+        binary_fit_section::add_points(sec.subsection("Points"), st);
+    }
     if let Some(p) = &run.plan {
         let sec = r.section("Separation plan");
         sec.paragraph(format!(
@@ -495,6 +571,18 @@ pub fn summary(run: &DemoRun) -> String {
                 }
             ));
         }
+    }
+    if let Some(st) = &run.still {
+        let verdict: Vec<String> = st
+            .consistency
+            .iter()
+            .map(|t| format!("{} {}", t.test, if t.passed { "passes" } else { "FAILS" }))
+            .collect();
+        s.push_str(&format!(
+            "\nStill run SR-14 (ethyl acetate / ethanol, 1 atm): {} fit; {}.\n",
+            st.model,
+            verdict.join(", ")
+        ));
     }
     s.push_str("\nMain findings of the fits and estimates:\n");
     let mut f: Vec<FindingRow> = fit_section::fit_findings(&run.fits);

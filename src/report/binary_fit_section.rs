@@ -2,7 +2,7 @@
 //! γ∞ and azeotropes, the plots and the points. Formatting only: every number comes
 //! from the [`BinaryFitReport`].
 
-use super::html::{Figure, FindingRow, Report, Table};
+use super::html::{Figure, FindingRow, Report, Section, Table};
 use crate::mixture::fit::{BinaryFitReport, DataKind};
 use crate::units::CELSIUS_OFFSET;
 
@@ -20,12 +20,7 @@ fn og(v: Option<f64>, d: usize) -> String {
 
 /// The whole report for `ebullio fit DATA --report fit.html` on binary data.
 pub fn binary_fit_report(source: &str, r: &BinaryFitReport, command_line: &str) -> Report {
-    let names: Vec<&str> = r.components.iter().map(|c| c.name.as_str()).collect();
-    let pair = if names.len() == 2 {
-        format!("{} (1) / {} (2)", names[0], names[1])
-    } else {
-        "binary".into()
-    };
+    let pair = pair_name(r);
     let mut rep = Report::new(format!("Binary VLE fit: {pair}"));
     let cond = match (r.pressure_pa, r.temperature_k) {
         (Some(p), _) => format!("T-x-y at {} kPa", g(p / 1000.0, 3)),
@@ -42,13 +37,40 @@ pub fn binary_fit_report(source: &str, r: &BinaryFitReport, command_line: &str) 
     cautions.dedup();
     rep.cautions(cautions);
 
-    let s = rep.section("Findings and consistency");
-    s.findings(
-        r.flags
-            .iter()
-            .map(|f| FindingRow::of(f, pair.clone()))
-            .collect(),
-    );
+    add_binary_fit(&mut rep, r);
+    rep
+}
+
+/// The pair's name as the report writes it.
+fn pair_name(r: &BinaryFitReport) -> String {
+    let names: Vec<&str> = r.components.iter().map(|c| c.name.as_str()).collect();
+    if names.len() == 2 {
+        format!("{} (1) / {} (2)", names[0], names[1])
+    } else {
+        "binary".into()
+    }
+}
+
+/// The fit's findings as report rows (for a summary).
+pub fn binary_fit_findings(r: &BinaryFitReport) -> Vec<FindingRow> {
+    let pair = pair_name(r);
+    r.flags
+        .iter()
+        .map(|f| FindingRow::of(f, pair.clone()))
+        .collect()
+}
+
+/// The three sections of a binary fit (findings and consistency, model, points) added
+/// to `rep`, for the command's report and the demo.
+pub fn add_binary_fit(rep: &mut Report, r: &BinaryFitReport) {
+    add_consistency(rep.section("Findings and consistency"), r);
+    add_model(rep.section("Model and parameters"), r);
+    add_points(rep.section("Points"), r);
+}
+
+/// Findings and the consistency table into `s`.
+pub fn add_consistency(s: &mut Section, r: &BinaryFitReport) {
+    s.findings(binary_fit_findings(r));
     let mut t = Table::new(["test", "verdict", "statistic", "criterion", "what it means"])
         .caption("Thermodynamic-consistency tests (each needs measured y1)");
     for c in &r.consistency {
@@ -74,8 +96,10 @@ pub fn binary_fit_report(source: &str, r: &BinaryFitReport, command_line: &str) 
         ]);
     }
     s.table(t);
+}
 
-    let s = rep.section("Model and parameters");
+/// Vapor-pressure sources, model choice, parameters, γ∞, azeotropes and the figure into `s`.
+pub fn add_model(s: &mut Section, r: &BinaryFitReport) {
     for c in &r.components {
         s.paragraph(format!(
             "Vapor pressure of {}: {}.",
@@ -169,8 +193,10 @@ pub fn binary_fit_report(source: &str, r: &BinaryFitReport, command_line: &str) 
             s.paragraph("The plot could not be drawn (no converged model curve).");
         }
     }
+}
 
-    let s = rep.section("Points");
+/// The points table into `s`.
+pub fn add_points(s: &mut Section, r: &BinaryFitReport) {
     let iso = r.kind == DataKind::Isobaric;
     let mut t = Table::new([
         "#",
@@ -214,5 +240,4 @@ pub fn binary_fit_report(source: &str, r: &BinaryFitReport, command_line: &str) 
         ]);
     }
     s.table(t);
-    rep
 }
