@@ -46,6 +46,7 @@ pub mod fenske;
 pub mod limits;
 pub mod pressure;
 pub mod rayleigh;
+mod result;
 mod study;
 pub mod uncertainty;
 pub mod verdict;
