@@ -200,6 +200,22 @@ fn bad_binary_input_exits_2_naming_file_line_and_column() {
     );
     refused(
         p,
+        "u.csv",
+        "x1,y1,t/degC\n0.1,0.2,76\n0.3,0.4,73\n0.6,0.6,72.7\n",
+        &[
+            "--pressure",
+            "1 atm",
+            "--compound",
+            "ethyl acetate",
+            "--compound",
+            "ethanol",
+            "--u-y",
+            "-1",
+        ],
+        &["--u-y -1", "positive standard uncertainty"],
+    );
+    refused(
+        p,
         "nop.csv",
         "x1,y1,t/degC\n0.1,0.2,76\n0.3,0.4,73\n0.6,0.6,72.7\n",
         &atm[2..],

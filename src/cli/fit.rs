@@ -71,6 +71,15 @@ pub struct Args {
     /// ("1 atm", "200 mbar"); checked against a pressure column when there is one.
     #[arg(long, allow_hyphen_values = true)]
     pub pressure: Option<String>,
+    /// Binary VLE data: standard uncertainty of the measured temperatures, K [default: 0.1].
+    #[arg(long, value_name = "K", allow_hyphen_values = true)]
+    pub u_t: Option<f64>,
+    /// Binary VLE data: standard uncertainty of the vapor mole fractions y1 [default: 0.005].
+    #[arg(long, value_name = "Y", allow_hyphen_values = true)]
+    pub u_y: Option<f64>,
+    /// Binary VLE data: standard uncertainty of the measured pressures, % [default: 0.5].
+    #[arg(long, value_name = "PCT", allow_hyphen_values = true)]
+    pub u_p: Option<f64>,
     /// Binary VLE data: the cell's temperature for p-x-y data without a temperature column.
     #[arg(long, allow_hyphen_values = true)]
     pub temperature: Option<String>,
@@ -222,9 +231,14 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         )
         .into());
     }
-    if args.pressure.is_some() || args.temperature.is_some() {
+    if args.pressure.is_some()
+        || args.temperature.is_some()
+        || args.u_t.is_some()
+        || args.u_y.is_some()
+        || args.u_p.is_some()
+    {
         return Err(InputError(
-            "--pressure and --temperature apply to binary VLE data (an x1 column); this file has none".into(),
+            "--pressure, --temperature, --u-t, --u-y and --u-p apply to binary VLE data (an x1 column); this file has none".into(),
         )
         .into());
     }

@@ -9,7 +9,7 @@ use super::{InputError, Outcome};
 use anyhow::Context;
 use ebullio::mixture::fit::report::ComponentInfo;
 use ebullio::mixture::fit::{
-    fit_binary, BinaryFitOptions, BinaryModelSelection, FitModel, NRTL_ALPHA_DEFAULT,
+    fit_binary, BinaryFitOptions, BinaryModelSelection, FitModel, Uncertainties, NRTL_ALPHA_DEFAULT,
 };
 use ebullio::table_io::binary::{read_binary_bytes, BinaryReadOptions};
 use ebullio::table_io::ReadOptions;
@@ -108,6 +108,21 @@ pub fn run(args: &Args, bytes: &[u8]) -> anyhow::Result<Outcome> {
             .transpose()?,
     };
     let sel = model(args.model.as_deref())?;
+    let d = Uncertainties::default();
+    let positive = |v: Option<f64>, default: f64, opt: &str| -> Result<f64, InputError> {
+        match v {
+            None => Ok(default),
+            Some(x) if x.is_finite() && x > 0.0 => Ok(x),
+            Some(x) => Err(InputError(format!(
+                "{opt} {x}: expected a positive standard uncertainty"
+            ))),
+        }
+    };
+    let u = Uncertainties {
+        t_k: positive(args.u_t, d.t_k, "--u-t")?,
+        y1: positive(args.u_y, d.y1, "--u-y")?,
+        p_rel: positive(args.u_p.map(|p| p / 100.0), d.p_rel, "--u-p")?,
+    };
     let table =
         read_binary_bytes(&args.data, bytes, &opts).map_err(|e| InputError(e.to_string()))?;
     let comps = components(args, table.components.as_ref(), &table.source)?;
@@ -124,10 +139,7 @@ pub fn run(args: &Args, bytes: &[u8]) -> anyhow::Result<Outcome> {
         &table.data,
         curves,
         info,
-        &BinaryFitOptions {
-            model: sel,
-            ..Default::default()
-        },
+        &BinaryFitOptions { model: sel, u },
     )
     .map_err(|e| InputError(format!("{}: {e}", table.source)))?;
     let text = match args.out.format() {

@@ -376,3 +376,48 @@ fn report_rebuilds_the_model_and_swapping_renumbers_components() {
     let (g, h) = (l.ln_gamma(0.3, 350.0), s.ln_gamma(0.7, 350.0));
     assert!((g[0] - h[1]).abs() < 1e-12 && (g[1] - h[0]).abs() < 1e-12);
 }
+
+/// Hand calculation of the area statistic: points whose ln(γ1/γ2) is exactly
+/// 0.6 − 0.8·x1 give A⁺ = ∫₀^0.75 = 0.225 and A⁻ = ∫_0.75^1 = 0.025, so
+/// D = 100·0.2/0.25 = 80; ln(γ1/γ2) = 0.4(1 − 2x1) gives D = 0 (equal areas).
+/// Herington's J = 150·(T_max − T_min)/T_min with the pure boiling points 345 K and
+/// 365 K in the range: 150·20/345 = 8.696 (E. F. G. Herington, J. Inst. Petrol. 37 (1951) 457).
+#[test]
+fn area_statistic_and_herington_allowance_by_hand() {
+    let (bz, tol) = (benzene(), toluene());
+    let data = |r: &dyn Fn(f64) -> f64, t: &dyn Fn(f64) -> f64| BinaryData {
+        kind: DataKind::Isobaric,
+        points: (1..10)
+            .map(|i| {
+                let x = i as f64 / 10.0;
+                let tk = t(x);
+                let q = r(x).exp() * x * bz.p_pa(tk) / ((1.0 - x) * tol.p_pa(tk));
+                BinaryPoint {
+                    x1: x,
+                    y1: Some(q / (1.0 + q)),
+                    t_k: tk,
+                    p_pa: P,
+                    line: None,
+                }
+            })
+            .collect(),
+    };
+    let flat = |_: f64| 350.0;
+    let d = area::area_deviation(&data(&|x| 0.6 - 0.8 * x, &flat), [&bz, &tol]).unwrap();
+    assert!((d - 80.0).abs() < 1e-3, "{d}");
+    let d = area::area_deviation(&data(&|x| 0.4 * (1.0 - 2.0 * x), &flat), [&bz, &tol]).unwrap();
+    assert!(d.abs() < 1e-3, "{d}");
+    let sloped = |x: f64| 350.0 + 10.0 * x;
+    let h = area::herington(
+        &data(&|x| 0.6 - 0.8 * x, &sloped),
+        [&bz, &tol],
+        [Some(345.0), Some(365.0)],
+    )
+    .unwrap();
+    assert!(
+        (h.statistic - (80.0 - 150.0 * 20.0 / 345.0)).abs() < 1e-3,
+        "{}",
+        h.statistic
+    );
+    assert!(!h.passed);
+}
