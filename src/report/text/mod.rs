@@ -15,6 +15,7 @@
 
 pub mod binary_fit;
 pub mod boil;
+pub mod estimate;
 pub mod fit;
 pub mod plan;
 pub mod reference;
