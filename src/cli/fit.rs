@@ -20,6 +20,12 @@ use std::path::PathBuf;
 /// and `u(p)/kPa` columns, and an optional `compound` column (one fit per
 /// compound). Example: ebullio fit runs.csv --at "20 mbar" --at "85 degC"
 ///
+/// Binary VLE data (an `x1` column, optional `y1`, and `t/degC` or `T/K` and/or
+/// `p/kPa`) are fitted with an activity model (Margules, van Laar, Wilson, NRTL)
+/// and tested for thermodynamic consistency (Herington or Redlich–Kister area
+/// test, point-to-point test). Example:
+/// ebullio fit still.csv --pressure "1 atm" --compound "ethyl acetate" --compound ethanol
+///
 /// Fitted constants are not measurements: check them before planning a
 /// distillation, and follow local codes and process-safety review.
 #[derive(Debug, clap::Args)]
