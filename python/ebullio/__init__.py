@@ -77,7 +77,7 @@ def fit(
     >>> r = ebullio.fit(df)
     >>> r[0].model, r[0].ok
     ('antoine', True)
-    >>> 370 < r[0].normal_boiling_point_k < 380
+    >>> 380 < r[0].normal_boiling_point_k < 390  # invented points, a water-like curve
     True
     """
     csv: Optional[bytes] = None

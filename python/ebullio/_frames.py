@@ -48,10 +48,14 @@ def string_series(values: Any, what: str) -> pl.Series:
     elif hasattr(values, "__arrow_c_stream__") or hasattr(values, "__arrow_c_array__"):
         s = pl.Series(values)
     else:
-        try:
-            s = pl.Series(what, list(values), dtype=pl.String, strict=False)
-        except TypeError as e:
-            raise TypeError(f"{what}: expected text values: {e}") from None
+        values = list(values)
+        for i, v in enumerate(values):
+            if v is not None and not isinstance(v, str):
+                raise InputError_from(
+                    f"{what}: row {i} holds {type(v).__name__} ({v!r}); expected text (SMILES strings)",
+                    row=i, column=what, code="column-type",
+                )
+        s = pl.Series(what, values, dtype=pl.String)
     if s.dtype == pl.Null:
         s = s.cast(pl.String)
     if s.dtype not in (pl.String, pl.Categorical, pl.Enum):
