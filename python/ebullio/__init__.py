@@ -230,13 +230,18 @@ def boil(
     range: Optional[str] = None,
     fit: Optional[Fit] = None,
     reference_table: Optional[PathLike] = None,
+    pressure_range: Optional[str] = None,
+    temperature_range: Optional[str] = None,
+    steps: int = 10,
 ) -> BoilResult:
     """Boiling temperature at pressures (or vapor pressure at temperatures), as ``ebullio boil``.
 
     The source is one of: a bundled reference ``compound`` (name, synonym or CAS; or from your
     own ``reference_table``), ``smiles`` (structure estimate), ``antoine=(A, B, C)`` with
     ``constants`` (and optionally ``range="20 degC..110 degC"``), or a :class:`Fit`.
-    Quantities carry their unit: ``pressure="15 mbar"``, ``temperature=["85 degC", "90 degC"]``.
+    Quantities carry their unit: ``pressure="15 mbar"``, ``temperature=["85 degC", "90 degC"]``;
+    ``pressure_range="1 mbar..1 atm"`` (log-spaced) or ``temperature_range="20 degC..110 degC"``
+    (evenly spaced) add ``steps`` points.
 
     >>> import ebullio
     >>> b = ebullio.boil("toluene", pressure="1 atm")
@@ -255,7 +260,7 @@ def boil(
         None if antoine is None else tuple(float(x) for x in antoine),
         constants, range, compound,
         None if reference_table is None else os.fspath(reference_table),
-        fit_json, smiles,
+        fit_json, smiles, pressure_range, temperature_range, int(steps),
     )
     return BoilResult(json.loads(report))
 

@@ -72,6 +72,9 @@ def boil(
     reference_table: Optional[str] = None,
     fit: Optional[str] = None,
     smiles: Optional[str] = None,
+    pressure_range: Optional[str] = None,
+    temperature_range: Optional[str] = None,
+    steps: int = 10,
 ) -> str: ...
 def version() -> str: ...
 def threads() -> int: ...

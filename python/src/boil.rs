@@ -21,21 +21,27 @@ struct Report {
     cautions: Vec<String>,
 }
 
+fn split_range(py: Python<'_>, r: &str, what: &str, example: &str) -> PyResult<(String, String)> {
+    r.split_once("..")
+        .map(|(a, b)| (a.trim().to_string(), b.trim().to_string()))
+        .ok_or_else(|| {
+            plain(
+                py,
+                format!("{what} '{r}': write it as \"LOW..HIGH\", e.g. {example}"),
+            )
+        })
+}
+
 fn range_k(py: Python<'_>, r: &str) -> PyResult<(f64, f64)> {
-    let (lo, hi) = r.split_once("..").ok_or_else(|| {
-        plain(
-            py,
-            format!("range '{r}': write it as \"LOW..HIGH\", e.g. \"20 degC..110 degC\""),
-        )
-    })?;
-    let lo = parse_temperature(lo.trim()).map_err(|e| plain(py, format!("range: {e}")))?;
-    let hi = parse_temperature(hi.trim()).map_err(|e| plain(py, format!("range: {e}")))?;
+    let (lo, hi) = split_range(py, r, "range", "\"20 degC..110 degC\"")?;
+    let lo = parse_temperature(&lo).map_err(|e| plain(py, format!("range: {e}")))?;
+    let hi = parse_temperature(&hi).map_err(|e| plain(py, format!("range: {e}")))?;
     Ok((lo.kelvin(), hi.kelvin()))
 }
 
 /// The boil report as JSON (the CLI's `--format json` fields).
 #[pyfunction]
-#[pyo3(signature = (pressure, temperature, antoine=None, constants=None, range=None, compound=None, reference_table=None, fit=None, smiles=None))]
+#[pyo3(signature = (pressure, temperature, antoine=None, constants=None, range=None, compound=None, reference_table=None, fit=None, smiles=None, pressure_range=None, temperature_range=None, steps=10))]
 #[allow(clippy::too_many_arguments)]
 pub fn boil(
     py: Python<'_>,
@@ -48,6 +54,9 @@ pub fn boil(
     reference_table: Option<String>,
     fit: Option<String>,
     smiles: Option<String>,
+    pressure_range: Option<String>,
+    temperature_range: Option<String>,
+    steps: usize,
 ) -> PyResult<String> {
     let pressures = pressure
         .iter()
@@ -65,6 +74,21 @@ pub fn boil(
                 .map_err(|e| plain(py, format!("temperature: {e}")))
         })
         .collect::<PyResult<Vec<f64>>>()?;
+    let (mut pressures, mut temps) = (pressures, temps);
+    if let Some(r) = &pressure_range {
+        let (lo, hi) = split_range(py, r, "pressure_range", "\"1 mbar..1 atm\"")?;
+        let lo = parse_pressure(&lo).map_err(|e| plain(py, format!("pressure_range: {e}")))?;
+        let hi = parse_pressure(&hi).map_err(|e| plain(py, format!("pressure_range: {e}")))?;
+        pressures.extend(boiling::log_spaced(lo.pa(), hi.pa(), steps.max(2)));
+    }
+    if let Some(r) = &temperature_range {
+        let (lo, hi) = split_range(py, r, "temperature_range", "\"20 degC..110 degC\"")?;
+        let lo =
+            parse_temperature(&lo).map_err(|e| plain(py, format!("temperature_range: {e}")))?;
+        let hi =
+            parse_temperature(&hi).map_err(|e| plain(py, format!("temperature_range: {e}")))?;
+        temps.extend(boiling::lin_spaced(lo.kelvin(), hi.kelvin(), steps.max(2)));
+    }
     if pressures.is_empty() == temps.is_empty() {
         return Err(plain(
             py,

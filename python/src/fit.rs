@@ -1,8 +1,8 @@
 //! `fit`: measured (T, p) data in (a DataFrame as CSV text, or a file), the CLI's fit rows out.
 
 use crate::errors::{plain, read_error};
-use ebullio::fit::{fit_set, At, FitOptions, FitReport, ModelSelection, RobustLoss};
-use ebullio::table_io::{read_measured, read_measured_bytes, ReadOptions};
+use ebullio::fit::{At, FitOptions, FitReport, ModelSelection, RobustLoss};
+use ebullio::table_io::{fit_set, read_measured, read_measured_bytes, ReadOptions};
 use ebullio::units::{
     parse_pressure, parse_quantity, parse_temperature, PressureUnit, Quantity, TemperatureUnit,
 };

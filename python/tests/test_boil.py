@@ -22,6 +22,15 @@ def test_boil_vapor_pressure_from_smiles_equals_cli():
     assert b.mode == "vapor-pressure"
 
 
+def test_boil_ranges_equal_cli():
+    b = ebullio.boil(smiles="CCOC(C)=O", pressure_range="0.1 mmHg..1 atm", steps=7)
+    assert b.to_dict() == cli_json("boil", "--smiles", "CCOC(C)=O", "--pressure-range", "0.1 mmHg..1 atm",
+                                   "--steps", "7")
+    b = ebullio.boil("toluene", temperature_range="20 degC..110 degC", steps=5)
+    assert b.to_dict() == cli_json("boil", "--compound", "toluene", "--temperature-range", "20 degC..110 degC",
+                                   "--steps", "5")
+
+
 def test_boil_antoine_equals_cli():
     # Toluene, log10 mmHg degC constants as written in supplier-properties.csv (invented demo row).
     b = ebullio.boil(antoine=(6.92569, 1327.62, 217.625), constants="log10,mmHg,degC",
