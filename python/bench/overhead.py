@@ -83,7 +83,9 @@ def main():
     t_frame, got = timed(lambda: ebullio.estimate_frame(df))
     t_write, _ = timed(lambda: got.write_csv(out / "python.csv"))
     res.update(read_s=t_read, frame_s=t_frame, write_s=t_write, python_s=t_read + t_frame + t_write,
-               python_cpu_s=time.process_time() - cpu0)
+               python_cpu_s=time.process_time() - cpu0,
+               python_peak_mib=resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024,
+               input_mib=df.estimated_size() / 2**20, output_mib=got.estimated_size() / 2**20)
 
     # Same numbers as the CLI's CSV (which rounds: compare at its digits).
     cli = pl.read_csv(out / "cli.csv", infer_schema=False)
@@ -138,6 +140,8 @@ def main():
           f"{res['frame_call_us']:.0f} µs; CLI process `estimate --smiles CCO` {res['cli_call_ms']:.1f} ms")
     print(f"CPU: CLI {res['cli_cpu_s']:.1f} s, Python {res['python_cpu_s']:.1f} s; threads {res['threads']}; "
           f"load {res['load_1min_before']:.1f} -> {res['load_1min_after']:.1f}")
+    print(f"memory: peak RSS of the Python process {res['python_peak_mib']:.0f} MiB; input frame "
+          f"{res['input_mib']:.0f} MiB, output frame {res['output_mib']:.0f} MiB")
     print(f"equal: Tb vs CLI CSV {res['tb_k_equal_to_cli_csv']}; Dask vs single process {res.get('dask_equal')}")
 
 

@@ -26,11 +26,11 @@ import polars as pl
 from . import _ebullio
 from ._ebullio import InputError
 from ._frames import InputError_from, back, string_series, to_polars
-from ._results import BoilResult, CheckResult, Estimates, Fit, FitResult
+from ._results import BoilResult, CheckResult, Estimates, Fit, FitResult, VleResult
 
 __all__ = [
-    "fit", "estimate", "estimate_frame", "check", "boil", "InputError",
-    "Fit", "FitResult", "Estimates", "CheckResult", "BoilResult", "__version__",
+    "fit", "estimate", "estimate_frame", "check", "boil", "vle", "InputError",
+    "Fit", "FitResult", "Estimates", "CheckResult", "BoilResult", "VleResult", "__version__",
 ]
 __version__: str = _ebullio.version()
 
@@ -263,6 +263,35 @@ def boil(
         fit_json, smiles, pressure_range, temperature_range, int(steps),
     )
     return BoilResult(json.loads(report))
+
+
+def vle(
+    *compounds: str,
+    smiles: Union[str, Iterable[str]] = (),
+    pressure: Optional[str] = None,
+    temperature: Optional[str] = None,
+    model: Optional[str] = None,
+    wilson: Optional[Sequence[float]] = None,
+    nrtl: Optional[Tuple[float, float, float]] = None,
+    points: int = 101,
+) -> VleResult:
+    """Vapor-liquid equilibrium of a binary, as ``ebullio vle``: the T-x-y diagram at a
+    pressure (default 1 atm) or p-x-y at a ``temperature``, every azeotrope, and whether the
+    liquid splits. Components are bundled reference ``compounds`` (names, synonyms, CAS) then
+    ``smiles`` ("SMILES name"), two in all. ``model`` is ``unifac`` (default when both
+    structures are known), ``wilson`` (``wilson=(a12, a21[, v1, v2])``, K), ``nrtl``
+    (``nrtl=(b12, b21, alpha)``, K) or ``ideal``. Predicted azeotropes must be confirmed with
+    measured mixture data.
+
+    >>> import ebullio
+    >>> v = ebullio.vle("ethanol", "water", pressure="1 atm")
+    >>> v.to_polars().height, v.activity_model
+    (101, 'unifac')
+    """
+    report = _ebullio.vle(list(compounds), _strings(smiles), pressure, temperature, model,
+                          None if wilson is None else [float(x) for x in wilson],
+                          None if nrtl is None else tuple(float(x) for x in nrtl), int(points))
+    return VleResult(json.loads(report))
 
 
 def threads() -> int:

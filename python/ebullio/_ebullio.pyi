@@ -76,5 +76,15 @@ def boil(
     temperature_range: Optional[str] = None,
     steps: int = 10,
 ) -> str: ...
+def vle(
+    compound: Sequence[str],
+    smiles: Sequence[str],
+    pressure: Optional[str] = None,
+    temperature: Optional[str] = None,
+    model: Optional[str] = None,
+    wilson: Optional[Sequence[float]] = None,
+    nrtl: Optional[Tuple[float, float, float]] = None,
+    points: int = 101,
+) -> str: ...
 def version() -> str: ...
 def threads() -> int: ...

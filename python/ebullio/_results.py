@@ -269,3 +269,42 @@ class BoilResult:
 
     def __repr__(self) -> str:
         return f"BoilResult({self.mode}, {len(self._report['results'])} point(s); source: {self.source})"
+
+
+class VleResult:
+    """A binary's vapor-liquid equilibrium: diagram, azeotropes, liquid split, flags."""
+
+    def __init__(self, study: Dict[str, Any]):
+        self._study = study
+
+    @property
+    def activity_model(self) -> str:
+        return self._study["activity_model"]
+
+    @property
+    def azeotropes(self) -> List[Dict[str, Any]]:
+        return copy.deepcopy(self._study.get("azeotropes", []))
+
+    @property
+    def flags(self) -> List[Dict[str, Any]]:
+        return copy.deepcopy(self._study.get("flags", []))
+
+    def to_dict(self) -> Dict[str, Any]:
+        """The CLI's ``--format json`` study (without ``at_x1``)."""
+        return copy.deepcopy(self._study)
+
+    def to_polars(self) -> pl.DataFrame:
+        """The diagram: one row per liquid composition x1 (bubble point, vapor y1, activity coefficients)."""
+        return pl.DataFrame(self._study["diagram"])
+
+    def _repr_html_(self) -> str:
+        names = " / ".join(html.escape(c["name"]) for c in self._study["components"])
+        az = "".join(f"<li>{html.escape(json.dumps(a))}</li>" for a in self.azeotropes) or "<li>none found</li>"
+        fl = "".join(f"<li>[{html.escape(f['severity'])}] {html.escape(f['code'])}: {html.escape(f['message'])}</li>"
+                     for f in self.flags)
+        return (f"<p><b>VLE {names}</b> ({html.escape(self.activity_model)})</p><p>Azeotropes:</p><ul>{az}</ul>"
+                f"<ul>{fl}</ul>" + self.to_polars()._repr_html_())
+
+    def __repr__(self) -> str:
+        names = " / ".join(c["name"] for c in self._study["components"])
+        return f"VleResult({names}, {self.activity_model}, {len(self.azeotropes)} azeotrope(s))"

@@ -10,6 +10,7 @@ mod check;
 mod errors;
 mod estimate;
 mod fit;
+mod vle;
 
 use pyo3::prelude::*;
 
@@ -36,6 +37,7 @@ fn _ebullio(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(fit::fit, m)?)?;
     m.add_function(wrap_pyfunction!(check::check, m)?)?;
     m.add_function(wrap_pyfunction!(boil::boil, m)?)?;
+    m.add_function(wrap_pyfunction!(vle::vle, m)?)?;
     m.add_function(wrap_pyfunction!(version, m)?)?;
     m.add_function(wrap_pyfunction!(threads, m)?)?;
     Ok(())
