@@ -17,7 +17,7 @@ use std::path::Path;
 pub const LINE0: usize = 2;
 
 /// A checked table, kept for the summary and the report.
-#[pyclass(module = "ebullio._ebullio", unsendable)]
+#[pyclass(module = "ebullio._ebullio", frozen)]
 pub struct CheckRun {
     table: PropertyTable,
     report: ScreenReport,
