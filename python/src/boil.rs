@@ -180,7 +180,7 @@ pub fn boil(
             );
         }
         notes.push(format!(
-            "Interval from an assumed {:.1} % standard uncertainty in p of the reference.",
+            "Interval from a {:.2} % standard uncertainty in p of the reference.",
             100.0 * rc.u_p_rel
         ));
         (
@@ -188,8 +188,38 @@ pub fn boil(
             format!("reference {}: {}", c.name, rc.source),
             1.96,
         )
+    } else if let Some((c, rc)) = smiles
+        .as_deref()
+        .and_then(|s| Library::bundled().reference_for_smiles(s))
+    {
+        // Reference first: a structure that is a reference compound uses its reference curve.
+        let s = smiles.as_deref().unwrap_or_default();
+        notes.push(format!(
+            "The structure {s} is the reference compound {}: its reference curve is used, not a structure estimate.",
+            c.name
+        ));
+        if !rc.note.is_empty() {
+            notes.push(format!("Reference note: {}", rc.note));
+        }
+        notes.push(format!(
+            "Interval from a {:.2} % standard uncertainty in p of the reference.",
+            100.0 * rc.u_p_rel
+        ));
+        (
+            Box::new(rc.clone()),
+            format!(
+                "reference {} (matched by structure {s}): {}",
+                c.name, rc.source
+            ),
+            1.96,
+        )
     } else {
         let s = smiles.as_deref().unwrap_or_default();
+        if let Err(e @ ebullio::reference::LookupError::Stereo { .. }) =
+            Library::bundled().find_smiles(s)
+        {
+            notes.push(format!("Not matched to a reference compound: {e}."));
+        }
         let e = ebullio::estimate::estimate_smiles(s)
             .map_err(|e| plain(py, format!("smiles '{s}': {e}")))?;
         let c = e.curve().ok_or_else(|| {
