@@ -229,8 +229,11 @@ pub fn boil(
             )
         })?;
         notes.push(format!(
-            "Structure estimate (Joback Tb {:.1} K, recommended {:.1} K, 90 % interval {:.1}-{:.1} K; Lee-Kesler curve): not a measurement.",
-            e.tb_joback_k, e.tb_k, e.tb_pi90_low_k, e.tb_pi90_high_k
+            "Structure estimate (Tb {:.1} K, {}, 90 % interval {:.1}-{:.1} K; Lee-Kesler curve): not a measurement.",
+            e.tb_k,
+            e.tb_variant.name(),
+            e.tb_pi90_low_k,
+            e.tb_pi90_high_k
         ));
         (Box::new(c), format!("structure estimate for {s}"), 1.96)
     };

@@ -134,6 +134,8 @@ pub fn fit(
         t_unit,
         p_unit,
         decimal_comma: false,
+        // Gauge pressures need the CLI's --barometric; a DataFrame's pressures are absolute.
+        barometric_pa: None,
     };
     let frame = csv.is_some();
     let data = match (&csv, &path) {
