@@ -8,6 +8,9 @@
 
 use crate::vapor::Curve;
 
+mod request;
+pub use request::{excluded_note, BoilReport, BoilRequest};
+
 /// One result row (SI).
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
 pub struct BoilResult {

@@ -60,6 +60,8 @@ def fit(
     p_unit: Optional[str] = None,
     ref_p_tolerance_pct: float = 2.0,
     ref_tb_tolerance_k: float = 0.5,
+    exclude: Union[str, int, Iterable[Union[str, int]]] = (),
+    barometric: Optional[str] = None,
 ) -> FitResult:
     """Fit a vapor-pressure equation to measured (T, p) points, one fit per compound.
 
@@ -69,7 +71,10 @@ def fit(
     and an optional ``compound`` column. ``model`` is ``antoine`` (the CLI's default),
     ``clapeyron``, ``riedel``, ``wagner`` (with ``tc`` and ``pc``) or ``auto`` (lowest AICc).
     ``at`` adds predictions: a pressure ("20 mbar") gives a boiling point, a temperature
-    ("85 degC") a vapor pressure. The other options are the CLI's flags.
+    ("85 degC") a vapor pressure. ``exclude`` leaves points out, as ``--exclude`` does: by
+    number in the points table (``4``), by temperature (``"80 degC"``) or, for a file, by
+    line (``"line:5"``); the result records what was left out. ``barometric`` ("1013 mbar")
+    makes gauge pressures (``p/barg``) absolute. The other options are the CLI's flags.
 
     >>> import polars as pl, ebullio
     >>> df = pl.DataFrame({"t/degC": [40.0, 60.0, 80.0, 100.0, 120.0],
@@ -94,6 +99,7 @@ def fit(
     run = _ebullio.fit(
         csv, path, model, _strings(at), robust, constants, tc, pc, compound, smiles,
         t_unit, p_unit, float(ref_p_tolerance_pct), float(ref_tb_tolerance_k),
+        _strings([exclude] if isinstance(exclude, int) else exclude), barometric,
     )
     return FitResult(run)
 
@@ -290,7 +296,7 @@ def vle(
     """
     report = _ebullio.vle(list(compounds), _strings(smiles), pressure, temperature, model,
                           None if wilson is None else [float(x) for x in wilson],
-                          None if nrtl is None else tuple(float(x) for x in nrtl), int(points))
+                          None if nrtl is None else [float(x) for x in nrtl], int(points))
     return VleResult(json.loads(report))
 
 

@@ -53,6 +53,8 @@ def fit(
     p_unit: Optional[str],
     ref_p_tolerance_pct: float,
     ref_tb_tolerance_k: float,
+    exclude: Sequence[str],
+    barometric: Optional[str],
 ) -> FitRun: ...
 def check(
     columns: Sequence[Tuple[str, Any]],
@@ -83,7 +85,7 @@ def vle(
     temperature: Optional[str] = None,
     model: Optional[str] = None,
     wilson: Optional[Sequence[float]] = None,
-    nrtl: Optional[Tuple[float, float, float]] = None,
+    nrtl: Optional[Sequence[float]] = None,
     points: int = 101,
 ) -> str: ...
 def version() -> str: ...

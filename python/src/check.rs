@@ -27,7 +27,7 @@ pub struct CheckRun {
 impl CheckRun {
     /// The summary the CLI prints, as JSON (rows, counts per code, the `worst` rows).
     fn summary_json(&self, worst: usize) -> PyResult<String> {
-        serde_json::to_string(&self.report.summary(&self.table, worst))
+        ebullio::table_io::json_text(&self.report.summary(&self.table, worst))
             .map_err(|e| pyo3::exceptions::PyValueError::new_err(e.to_string()))
     }
 

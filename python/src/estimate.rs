@@ -23,7 +23,7 @@ pub struct EstimateRun {
 impl EstimateRun {
     /// The rows as the CLI's `--format json` writes them (always a list).
     fn json(&self) -> PyResult<String> {
-        serde_json::to_string(&self.rows)
+        ebullio::table_io::json_text(&self.rows)
             .map_err(|e| pyo3::exceptions::PyValueError::new_err(e.to_string()))
     }
 
@@ -60,11 +60,12 @@ pub fn parse_pressures(py: Python<'_>, at: &[String], what: &str) -> PyResult<Ve
         .collect()
 }
 
+/// A finite value to 12 significant digits, as the CLI's JSON writes it (no noise, no NaN).
 fn finite(v: Option<f64>) -> Option<f64> {
-    v.filter(|x| x.is_finite())
+    v.filter(|x| x.is_finite()).map(ebullio::units::tidy)
 }
 
-/// Column builders: the CLI's estimate CSV columns at full precision, nulls where it writes "".
+/// Column builders: the CLI's estimate CSV columns at the JSON's precision, nulls where it writes "".
 struct Columns {
     text: Vec<(&'static str, Vec<Option<String>>)>,
     num: Vec<(String, Vec<Option<f64>>)>,

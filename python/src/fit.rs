@@ -1,33 +1,25 @@
 //! `fit`: measured (T, p) data in (a DataFrame as CSV text, or a file), the CLI's fit rows out.
+//!
+//! Options, the batch and the report are the library's ([`ebullio::fit::FitRequest`],
+//! [`ebullio::table_io::fit_batch`], [`ebullio::report::fit_section::batch_report`]), the
+//! same calls `ebullio fit` makes.
 
 use crate::errors::{plain, read_error};
-use ebullio::fit::{At, FitOptions, FitReport, ModelSelection, RobustLoss};
-use ebullio::table_io::{fit_set, read_measured, read_measured_bytes, ReadOptions};
-use ebullio::units::{
-    parse_pressure, parse_quantity, parse_temperature, PressureUnit, Quantity, TemperatureUnit,
+use ebullio::fit::{At, FitRequest};
+use ebullio::table_io::{
+    fit_batch, json_text, none_fitted, read_measured, read_measured_bytes, FitCheckOptions, FitRow,
+    ReadOptions,
 };
-use ebullio::vapor::AntoineConvention;
+use ebullio::units::{parse_pressure, PressureUnit, TemperatureUnit};
 use pyo3::prelude::*;
-use rayon::prelude::*;
 use std::path::Path;
-
-/// One row of a batch, serialised exactly as `ebullio fit --format json` does.
-#[derive(serde::Serialize)]
-#[serde(untagged)]
-enum Row {
-    Ok(Box<FitReport>),
-    Failed {
-        compound: Option<String>,
-        error: String,
-    },
-}
 
 /// The fits of one call, kept for the JSON and the report.
 #[pyclass(module = "ebullio._ebullio", frozen)]
 pub struct FitRun {
     source: String,
-    rows: Vec<Row>,
-    pressures: Vec<f64>,
+    rows: Vec<FitRow>,
+    at: Vec<At>,
     warnings: Vec<(Option<u64>, String, String)>,
 }
 
@@ -35,8 +27,7 @@ pub struct FitRun {
 impl FitRun {
     /// The rows as the CLI's `--format json` writes them (always a list).
     fn json(&self) -> PyResult<String> {
-        serde_json::to_string(&self.rows)
-            .map_err(|e| pyo3::exceptions::PyValueError::new_err(e.to_string()))
+        json_text(&self.rows).map_err(|e| pyo3::exceptions::PyValueError::new_err(e.to_string()))
     }
 
     /// Non-fatal remarks on the input: (row or line, code, message).
@@ -46,37 +37,15 @@ impl FitRun {
 
     /// The `--report` HTML document of these fits.
     fn html(&self, command_line: &str) -> String {
-        let fits: Vec<FitReport> = self
-            .rows
-            .iter()
-            .filter_map(|r| match r {
-                Row::Ok(rep) => Some((**rep).clone()),
-                _ => None,
-            })
-            .collect();
-        let failed: Vec<(Option<String>, String)> = self
-            .rows
-            .iter()
-            .filter_map(|r| match r {
-                Row::Failed { compound, error } => Some((compound.clone(), error.clone())),
-                _ => None,
-            })
-            .collect();
-        ebullio::report::fit_section::fit_report(
-            &self.source,
-            &fits,
-            &failed,
-            &self.pressures,
-            command_line,
-        )
-        .render()
+        ebullio::report::fit_section::batch_report(&self.source, &self.rows, &self.at, command_line)
+            .render()
     }
 }
 
 /// Fit every compound of the data. `csv` is a DataFrame written as CSV (errors then name its
 /// rows); otherwise `path` is read as the CLI reads it. Options mean what the CLI's flags mean.
 #[pyfunction]
-#[pyo3(signature = (csv, path, model, at, robust, constants, tc, pc, compound, smiles, t_unit, p_unit, ref_p_tolerance_pct, ref_tb_tolerance_k))]
+#[pyo3(signature = (csv, path, model, at, robust, constants, tc, pc, compound, smiles, t_unit, p_unit, ref_p_tolerance_pct, ref_tb_tolerance_k, exclude, barometric))]
 #[allow(clippy::too_many_arguments)]
 pub fn fit(
     py: Python<'_>,
@@ -94,6 +63,8 @@ pub fn fit(
     p_unit: Option<String>,
     ref_p_tolerance_pct: f64,
     ref_tb_tolerance_k: f64,
+    exclude: Vec<String>,
+    barometric: Option<String>,
 ) -> PyResult<FitRun> {
     let t_unit = t_unit
         .as_deref()
@@ -105,37 +76,31 @@ pub fn fit(
         .map(PressureUnit::parse)
         .transpose()
         .map_err(|e| plain(py, format!("p_unit: {e}")))?;
-    let model: ModelSelection = model
-        .parse()
-        .map_err(|e| plain(py, format!("model: {e}")))?;
-    let convention: AntoineConvention = constants
-        .parse()
-        .map_err(|e| plain(py, format!("constants: {e}")))?;
-    let critical = match (&tc, &pc) {
-        (Some(tc), Some(pc)) => {
-            let t = parse_temperature(tc).map_err(|e| plain(py, format!("tc '{tc}': {e}")))?;
-            let p = parse_pressure(pc).map_err(|e| plain(py, format!("pc '{pc}': {e}")))?;
-            Some((t.kelvin(), p.pa()))
-        }
-        (None, None) => None,
-        _ => return Err(plain(py, "tc and pc must be given together")),
-    };
-    if model == ModelSelection::Wagner && critical.is_none() {
-        return Err(plain(py, "model 'wagner' needs tc and pc"));
+    let barometric_pa = barometric
+        .as_deref()
+        .map(|b| {
+            parse_pressure(b)
+                .map(|p| p.pa())
+                .map_err(|e| plain(py, format!("barometric '{b}': {e}")))
+        })
+        .transpose()?;
+    let opts = FitRequest {
+        model,
+        constants,
+        tc: tc.as_deref(),
+        pc: pc.as_deref(),
+        robust,
+        at: &at,
+        exclude: &exclude,
+        barometric_pa,
     }
-    let mut at_q = Vec::new();
-    for s in &at {
-        match parse_quantity(s).map_err(|e| plain(py, format!("at '{s}': {e}")))? {
-            Quantity::Pressure(p) => at_q.push(At::PressurePa(p.pa())),
-            Quantity::Temperature(t) => at_q.push(At::TemperatureK(t.kelvin())),
-        }
-    }
+    .resolve(&|n| n.to_string())
+    .map_err(|e| plain(py, e))?;
     let read = ReadOptions {
         t_unit,
         p_unit,
         decimal_comma: false,
-        // Gauge pressures need the CLI's --barometric; a DataFrame's pressures are absolute.
-        barometric_pa: None,
+        barometric_pa,
     };
     let frame = csv.is_some();
     let data = match (&csv, &path) {
@@ -152,70 +117,17 @@ pub fn fit(
     if data.sets.is_empty() {
         return Err(plain(py, format!("{source}: no data rows")));
     }
-    let opts = FitOptions {
-        model,
-        critical,
-        robust: robust.then_some(RobustLoss::Tukey),
-        convention,
-        at: at_q.clone(),
-        refit_without_outliers: true,
+    let check = FitCheckOptions {
+        compound,
+        smiles,
+        tolerances: ebullio::reference::compare::Tolerances {
+            p_rel: ref_p_tolerance_pct / 100.0,
+            tb_k: ref_tb_tolerance_k,
+        },
     };
-    let tol = ebullio::reference::compare::Tolerances {
-        p_rel: ref_p_tolerance_pct / 100.0,
-        tb_k: ref_tb_tolerance_k,
-    };
-    let rows: Vec<Row> = py.detach(|| {
-        let lib = ebullio::reference::Library::bundled();
-        data.sets
-            .par_iter()
-            .map(|s| match fit_set(s, &opts) {
-                Ok(mut rep) => {
-                    let smiles = smiles.as_deref().or(s.smiles.as_deref());
-                    ebullio::reference::fit_check::check_fit(
-                        &mut rep,
-                        lib,
-                        compound.as_deref(),
-                        smiles,
-                        tol,
-                    );
-                    Row::Ok(Box::new(rep))
-                }
-                Err(e) => Row::Failed {
-                    compound: s.compound.clone(),
-                    error: e.to_string(),
-                },
-            })
-            .collect()
-    });
-    if rows.iter().all(|r| matches!(r, Row::Failed { .. })) {
-        let why = rows
-            .iter()
-            .find_map(|r| match r {
-                Row::Failed { error, .. } => Some(error.clone()),
-                _ => None,
-            })
-            .unwrap_or_else(|| "no fit".into());
-        return Err(plain(
-            py,
-            if rows.len() > 1 {
-                format!(
-                    "{source}: none of the {} compounds could be fitted; the first: {why}",
-                    rows.len()
-                )
-            } else {
-                format!("{source}: {why}")
-            },
-        ));
-    }
-    let mut pressures: Vec<f64> = at_q
-        .iter()
-        .filter_map(|a| match a {
-            At::PressurePa(p) => Some(*p),
-            At::TemperatureK(_) => None,
-        })
-        .collect();
-    if pressures.is_empty() {
-        pressures = ebullio::report::fit_section::DEFAULT_PRESSURES_PA.to_vec();
+    let rows = py.detach(|| fit_batch(&data, &opts, &check, &|| {}));
+    if let Some(why) = none_fitted(&source, &rows) {
+        return Err(plain(py, why));
     }
     let warnings = data
         .warnings
@@ -232,7 +144,7 @@ pub fn fit(
     Ok(FitRun {
         source,
         rows,
-        pressures,
+        at: opts.at,
         warnings,
     })
 }

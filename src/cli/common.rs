@@ -31,41 +31,7 @@ pub fn parse_pressure(s: &str) -> Result<ebullio::units::Pressure, super::hints:
     ebullio::units::parse_pressure_at(s, barometric()).map_err(super::hints::UnitHint)
 }
 
-/// Parse a temperature or a pressure given on the command line (gauge with `--barometric`).
-pub fn parse_quantity(s: &str) -> Result<ebullio::units::Quantity, super::hints::UnitHint> {
-    match ebullio::units::parse_quantity(s) {
-        Err(ebullio::units::UnitError::GaugePressure { .. }) if barometric().is_some() => {
-            parse_pressure(s).map(ebullio::units::Quantity::Pressure)
-        }
-        r => r.map_err(super::hints::UnitHint),
-    }
-}
-
-/// JSON text of `v` with every number kept to 12 significant digits
-/// ([`ebullio::units::tidy`]): arithmetic noise in the last places
-/// (0.9999999999999998, 353.20000000000005) never reaches the output, and every
-/// number printed is the shortest text that reads back to the same double.
-/// Non-finite numbers are written as `null` by serde_json, never as text.
-pub fn json_text<T: serde::Serialize + ?Sized>(v: &T) -> serde_json::Result<String> {
-    let mut v = serde_json::to_value(v)?;
-    tidy_value(&mut v);
-    serde_json::to_string_pretty(&v)
-}
-
-fn tidy_value(v: &mut serde_json::Value) {
-    match v {
-        serde_json::Value::Number(n) if n.is_f64() => {
-            if let Some(x) = n.as_f64() {
-                if let Some(t) = serde_json::Number::from_f64(ebullio::units::tidy(x)) {
-                    *n = t;
-                }
-            }
-        }
-        serde_json::Value::Array(a) => a.iter_mut().for_each(tidy_value),
-        serde_json::Value::Object(o) => o.values_mut().for_each(tidy_value),
-        _ => {}
-    }
-}
+pub use ebullio::table_io::json_text;
 
 /// What a command achieved, mapped to an exit code by [`exit_code`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

@@ -1,15 +1,14 @@
 //! `ebullio fit`: fit vapor-pressure equations to measured (T, p) data.
 
-use super::common::{parse_pressure, parse_quantity};
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use anyhow::Context;
-use ebullio::fit::{At, Exclude, FitError, FitOptions, FitReport, ModelSelection, RobustLoss};
-use ebullio::report::text::fit::{self as fit_text, FitRow};
-use ebullio::table_io::{fit_set, read_measured_bytes, ReadOptions};
-use ebullio::units::{parse_temperature, PressureUnit, Quantity, TemperatureUnit};
-use ebullio::vapor::AntoineConvention;
-use rayon::prelude::*;
+use ebullio::fit::FitOptions;
+use ebullio::report::text::fit as fit_text;
+use ebullio::table_io::{
+    fit_batch, none_fitted, read_measured_bytes, FitCheckOptions, FitRow, ReadOptions,
+};
+use ebullio::units::{PressureUnit, TemperatureUnit};
 use std::io::IsTerminal;
 use std::path::PathBuf;
 
@@ -118,29 +117,6 @@ struct Resolved {
     units: Option<(TemperatureUnit, PressureUnit)>,
 }
 
-/// `--exclude` text: "4" (point number), "line:5" / "line 5", or a temperature.
-fn parse_exclude(s: &str) -> Result<Exclude, InputError> {
-    let t = s.trim();
-    let lower = t.to_ascii_lowercase();
-    if let Some(rest) = lower.strip_prefix("line") {
-        let n = rest.trim_start_matches([':', ' ', '=']).trim();
-        return n
-            .parse::<u64>()
-            .map(Exclude::Line)
-            .map_err(|_| InputError(format!("--exclude '{s}': write a line as \"line:5\"")));
-    }
-    if let Ok(n) = t.parse::<usize>() {
-        return Ok(Exclude::Point(n));
-    }
-    parse_temperature(t)
-        .map(|q| Exclude::TemperatureK(q.kelvin()))
-        .map_err(|e| {
-            InputError(format!(
-                "--exclude '{s}': expected a point number (\"4\"), a line (\"line:5\") or a temperature (\"80 degC\"): {e}"
-            ))
-        })
-}
-
 /// `--units "degC,mbar"`.
 fn parse_units(s: &str) -> Result<(TemperatureUnit, PressureUnit), InputError> {
     let (t, p) = s.split_once(',').ok_or_else(|| {
@@ -166,57 +142,28 @@ fn resolve(a: &Args) -> Result<Resolved, InputError> {
         .map(PressureUnit::parse)
         .transpose()
         .map_err(|e| InputError(format!("--p-unit: {e}")))?;
-    let model: ModelSelection = a
-        .model
-        .as_deref()
-        .unwrap_or("antoine")
-        .parse()
-        .map_err(|e| InputError(format!("--model: {e}")))?;
-    let convention: AntoineConvention = a
-        .constants
-        .parse()
-        .map_err(|e| InputError(format!("--constants: {e}")))?;
-    let critical = match (&a.tc, &a.pc) {
-        (Some(tc), Some(pc)) => {
-            let tc = parse_temperature(tc).map_err(|e| InputError(format!("--tc '{tc}': {e}")))?;
-            let pc = parse_pressure(pc).map_err(|e| InputError(format!("--pc '{pc}': {e}")))?;
-            Some((tc.kelvin(), pc.pa()))
-        }
-        (None, None) => None,
-        _ => return Err(InputError("--tc and --pc must be given together".into())),
-    };
-    if model == ModelSelection::Wagner && critical.is_none() {
-        return Err(InputError("--model wagner needs --tc and --pc".into()));
+    let barometric_pa = super::common::barometric().map(|p| p.pa());
+    let fit = ebullio::fit::FitRequest {
+        model: a.model.as_deref().unwrap_or("antoine"),
+        constants: &a.constants,
+        tc: a.tc.as_deref(),
+        pc: a.pc.as_deref(),
+        robust: a.robust,
+        at: &a.at,
+        exclude: &a.exclude,
+        barometric_pa,
     }
-    let exclude = a
-        .exclude
-        .iter()
-        .map(|s| parse_exclude(s))
-        .collect::<Result<Vec<_>, _>>()?;
+    .resolve(&|n| format!("--{n}"))
+    .map_err(InputError)?;
     let units = a.units.as_deref().map(parse_units).transpose()?;
-    let mut at = Vec::new();
-    for s in &a.at {
-        match parse_quantity(s).map_err(|e| InputError(format!("--at '{s}': {e}")))? {
-            Quantity::Pressure(p) => at.push(At::PressurePa(p.pa())),
-            Quantity::Temperature(t) => at.push(At::TemperatureK(t.kelvin())),
-        }
-    }
     Ok(Resolved {
         read: ReadOptions {
             t_unit,
             p_unit,
             decimal_comma: a.decimal_comma,
-            barometric_pa: super::common::barometric().map(|p| p.pa()),
+            barometric_pa,
         },
-        fit: FitOptions {
-            model,
-            critical,
-            robust: a.robust.then_some(RobustLoss::Tukey),
-            convention,
-            at,
-            refit_without_outliers: true,
-            exclude,
-        },
+        fit,
         units,
     })
 }
@@ -260,69 +207,25 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let bar = (data.sets.len() >= 50 && std::io::stderr().is_terminal())
         .then(|| indicatif::ProgressBar::new(data.sets.len() as u64));
     super::common::batch_started(data.sets.len());
-    let results: Vec<Result<FitReport, FitError>> = data
-        .sets
-        .par_iter()
-        .map(|set| {
-            let r = fit_set(set, &r.fit);
-            if let Some(b) = &bar {
-                b.inc(1);
-            }
-            super::common::batch_step();
-            r
-        })
-        .collect();
+    let check = FitCheckOptions {
+        compound: args.compound.first().cloned(),
+        smiles: args.smiles.first().cloned(),
+        tolerances: ebullio::reference::compare::Tolerances {
+            p_rel: args.ref_p_tolerance_pct / 100.0,
+            tb_k: args.ref_tb_tolerance_k,
+        },
+    };
+    let rows = fit_batch(&data, &r.fit, &check, &super::hints::fit_error, &|| {
+        if let Some(b) = &bar {
+            b.inc(1);
+        }
+        super::common::batch_step();
+    });
     if let Some(b) = bar {
         b.finish_and_clear();
     }
-    let tol = ebullio::reference::compare::Tolerances {
-        p_rel: args.ref_p_tolerance_pct / 100.0,
-        tb_k: args.ref_tb_tolerance_k,
-    };
-    let lib = ebullio::reference::Library::bundled();
-    let rows: Vec<FitRow> = results
-        .into_iter()
-        .zip(&data.sets)
-        .map(|(r, s)| match r {
-            Ok(mut rep) => {
-                let smiles = args
-                    .smiles
-                    .first()
-                    .map(String::as_str)
-                    .or(s.smiles.as_deref());
-                let chk = ebullio::reference::fit_check::check_fit(
-                    &mut rep,
-                    lib,
-                    args.compound.first().map(String::as_str),
-                    smiles,
-                    tol,
-                );
-                if let Some(units) = data.units {
-                    let pts: Vec<ebullio::fit::Point> = s
-                        .points
-                        .iter()
-                        .map(|p| ebullio::fit::Point {
-                            t_k: p.t_k,
-                            p_pa: p.p_pa,
-                            u_t_k: p.u_t_k,
-                            u_p_pa: p.u_p_pa,
-                        })
-                        .collect();
-                    ebullio::reference::fit_check::check_labels(&mut rep, &chk, &pts, units);
-                }
-                FitRow::Ok(Box::new(rep))
-            }
-            Err(e) => FitRow::Failed {
-                compound: s.compound.clone(),
-                error: super::hints::fit_error(&e),
-            },
-        })
-        .collect();
     if let Some(path) = &args.plot {
-        let first = rows.iter().find_map(|r| match r {
-            FitRow::Ok(rep) => Some(rep),
-            _ => None,
-        });
+        let first = rows.iter().find_map(FitRow::report);
         if let Some(rep) = first {
             let svg = ebullio::report::fit_plot::svg(rep);
             ebullio::table_io::write_atomic(path, svg.as_bytes(), &[args.data.as_path()])
@@ -330,25 +233,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         }
     }
     // Nothing could be fitted: an error (exit 2) and no output file, as for bad input.
-    if rows.iter().all(|r| matches!(r, FitRow::Failed { .. })) {
-        let why = rows
-            .iter()
-            .filter_map(|r| match r {
-                FitRow::Failed { error, .. } => Some(error.as_str()),
-                _ => None,
-            })
-            .next()
-            .unwrap_or("no fit");
-        return Err(InputError(if rows.len() > 1 {
-            format!(
-                "{}: none of the {} compounds could be fitted; the first: {why}",
-                data.source,
-                rows.len()
-            )
-        } else {
-            format!("{}: {why}", data.source)
-        })
-        .into());
+    if let Some(why) = none_fitted(&data.source, &rows) {
+        return Err(InputError(why).into());
     }
     let text = match args.out.format() {
         Format::Json if rows.len() == 1 => super::common::json_text(&rows[0])? + "\n",
@@ -367,37 +253,10 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     args.out.emit(&text, &[args.data.as_path()])?;
     if let Some(path) = &args.report {
-        let fits: Vec<FitReport> = rows
-            .iter()
-            .filter_map(|r| match r {
-                FitRow::Ok(rep) => Some((**rep).clone()),
-                _ => None,
-            })
-            .collect();
-        let failed: Vec<(Option<String>, String)> = rows
-            .iter()
-            .filter_map(|r| match r {
-                FitRow::Failed { compound, error } => Some((compound.clone(), error.clone())),
-                _ => None,
-            })
-            .collect();
-        let mut pressures: Vec<f64> = r
-            .fit
-            .at
-            .iter()
-            .filter_map(|a| match a {
-                At::PressurePa(p) => Some(*p),
-                At::TemperatureK(_) => None,
-            })
-            .collect();
-        if pressures.is_empty() {
-            pressures = ebullio::report::fit_section::DEFAULT_PRESSURES_PA.to_vec();
-        }
-        let html = ebullio::report::fit_section::fit_report(
-            &data.source.to_string(),
-            &fits,
-            &failed,
-            &pressures,
+        let html = ebullio::report::fit_section::batch_report(
+            &data.source,
+            &rows,
+            &r.fit.at,
             &super::common::command_line(),
         )
         .render();

@@ -12,15 +12,7 @@ pub struct UnitHint(pub UnitError);
 
 impl std::fmt::Display for UnitHint {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        match &self.0 {
-            e @ UnitError::GaugePressure { .. } => {
-                write!(
-                    f,
-                    "{e} (give it with --barometric, e.g. --barometric \"1013 mbar\")"
-                )
-            }
-            e => write!(f, "{e}"),
-        }
+        f.write_str(&self.0.hint("--barometric"))
     }
 }
 

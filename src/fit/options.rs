@@ -69,6 +69,41 @@ impl std::fmt::Display for Exclude {
     }
 }
 
+impl std::str::FromStr for Exclude {
+    type Err = String;
+    /// "4" (point number), "line:5" / "line 5" (line in the file), or a temperature
+    /// with its unit ("80 degC").
+    ///
+    /// ```
+    /// use ebullio::fit::Exclude;
+    /// assert_eq!("4".parse::<Exclude>(), Ok(Exclude::Point(4)));
+    /// assert_eq!("line:5".parse::<Exclude>(), Ok(Exclude::Line(5)));
+    /// let Ok(Exclude::TemperatureK(t)) = "80 degC".parse::<Exclude>() else { panic!() };
+    /// assert!((t - 353.15).abs() < 1e-9);
+    /// assert!("line x".parse::<Exclude>().is_err());
+    /// ```
+    fn from_str(s: &str) -> Result<Self, String> {
+        let t = s.trim();
+        if let Some(rest) = t.to_ascii_lowercase().strip_prefix("line") {
+            let n = rest.trim_start_matches([':', ' ', '=']).trim();
+            return n
+                .parse::<u64>()
+                .map(Exclude::Line)
+                .map_err(|_| "write a line as \"line:5\"".to_string());
+        }
+        if let Ok(n) = t.parse::<usize>() {
+            return Ok(Exclude::Point(n));
+        }
+        crate::units::parse_temperature(t)
+            .map(|q| Exclude::TemperatureK(q.kelvin()))
+            .map_err(|e| {
+                format!(
+                    "expected a point number (\"4\"), a line (\"line:5\") or a temperature (\"80 degC\"): {e}"
+                )
+            })
+    }
+}
+
 /// Options for one fit.
 #[derive(Debug, Clone, PartialEq)]
 pub struct FitOptions {

@@ -37,6 +37,7 @@ pub mod fit;
 mod legendre;
 mod margules;
 mod nrtl;
+mod request;
 mod stability;
 mod study;
 mod unifac;
@@ -53,6 +54,7 @@ pub use error::MixtureError;
 pub use legendre::{Legendre, MAX_LEGENDRE_TERMS};
 pub use margules::Margules;
 pub use nrtl::Nrtl;
+pub use request::{Component, VleRequest, VleSetup};
 pub use stability::{is_unstable, liquid_split_at, polish_split, stability_slope, ThreePhase};
 pub use study::{
     vle_study, AzeotropeOut, ComponentOut, DiagramRow, Finding, LiquidSplit, MixtureCode, ShiftRow,

@@ -21,6 +21,7 @@
 pub mod cas;
 pub mod compare;
 mod curve;
+pub mod curve_source;
 pub mod equation;
 pub mod fit_check;
 pub mod table;

@@ -5,13 +5,45 @@
 
 use super::html::{Figure, FindingRow, Report, Section, Severity, Table};
 use crate::boiling::boiling_points;
-use crate::fit::{FitReport, FittedCurve};
+use crate::fit::{At, FitReport, FittedCurve};
+use crate::table_io::FitRow;
 
 /// Pressures (Pa) a fit report shows boiling points at when none were chosen:
 /// 10, 20, 50, 100, 200 and 500 mbar and 1 atm (common vacuum set-points).
 pub const DEFAULT_PRESSURES_PA: [f64; 7] = [
     1_000.0, 2_000.0, 5_000.0, 10_000.0, 20_000.0, 50_000.0, 101_325.0,
 ];
+
+/// The pressures (Pa) a fit report tabulates boiling points at: the requested `at`
+/// pressures, else [`DEFAULT_PRESSURES_PA`].
+pub fn report_pressures(at: &[At]) -> Vec<f64> {
+    let p: Vec<f64> = at
+        .iter()
+        .filter_map(|a| match a {
+            At::PressurePa(p) => Some(*p),
+            At::TemperatureK(_) => None,
+        })
+        .collect();
+    if p.is_empty() {
+        DEFAULT_PRESSURES_PA.to_vec()
+    } else {
+        p
+    }
+}
+
+/// The report of a fit batch ([`crate::table_io::fit_batch`]): [`fit_report`] of its
+/// fitted and failed rows, at the `at` pressures (else the default set-points).
+pub fn batch_report(source: &str, rows: &[FitRow], at: &[At], command_line: &str) -> Report {
+    let fits: Vec<FitReport> = rows.iter().filter_map(|r| r.report().cloned()).collect();
+    let failed: Vec<(Option<String>, String)> = rows
+        .iter()
+        .filter_map(|r| match r {
+            FitRow::Failed { compound, error } => Some((compound.clone(), error.clone())),
+            FitRow::Ok(_) => None,
+        })
+        .collect();
+    fit_report(source, &fits, &failed, &report_pressures(at), command_line)
+}
 
 fn name(f: &FitReport) -> String {
     f.compound.clone().unwrap_or_else(|| "data".into())

@@ -10,10 +10,12 @@ pub mod atomic;
 pub mod binary;
 pub mod error;
 pub mod estimates;
+pub mod fit_batch;
 pub mod fit_file;
 #[cfg(feature = "tables")]
 pub mod frame;
 pub mod headings;
+pub mod json;
 pub mod measured;
 #[cfg(feature = "tables")]
 pub mod parquet;
@@ -25,7 +27,9 @@ pub mod text_table;
 pub use atomic::{write_atomic, write_atomic_with, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::estimates_csv;
+pub use fit_batch::{fit_batch, none_fitted, FitCheckOptions, FitRow};
 pub use fit_file::{is_binary_fit, pick_fit, read_binary_fit, read_fit_reports};
+pub use json::json_text;
 pub use measured::{
     fit_set, read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet,
     ReadOptions, ReadWarning,

@@ -21,7 +21,8 @@ mod temperature;
 
 pub use pressure::{parse_pressure_scale, Pressure, PressureScale, PressureUnit};
 pub use quantity::{
-    parse_pressure, parse_pressure_at, parse_quantity, parse_temperature, Quantity,
+    parse_pressure, parse_pressure_at, parse_quantity, parse_quantity_at, parse_temperature,
+    Quantity,
 };
 pub use temperature::{Temperature, TemperatureUnit};
 
@@ -140,6 +141,24 @@ pub enum UnitError {
         /// The unit symbol as given.
         unit: String,
     },
+}
+
+impl UnitError {
+    /// The message as a front end gives it: a gauge pressure says which of the caller's
+    /// options supplies the barometric pressure (`--barometric` on the command line).
+    ///
+    /// ```
+    /// let e = ebullio::units::parse_pressure("0.5 barg").unwrap_err();
+    /// assert!(e.hint("--barometric").ends_with("(give it with --barometric, e.g. --barometric \"1013 mbar\")"));
+    /// ```
+    pub fn hint(&self, barometric_option: &str) -> String {
+        match self {
+            UnitError::GaugePressure { .. } => format!(
+                "{self} (give it with {barometric_option}, e.g. {barometric_option} \"1013 mbar\")"
+            ),
+            _ => self.to_string(),
+        }
+    }
 }
 
 #[cfg(test)]

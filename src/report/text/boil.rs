@@ -1,22 +1,8 @@
 //! The `boil` command's terminal table and CSV.
 
 use super::{cell, Csv};
-use crate::boiling::BoilResult;
 
-/// The `boil` result: where the curve came from, what was computed, notes and cautions.
-#[derive(serde::Serialize)]
-pub struct BoilReport {
-    /// The curve's source, in words.
-    pub source: String,
-    /// "boiling-point" or "vapor-pressure".
-    pub mode: &'static str,
-    /// One result per pressure or temperature.
-    pub results: Vec<BoilResult>,
-    /// What the reader should know about the numbers.
-    pub notes: Vec<String>,
-    /// Safety cautions (vacuum work).
-    pub cautions: Vec<String>,
-}
+pub use crate::boiling::BoilReport;
 
 /// The results as CSV. A value that could not be computed is an empty cell (the
 /// error column says why), never NaN text.
@@ -46,13 +32,7 @@ pub fn csv(rep: &BoilReport) -> Result<String, csv::Error> {
     w.finish()
 }
 
-/// "; point 5 (line 6) excluded by the user" for a fit made with `--exclude`.
-pub fn excluded_note(r: &crate::fit::FitReport) -> String {
-    if r.excluded.is_empty() {
-        return String::new();
-    }
-    format!("; {} excluded by the user", r.excluded_list())
-}
+pub use crate::boiling::excluded_note;
 
 /// The readable report.
 pub fn table(rep: &BoilReport) -> String {

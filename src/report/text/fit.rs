@@ -1,23 +1,10 @@
 //! The `fit` command's terminal table and CSV.
 
 use super::{cell, sig, t_symbol, Csv};
-use crate::fit::{FitReport, PredictionKind};
+use crate::fit::PredictionKind;
 use crate::units::{PressureUnit, TemperatureUnit};
 
-/// One row of a batch: a report or the reason there is none.
-#[derive(serde::Serialize)]
-#[serde(untagged)]
-pub enum FitRow {
-    /// A fit.
-    Ok(Box<FitReport>),
-    /// No fit, and why.
-    Failed {
-        /// The compound, when the data name one.
-        compound: Option<String>,
-        /// Why it could not be fitted.
-        error: String,
-    },
-}
+pub use crate::table_io::FitRow;
 
 /// The fits as CSV, one row per compound (a failed fit: its compound and error).
 pub fn csv(rows: &[FitRow]) -> Result<String, csv::Error> {
