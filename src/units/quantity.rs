@@ -176,6 +176,24 @@ pub fn parse_quantity(s: &str) -> Result<Quantity, UnitError> {
     })
 }
 
+/// [`parse_quantity`], with gauge pressures made absolute by `barometric` (refused without).
+///
+/// ```
+/// use ebullio::units::{parse_pressure, parse_quantity_at, Quantity};
+/// let site = parse_pressure("1000 mbar").unwrap();
+/// let Quantity::Pressure(p) = parse_quantity_at("-980 mbarg", Some(site)).unwrap() else { panic!() };
+/// assert!((p.pa() - 2_000.0).abs() < 1e-6);
+/// assert!(parse_quantity_at("-980 mbarg", None).is_err());
+/// ```
+pub fn parse_quantity_at(s: &str, barometric: Option<Pressure>) -> Result<Quantity, UnitError> {
+    match parse_quantity(s) {
+        Err(UnitError::GaugePressure { .. }) if barometric.is_some() => {
+            parse_pressure_at(s, barometric).map(Quantity::Pressure)
+        }
+        r => r,
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -352,23 +370,5 @@ mod tests {
             let _ = parse_pressure(&s);
             let _ = parse_temperature(&s);
         }
-    }
-}
-
-/// [`parse_quantity`], with gauge pressures made absolute by `barometric` (refused without).
-///
-/// ```
-/// use ebullio::units::{parse_pressure, parse_quantity_at, Quantity};
-/// let site = parse_pressure("1000 mbar").unwrap();
-/// let Quantity::Pressure(p) = parse_quantity_at("-980 mbarg", Some(site)).unwrap() else { panic!() };
-/// assert!((p.pa() - 2_000.0).abs() < 1e-6);
-/// assert!(parse_quantity_at("-980 mbarg", None).is_err());
-/// ```
-pub fn parse_quantity_at(s: &str, barometric: Option<Pressure>) -> Result<Quantity, UnitError> {
-    match parse_quantity(s) {
-        Err(UnitError::GaugePressure { .. }) if barometric.is_some() => {
-            parse_pressure_at(s, barometric).map(Quantity::Pressure)
-        }
-        r => r,
     }
 }
