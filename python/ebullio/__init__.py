@@ -239,6 +239,7 @@ def boil(
     pressure_range: Optional[str] = None,
     temperature_range: Optional[str] = None,
     steps: int = 10,
+    barometric: Optional[str] = None,
 ) -> BoilResult:
     """Boiling temperature at pressures (or vapor pressure at temperatures), as ``ebullio boil``.
 
@@ -247,7 +248,8 @@ def boil(
     ``constants`` (and optionally ``range="20 degC..110 degC"``), or a :class:`Fit`.
     Quantities carry their unit: ``pressure="15 mbar"``, ``temperature=["85 degC", "90 degC"]``;
     ``pressure_range="1 mbar..1 atm"`` (log-spaced) or ``temperature_range="20 degC..110 degC"``
-    (evenly spaced) add ``steps`` points.
+    (evenly spaced) add ``steps`` points. Gauge pressures (``"-0.98 barg"``) need the site's
+    ``barometric`` pressure (``"1013 mbar"``).
 
     >>> import ebullio
     >>> b = ebullio.boil("toluene", pressure="1 atm")
@@ -266,7 +268,7 @@ def boil(
         None if antoine is None else tuple(float(x) for x in antoine),
         constants, range, compound,
         None if reference_table is None else os.fspath(reference_table),
-        fit_json, smiles, pressure_range, temperature_range, int(steps),
+        fit_json, smiles, pressure_range, temperature_range, int(steps), barometric,
     )
     return BoilResult(json.loads(report))
 
@@ -280,6 +282,7 @@ def vle(
     wilson: Optional[Sequence[float]] = None,
     nrtl: Optional[Tuple[float, float, float]] = None,
     points: int = 101,
+    barometric: Optional[str] = None,
 ) -> VleResult:
     """Vapor-liquid equilibrium of a binary, as ``ebullio vle``: the T-x-y diagram at a
     pressure (default 1 atm) or p-x-y at a ``temperature``, every azeotrope, and whether the
@@ -296,7 +299,8 @@ def vle(
     """
     report = _ebullio.vle(list(compounds), _strings(smiles), pressure, temperature, model,
                           None if wilson is None else [float(x) for x in wilson],
-                          None if nrtl is None else [float(x) for x in nrtl], int(points))
+                          None if nrtl is None else [float(x) for x in nrtl], int(points),
+                          barometric)
     return VleResult(json.loads(report))
 
 

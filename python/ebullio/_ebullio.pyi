@@ -77,6 +77,7 @@ def boil(
     pressure_range: Optional[str] = None,
     temperature_range: Optional[str] = None,
     steps: int = 10,
+    barometric: Optional[str] = None,
 ) -> str: ...
 def vle(
     compound: Sequence[str],
@@ -87,6 +88,7 @@ def vle(
     wilson: Optional[Sequence[float]] = None,
     nrtl: Optional[Sequence[float]] = None,
     points: int = 101,
+    barometric: Optional[str] = None,
 ) -> str: ...
 def version() -> str: ...
 def threads() -> int: ...

@@ -12,7 +12,7 @@ use pyo3::prelude::*;
 
 /// The boil report as JSON (the CLI's `--format json` fields).
 #[pyfunction]
-#[pyo3(signature = (pressure, temperature, antoine=None, constants=None, range=None, compound=None, reference_table=None, fit=None, smiles=None, pressure_range=None, temperature_range=None, steps=10))]
+#[pyo3(signature = (pressure, temperature, antoine=None, constants=None, range=None, compound=None, reference_table=None, fit=None, smiles=None, pressure_range=None, temperature_range=None, steps=10, barometric=None))]
 #[allow(clippy::too_many_arguments)]
 pub fn boil(
     py: Python<'_>,
@@ -28,7 +28,9 @@ pub fn boil(
     pressure_range: Option<String>,
     temperature_range: Option<String>,
     steps: usize,
+    barometric: Option<String>,
 ) -> PyResult<String> {
+    let barometric_pa = crate::errors::barometric(py, barometric.as_deref())?;
     let owned;
     let library = match &reference_table {
         Some(p) => {
@@ -50,7 +52,7 @@ pub fn boil(
         temperatures: &temperature,
         temperature_range: temperature_range.as_deref(),
         steps,
-        barometric_pa: None,
+        barometric_pa,
         antoine: antoine.map(|(a, b, c)| [a, b, c]),
         constants: constants.as_deref(),
         range: range.as_deref(),

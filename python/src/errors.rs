@@ -76,3 +76,13 @@ pub fn read_error(py: Python<'_>, e: &ReadError, frame: bool) -> PyErr {
         )
     }
 }
+
+/// The `barometric` argument ("1013 mbar") in Pa.
+pub fn barometric(py: Python<'_>, text: Option<&str>) -> PyResult<Option<f64>> {
+    text.map(|b| {
+        ebullio::units::parse_pressure(b)
+            .map(|p| p.pa())
+            .map_err(|e| plain(py, format!("barometric '{b}': {e}")))
+    })
+    .transpose()
+}

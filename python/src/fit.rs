@@ -5,12 +5,12 @@
 //! same calls `ebullio fit` makes.
 
 use crate::errors::{plain, read_error};
-use ebullio::fit::{At, FitRequest};
+use ebullio::fit::{At, FitError, FitRequest};
 use ebullio::table_io::{
     fit_batch, json_text, none_fitted, read_measured, read_measured_bytes, FitCheckOptions, FitRow,
     ReadOptions,
 };
-use ebullio::units::{parse_pressure, PressureUnit, TemperatureUnit};
+use ebullio::units::{PressureUnit, TemperatureUnit};
 use pyo3::prelude::*;
 use std::path::Path;
 
@@ -39,6 +39,15 @@ impl FitRun {
     fn html(&self, command_line: &str) -> String {
         ebullio::report::fit_section::batch_report(&self.source, &self.rows, &self.at, command_line)
             .render()
+    }
+}
+
+/// A fit error with the arguments of `ebullio.fit` that fix it (as the CLI names its options).
+fn describe(e: &FitError) -> String {
+    match e {
+        FitError::Exclude { .. } => format!("exclude: {e}"),
+        FitError::Critical(_) => format!("{e} (give tc and pc)"),
+        _ => e.to_string(),
     }
 }
 
@@ -76,14 +85,7 @@ pub fn fit(
         .map(PressureUnit::parse)
         .transpose()
         .map_err(|e| plain(py, format!("p_unit: {e}")))?;
-    let barometric_pa = barometric
-        .as_deref()
-        .map(|b| {
-            parse_pressure(b)
-                .map(|p| p.pa())
-                .map_err(|e| plain(py, format!("barometric '{b}': {e}")))
-        })
-        .transpose()?;
+    let barometric_pa = crate::errors::barometric(py, barometric.as_deref())?;
     let opts = FitRequest {
         model,
         constants,
@@ -125,7 +127,7 @@ pub fn fit(
             tb_k: ref_tb_tolerance_k,
         },
     };
-    let rows = py.detach(|| fit_batch(&data, &opts, &check, &|| {}));
+    let rows = py.detach(|| fit_batch(&data, &opts, &check, &describe, &|| {}));
     if let Some(why) = none_fitted(&source, &rows) {
         return Err(plain(py, why));
     }

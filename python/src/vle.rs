@@ -10,7 +10,7 @@ use pyo3::prelude::*;
 
 /// The study as JSON (the fields `ebullio vle --format json` writes, without `at_x1`).
 #[pyfunction]
-#[pyo3(signature = (compound, smiles, pressure=None, temperature=None, model=None, wilson=None, nrtl=None, points=101))]
+#[pyo3(signature = (compound, smiles, pressure=None, temperature=None, model=None, wilson=None, nrtl=None, points=101, barometric=None))]
 #[allow(clippy::too_many_arguments)]
 pub fn vle(
     py: Python<'_>,
@@ -22,7 +22,9 @@ pub fn vle(
     wilson: Option<Vec<f64>>,
     nrtl: Option<Vec<f64>>,
     points: usize,
+    barometric: Option<String>,
 ) -> PyResult<String> {
+    let barometric_pa = crate::errors::barometric(py, barometric.as_deref())?;
     let setup = VleRequest {
         compounds: &compound,
         smiles: &smiles,
@@ -32,6 +34,7 @@ pub fn vle(
         wilson: wilson.as_deref(),
         nrtl: nrtl.as_deref(),
         points,
+        barometric_pa,
     }
     .resolve(&|n| n.to_string())
     .map_err(|e| plain(py, e))?;
