@@ -61,3 +61,13 @@ def test_boil_bad_input():
         ebullio.boil("no-such-compound-xyz", pressure="1 atm")
     with pytest.raises(ebullio.InputError, match="not both"):
         ebullio.boil("toluene", pressure="1 atm", temperature="50 degC")
+
+
+def test_boil_gauge_pressure_with_barometric_equals_cli():
+    with pytest.raises(ebullio.InputError, match="barometric"):
+        ebullio.boil("water", pressure="0 barg")
+    b = ebullio.boil("water", pressure="0 barg", barometric="1013.25 mbar")
+    assert b.to_dict() == cli_json("boil", "--compound", "water", "--pressure", "0 barg",
+                                   "--barometric", "1013.25 mbar")
+    # IAPWS-IF97: water boils at 373.124 K at 101.325 kPa.
+    assert abs(b.to_polars()["t_k"][0] - 373.124) < 0.01

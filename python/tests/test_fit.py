@@ -88,3 +88,31 @@ def test_nested_column_and_not_a_frame():
     assert e.value.column == "t/degC"
     with pytest.raises(TypeError):
         ebullio.fit(42)
+
+
+def test_exclude_equals_cli_exclude(tmp_path):
+    # One point left out by number and one by temperature, as `--exclude` does; the result
+    # records both, and a rule that names no point is refused naming the argument.
+    path = uncommented(DEMO / "ebulliometer-2026.csv", tmp_path)
+    df = pl.read_csv(path).filter(pl.col("compound") == "1-butanol").drop("compound")
+    df.write_csv(tmp_path / "b.csv")
+    r = ebullio.fit(df, exclude=[2, "338.11 K"])
+    expected = cli_json("fit", tmp_path / "b.csv", "--exclude", "2", "--exclude", "338.11 K")
+    assert r.to_dict() == [expected]
+    assert len(expected["excluded"]) == 2
+    with pytest.raises(ebullio.InputError, match="exclude"):
+        ebullio.fit(df, exclude="line x")
+    with pytest.raises(ebullio.InputError, match="exclude"):
+        ebullio.fit(df, exclude=999)
+
+
+def test_gauge_pressures_need_barometric(tmp_path):
+    # The same points as gauge readings against an invented 1000 mbar site pressure.
+    df = pl.DataFrame({"T/K": [313.15, 333.15, 353.15, 373.15, 393.15],
+                       "p/kPa": [7.88, 18.87, 38.9, 74.4, 131.6]})
+    gauge = df.select("T/K", (pl.col("p/kPa") / 100 - 1.0).alias("p/barg"))
+    with pytest.raises(ebullio.InputError, match="barometric"):
+        ebullio.fit(gauge)
+    a = ebullio.fit(gauge, barometric="1000 mbar").to_dict()[0]
+    b = ebullio.fit(df).to_dict()[0]
+    assert abs(a["normal_boiling_point_k"]["value"] - b["normal_boiling_point_k"]["value"]) < 1e-6
