@@ -35,6 +35,7 @@ pub fn vle(
         nrtl: nrtl.as_deref(),
         points,
         barometric_pa,
+        fitted: None,
     }
     .resolve(&|n| n.to_string())
     .map_err(|e| plain(py, e))?;
