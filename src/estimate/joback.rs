@@ -166,6 +166,68 @@ mod tests {
         assert_eq!(s.atoms, (4, 6));
     }
 
+    // Every Joback property equation for acetone (2 × −CH3, 1 × >C=O non-ring), with the
+    // group values of reference-data/joback-groups.csv and the equations of Joback & Reid
+    // (1987) evaluated by hand below (independent of the functions under test; issue 22:
+    // cargo-mutants found tm_k, tc_k and pc_bar unchecked by the library's tests).
+    #[test]
+    fn acetone_property_equations_by_hand() {
+        let s = sums(&counts(&[("ch3", 2), ("co_chain", 1)]));
+        let close = |got: f64, want: f64| {
+            assert!(
+                (got - want).abs() <= 1e-9 * want.abs().max(1.0),
+                "{got} vs {want}"
+            )
+        };
+        // Tm = 122.5 + (2 × −5.10 + 61.20) = 173.5 K.
+        close(tm_k(s.tm.unwrap()), 173.5);
+        // Tc = 321.91 / (0.584 + 0.965 × 0.0662 − 0.0662²) = 321.91 / 0.64350056.
+        close(tc_k(321.91, 0.0662), 321.91 / 0.643_500_56);
+        // A second point, so no mutant matches both: ΣΔTc = 0.2, Tb = 400 K:
+        // 400 / (0.584 + 0.193 − 0.04) = 400 / 0.737.
+        close(tc_k(400.0, 0.2), 400.0 / 0.737);
+        // pc = (0.113 + 0.0032 × 10 − 0.0007)⁻² = 0.1443⁻² bar (C3H6O: 10 atoms).
+        close(
+            pc_bar(s.atoms.0 + s.atoms.1, s.pc.unwrap()),
+            1.0 / 0.020_822_49,
+        );
+        // Vc = 17.5 + (2 × 65 + 62) = 209.5 cm³/mol.
+        close(vc_cm3_mol(s.vc.unwrap()), 209.5);
+        // ΔHf = 68.29 + (2 × −76.45 − 133.22) = −217.83 kJ/mol.
+        close(hf_kj_mol(s.hform.unwrap()), -217.83);
+        // ΔGf = 53.88 + (2 × −43.96 − 120.50) = −154.54 kJ/mol.
+        close(gf_kj_mol(s.gform.unwrap()), -154.54);
+        // Cp: a = 2 × 19.5 + 6.45 − 37.93 = 7.52; b = 2 × −8.08e-3 + 6.70e-2 + 0.210 =
+        // 0.26084; c = 2 × 1.53e-4 − 3.57e-5 − 3.91e-4 = −1.207e-4;
+        // d = 2 × −9.67e-8 + 2.86e-9 + 2.06e-7 = 1.546e-8.
+        let k = cp_coefficients([
+            s.cp[0].unwrap(),
+            s.cp[1].unwrap(),
+            s.cp[2].unwrap(),
+            s.cp[3].unwrap(),
+        ]);
+        for (got, want) in k.iter().zip([7.52, 0.26084, -1.207e-4, 1.546e-8]) {
+            close(*got, want);
+        }
+        // Cp(300 K) = 7.52 + 78.252 − 10.863 + 0.41742 = 75.32642 J/(mol·K).
+        close(cp_j_mol_k(k, 300.0), 75.32642);
+        // ΔHvap = 15.30 + (2 × 2.373 + 8.972) = 29.018 kJ/mol.
+        close(hvap_kj_mol(s.hvap.unwrap()), 29.018);
+        // ΔHfus = −0.88 + (2 × 0.908 + 4.189) = 5.125 kJ/mol.
+        close(hfus_kj_mol(s.hfus.unwrap()), 5.125);
+    }
+
+    // Toluene (5 × =CH– ring, 1 × =C< ring, 1 × −CH3): a second molecule for the group
+    // sums, with counts other than 1 and 2 (kills `count + atoms` for `count * atoms`).
+    #[test]
+    fn toluene_group_sums_by_hand() {
+        let s = sums(&counts(&[("eq_ch_ring", 5), ("eq_c_ring", 1), ("ch3", 1)]));
+        // ΔTb: 5 × 26.73 + 31.01 + 23.58 = 188.24 K.
+        assert!((s.tb.unwrap() - 188.24).abs() < 1e-9, "{:?}", s.tb);
+        // C7H8: 7 heavy atoms, 8 hydrogens.
+        assert_eq!(s.atoms, (7, 8));
+    }
+
     // A group with no published ΔVc (=N− in a chain) leaves ΣΔVc unknown, not zero;
     // the sums it has are still added.
     #[test]
