@@ -69,14 +69,14 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     }
     write(&root.join("tb-model-cv.csv"), &cv)?;
 
-    let mut iv = format!("{HEADER}family,n_cv,q90_rel,n_heldout,inside_heldout\n");
+    let mut iv = format!("{HEADER}family,n_cv,q90_k,n_heldout,inside_heldout\n");
     for i in &ev.intervals {
         writeln!(
             iv,
             "{},{},{:.5},{},{}",
             i.family.name(),
             i.n_cv,
-            i.q90_rel,
+            i.q90_k,
             i.n_heldout,
             i.inside_heldout
         )?;
@@ -109,10 +109,10 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
             f.heldout_common.mae_k, f.heldout_common.n, f.heldout_all.mae_k, f.heldout_all.n, f.heldout_all.rms_k
         )?;
     }
-    writeln!(md, "\nPer-family 90 % interval of the shipped variant (half-width = q · Tb, ×{OUTSIDE_FACTOR} outside the calibration):\n")?;
+    writeln!(md, "\nPer-family 90 % interval of the shipped variant (half-width = q, ×{OUTSIDE_FACTOR} outside the calibration):\n")?;
     writeln!(
         md,
-        "| family | CV residuals | q | held-out | inside | coverage |"
+        "| family | CV residuals | q (K) | held-out | inside | coverage |"
     )?;
     writeln!(md, "|---|---|---|---|---|---|")?;
     let (mut nh, mut ins) = (0, 0);
@@ -121,10 +121,10 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         ins += i.inside_heldout;
         writeln!(
             md,
-            "| {} | {} | {:.4} | {} | {} | {} |",
+            "| {} | {} | {:.1} | {} | {} | {} |",
             i.family.name(),
             i.n_cv,
-            i.q90_rel,
+            i.q90_k,
             i.n_heldout,
             i.inside_heldout,
             if i.n_heldout > 0 {

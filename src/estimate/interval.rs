@@ -4,8 +4,8 @@
 //! The figures are read from `reference-data/tb-model-cv.csv` and
 //! `reference-data/tb-intervals.csv`, written by `cargo run --example fit_tb_model`
 //! (see [`super::tb_fit`] for the procedure; `tests/estimate_tb_model.rs`
-//! recomputes them). The half-width of the interval is `q · Tb · f`, where `q`
-//! is the family's conformal 90 % quantile of out-of-fold relative errors and
+//! recomputes them). The half-width of the interval is `q · f`, where `q`
+//! is the family's conformal 90 % quantile of out-of-fold absolute errors (K) and
 //! `f` is 1, or [`OUTSIDE_FACTOR`] for a molecule outside the calibration (a
 //! term with fewer than three calibration compounds, or more than two strongly
 //! polar groups).
@@ -82,8 +82,8 @@ pub struct Figure {
 pub struct FamilyQ {
     /// Out-of-fold residuals it rests on.
     pub n_cv: usize,
-    /// Relative half-width.
-    pub q90_rel: f64,
+    /// Half-width, K.
+    pub q90_k: f64,
     /// Held-out compounds.
     pub n_heldout: usize,
     /// Held-out compounds inside.
@@ -109,14 +109,12 @@ impl Calibration {
             .find(|f| f.variant == v && f.subset == subset)
     }
 
-    /// Relative 90 % half-width of a family (the largest family's value if none is committed).
-    pub fn q90(&self, f: Family) -> f64 {
-        self.families.get(&f).map(|q| q.q90_rel).unwrap_or_else(|| {
-            self.families
-                .values()
-                .map(|q| q.q90_rel)
-                .fold(0.1, f64::max)
-        })
+    /// 90 % half-width of a family, K (the largest family's value if none is committed).
+    pub fn q90_k(&self, f: Family) -> f64 {
+        self.families
+            .get(&f)
+            .map(|q| q.q90_k)
+            .unwrap_or_else(|| self.families.values().map(|q| q.q90_k).fold(40.0, f64::max))
     }
 
     /// One sentence on the measured calibration, for reports and the terminal.
@@ -190,7 +188,7 @@ fn parse() -> Calibration {
             fam,
             FamilyQ {
                 n_cv,
-                q90_rel: q,
+                q90_k: q,
                 n_heldout: nh,
                 inside_heldout: ins,
             },

@@ -353,7 +353,7 @@ fn finish(r: Raw) -> Estimate {
                 .join(", ")
         ));
     }
-    let hw = cal.q90(r.family) * tb * comfort.factor;
+    let hw = cal.q90_k(r.family) * comfort.factor;
     let s = &r.sums;
     let tc =
         s.tc.map(|x| joback::tc_k(tb, x))

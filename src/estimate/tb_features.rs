@@ -6,9 +6,15 @@
 //! `amide_secondary`, `amide_tertiary` (chain C(=O)–N with 2, 1, 0 H on N),
 //! `amide_ring` (lactam: the C–N bond in a ring), `carbamate` (O–C(=O)–N),
 //! `urea` (N–C(=O)–N), `sulfonamide` (S(=O)–N), `nh_aromatic` (pyrrole-type
-//! N–H), `fused_aromatic` (an aromatic atom shared by two aromatic rings) and
-//! `ester_ring` (lactone or cyclic carbonate: the ester C–O bond in a ring) and
-//! `sulfoxide` (a sulfur with exactly one =O, on top of its `s_oxo`).
+//! N–H), `fused_aromatic` (an aromatic atom shared by two aromatic rings),
+//! `ester_ring` (lactone or cyclic carbonate: the ester C–O bond in a ring),
+//! `sulfoxide` (a sulfur with exactly one =O, on top of its `s_oxo`);
+//! `perhalo_c` (a carbon with two or more halogens and no hydrogen, as in CF3
+//! or CCl2F: perhalogenated carbons boil lower than the halogen groups add up
+//! to), `halo_ch` (a carbon with a halogen and a hydrogen, as in CH2Cl or CHF2:
+//! the polar C–H raises the boiling point) and `arom_o_s` (an aromatic O or S,
+//! as in furan or thiophene, which the published `o_ring`/`s_ring` groups do
+//! not tell apart from the saturated ring).
 //!
 //! Reference: the idea of second-order corrections on top of first-order
 //! groups follows L. Constantinou, R. Gani, AIChE J. 40 (1994) 1697–1710; the
@@ -19,7 +25,7 @@ use super::EstimateError;
 use crate::molecule::{BondOrder, Element, Molecule};
 
 /// Ids of the corrections, in output order.
-pub const CORRECTIONS: [&str; 11] = [
+pub const CORRECTIONS: [&str; 14] = [
     "amide_primary",
     "amide_secondary",
     "amide_tertiary",
@@ -31,6 +37,9 @@ pub const CORRECTIONS: [&str; 11] = [
     "fused_aromatic",
     "ester_ring",
     "sulfoxide",
+    "perhalo_c",
+    "halo_ch",
+    "arom_o_s",
 ];
 
 /// First-order groups this project adds to the published table.
@@ -129,6 +138,15 @@ fn bump(g: &mut GroupCounts, id: &str) {
 /// assert_eq!((f.terms["nh_aromatic"], f.terms["fused_aromatic"]), (1, 2));
 /// ```
 pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
+    // Group contributions describe organic compounds: H2, N2, Cl2 and the like would get
+    // the bare intercept (about 198 K), far from the truth, so they are refused.
+    if !m.atoms().iter().any(|a| a.element == Element::C) {
+        return Err(EstimateError::NoGroup {
+            atom: m.atoms().first().map_or("?".into(), |a| a.element.symbol().to_string()),
+            position: 1,
+            reason: "the molecule has no carbon atom; the group-contribution methods describe organic compounds only".into(),
+        });
+    }
     let mut terms = assign_tb_groups(m)?;
     let atoms = m.atoms();
     let el = |i: usize| atoms[i].element;
@@ -148,6 +166,18 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
         let nb = m.neighbours(i);
         match a.element {
             e if e == Element::C => {
+                let hal = nb
+                    .iter()
+                    .filter(|&&(j, _)| {
+                        [Element::F, Element::CL, Element::BR, Element::I].contains(&el(j))
+                    })
+                    .count();
+                if hal >= 2 && m.total_hydrogens(i) == 0 {
+                    bump(&mut terms, "perhalo_c");
+                }
+                if hal >= 1 && m.total_hydrogens(i) > 0 {
+                    bump(&mut terms, "halo_ch");
+                }
                 if !nb.iter().any(|&(j, k)| is_terminal_o(j, k)) {
                     continue;
                 }
@@ -219,6 +249,9 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
     }
     for i in 0..atoms.len() {
         let a = &atoms[i];
+        if a.aromatic && (a.element == Element::O || a.element == Element::S) {
+            bump(&mut terms, "arom_o_s");
+        }
         if a.element == Element::N && a.aromatic && m.total_hydrogens(i) > 0 {
             bump(&mut terms, "nh_aromatic");
         }
