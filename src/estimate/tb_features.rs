@@ -10,9 +10,10 @@
 //! `ester_ring` (lactone or cyclic carbonate: the ester C–O bond in a ring),
 //! `sulfoxide` (a sulfur with exactly one =O, on top of its `s_oxo`);
 //! `perhalo_c` (a carbon with two or more halogens and no hydrogen, as in CF3
-//! or CCl2F: perhalogenated carbons boil lower than the halogen groups add up
-//! to), `halo_ch` (a carbon with a halogen and a hydrogen, as in CH2Cl or CHF2:
-//! the polar C–H raises the boiling point) and `arom_o_s` (an aromatic O or S,
+//! or CCl2F) and `halo_ch` (a carbon with a halogen and a hydrogen, as in CH2Cl
+//! or CHF2): the published table gives a halogen one value wherever it sits, these
+//! let the fit tell the carbon environments apart (an aryl halide carries
+//! neither); and `arom_o_s` (an aromatic O or S,
 //! as in furan or thiophene, which the published `o_ring`/`s_ring` groups do
 //! not tell apart from the saturated ring).
 //!
