@@ -127,6 +127,20 @@ mod tests {
         }
     }
 
+    // Wald–Wolfowitz runs test by hand (issue 22: cargo-mutants changed n2 and n − 1
+    // unnoticed). Signs + + + − − + + −: n1 = 5, n2 = 3, n = 8, 4 runs;
+    // E = 2·5·3/8 + 1 = 4.75; Var = 2·15·(30 − 8)/(8²·7) = 660/448;
+    // z = (4 − 4.75)/√(660/448).
+    #[test]
+    fn runs_test_statistics_by_hand() {
+        let r = runs_test(&[0.3, 1.0, 0.2, -0.5, -1.0, 0.0, 2.0, 0.1, -0.4]);
+        assert_eq!(r.runs, 4);
+        assert!((r.expected - 4.75).abs() < 1e-12, "{}", r.expected);
+        let z = -0.75 / (660.0_f64 / 448.0).sqrt();
+        assert!((r.z - z).abs() < 1e-12, "{} vs {z}", r.z);
+        assert!(!r.systematic);
+    }
+
     #[test]
     fn runs_test_sees_a_bow() {
         let bow = [

@@ -268,6 +268,16 @@ mod tests {
         assert!((fd - bz.d_ln_p_dt(tb)).abs() < 1e-7);
     }
 
+    // A kelvin-convention row with C = −40 K is defined where T > 40 K (issue 22: the
+    // mutant `T · C > 0` for `T + C > 0` went unnoticed).
+    #[test]
+    fn denominator_positive_only_above_minus_c() {
+        let row = AntoineConstants::new(9.0, 1500.0, -40.0, "ln,kPa,K".parse().unwrap());
+        assert!(row.denominator_positive_on(250.0, 300.0));
+        assert!(!row.denominator_positive_on(30.0, 300.0));
+        assert!(!row.denominator_positive_on(250.0, 35.0));
+    }
+
     #[test]
     fn undefined_below_minus_c() {
         let bz = AntoineConstants::new(13.7819, 2726.81, 217.572, "ln,kPa,degC".parse().unwrap());
