@@ -42,7 +42,7 @@ impl Component {
         })
     }
 
-    /// "SMILES [name]": the reference curve when the bundled reference knows the structure
+    /// "SMILES name": the reference curve when the bundled reference knows the structure
     /// (the better source), else the structure estimate's Lee–Kesler curve. Errors are
     /// prefixed with `'SMILES': ` (or are about the empty value).
     pub fn structure(text: &str) -> Result<Component, String> {
@@ -91,7 +91,7 @@ impl Component {
 pub struct VleRequest<'a> {
     /// Reference compounds (name, synonym or CAS number).
     pub compounds: &'a [String],
-    /// Structures, "SMILES [name]".
+    /// Structures, "SMILES" or "SMILES name".
     pub smiles: &'a [String],
     /// System pressure with unit (default 1 atm).
     pub pressure: Option<&'a str>,

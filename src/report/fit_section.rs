@@ -31,7 +31,7 @@ pub fn report_pressures(at: &[At]) -> Vec<f64> {
     }
 }
 
-/// The report of a fit batch ([`crate::table_io::fit_batch`]): [`fit_report`] of its
+/// The report of a fit batch ([`crate::table_io::fit_batch()`]): [`fit_report`] of its
 /// fitted and failed rows, at the `at` pressures (else the default set-points).
 pub fn batch_report(source: &str, rows: &[FitRow], at: &[At], command_line: &str) -> Report {
     let fits: Vec<FitReport> = rows.iter().filter_map(|r| r.report().cloned()).collect();
