@@ -67,3 +67,17 @@ impl VaporEquation for Antoine {
         (t.is_finite() && t > 0.0 && t + th[2] > 0.0).then_some(t)
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    // Antoine is nonlinear in C, so it offers no linear basis: the fitter must iterate,
+    // not solve it as linear (issue 22: the default `linear_basis` → `Some(1.0)` went
+    // unnoticed by the library tests).
+    #[test]
+    fn antoine_has_no_linear_basis() {
+        let mut phi = [0.0; 3];
+        assert_eq!(Antoine.linear_basis(350.0, &mut phi), None);
+    }
+}
