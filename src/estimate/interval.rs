@@ -1,11 +1,12 @@
 //! The committed calibration of the boiling-point estimate: which variant
-//! ships, its cross-validated figures, and the per-family 90 % interval.
+//! ships, its cross-validated figures, and the 90 % interval per class (the
+//! structural family, halides split by fluorine).
 //!
 //! The figures are read from `reference-data/tb-model-cv.csv` and
 //! `reference-data/tb-intervals.csv`, written by `cargo run --example fit_tb_model`
 //! (see [`super::tb_fit`] for the procedure; `tests/estimate_tb_model.rs`
 //! recomputes them). The half-width of the interval is `q · f`, where `q`
-//! is the family's conformal 90 % quantile of out-of-fold absolute errors (K) and
+//! is the class's conformal 90 % quantile of out-of-fold and held-out absolute errors (K) and
 //! `f` is 1, or [`OUTSIDE_FACTOR`] for a molecule outside the calibration (a
 //! term with fewer than three calibration compounds, or more than two strongly
 //! polar groups).
@@ -13,7 +14,7 @@
 //! Reference: the rule is this program's own (split conformal prediction,
 //! V. Vovk, A. Gammerman, G. Shafer, Algorithmic Learning in a Random World, 2005).
 
-use super::tb_features::Family;
+use super::tb_features::IntervalClass;
 pub use super::tb_fit::OUTSIDE_FACTOR;
 pub use super::tb_model::TbVariant;
 use std::collections::BTreeMap;
@@ -77,17 +78,20 @@ pub struct Figure {
     pub rms_k: f64,
 }
 
-/// One family's committed interval.
+/// One class's committed interval.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
-pub struct FamilyQ {
+pub struct ClassQ {
     /// Out-of-fold residuals it rests on.
     pub n_cv: usize,
+    /// Held-out compounds (their residuals also calibrate it).
+    pub n_heldout: usize,
     /// Half-width, K.
     pub q90_k: f64,
-    /// Held-out compounds.
-    pub n_heldout: usize,
-    /// Held-out compounds inside.
+    /// Held-out compounds inside the interval calibrated without their own residual.
     pub inside_heldout: usize,
+    /// Every residual of the class (out-of-fold and held-out) inside the interval
+    /// calibrated without it.
+    pub inside_all: usize,
 }
 
 /// The measured calibration of the boiling-point estimate.
@@ -97,8 +101,8 @@ pub struct Calibration {
     pub variant: TbVariant,
     /// Every committed figure.
     pub figures: Vec<Figure>,
-    /// Interval per family.
-    pub families: BTreeMap<Family, FamilyQ>,
+    /// Interval per class.
+    pub classes: BTreeMap<IntervalClass, ClassQ>,
 }
 
 impl Calibration {
@@ -109,12 +113,12 @@ impl Calibration {
             .find(|f| f.variant == v && f.subset == subset)
     }
 
-    /// 90 % half-width of a family, K (the largest family's value if none is committed).
-    pub fn q90_k(&self, f: Family) -> f64 {
-        self.families
-            .get(&f)
+    /// 90 % half-width of a class, K (the largest class's value if none is committed).
+    pub fn q90_k(&self, c: IntervalClass) -> f64 {
+        self.classes
+            .get(&c)
             .map(|q| q.q90_k)
-            .unwrap_or_else(|| self.families.values().map(|q| q.q90_k).fold(40.0, f64::max))
+            .unwrap_or_else(|| self.classes.values().map(|q| q.q90_k).fold(40.0, f64::max))
     }
 
     /// One sentence on the measured calibration, for reports and the terminal.
@@ -127,7 +131,7 @@ impl Calibration {
             return "The boiling-point calibration files hold no figures; tb_k is the published Joback value.".into();
         };
         let (n, inside) = self
-            .families
+            .classes
             .values()
             .fold((0, 0), |a, q| (a.0 + q.n_heldout, a.1 + q.inside_heldout));
         format!(
@@ -173,31 +177,33 @@ fn parse() -> Calibration {
             rms_k: rms,
         });
     }
-    let mut families = BTreeMap::new();
+    let mut classes = BTreeMap::new();
     for f in data_lines(INTERVALS_CSV) {
-        let (Some(fam), Some(n_cv), Some(q), Some(nh), Some(ins)) = (
-            f.first().and_then(|s| Family::from_name(s)),
-            f.get(1).and_then(|s| s.parse().ok()),
+        let (Some(class), Some(n_cv), Some(nh), Some(q), Some(ins), Some(ia)) = (
+            f.first().and_then(|s| IntervalClass::from_name(s)),
             f.get(2).and_then(|s| s.parse().ok()),
             f.get(3).and_then(|s| s.parse().ok()),
             f.get(4).and_then(|s| s.parse().ok()),
+            f.get(5).and_then(|s| s.parse().ok()),
+            f.get(6).and_then(|s| s.parse().ok()),
         ) else {
             continue;
         };
-        families.insert(
-            fam,
-            FamilyQ {
+        classes.insert(
+            class,
+            ClassQ {
                 n_cv,
-                q90_k: q,
                 n_heldout: nh,
+                q90_k: q,
                 inside_heldout: ins,
+                inside_all: ia,
             },
         );
     }
     Calibration {
         variant,
         figures,
-        families,
+        classes,
     }
 }
 

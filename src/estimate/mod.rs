@@ -44,7 +44,7 @@ pub mod tb_model;
 pub use groups::{assign_groups, assign_tb_groups, group, parse_groups, table, Group, GroupCounts};
 pub use interval::{calibration, Calibration, Comfort, TbVariant};
 pub use lee_kesler::LeeKeslerCurve;
-pub use tb_features::Family;
+pub use tb_features::{Family, IntervalClass};
 
 use crate::molecule::{parse_smiles, Molecule, SmilesError};
 
@@ -145,8 +145,10 @@ pub struct Estimate {
     pub tb_variant: TbVariant,
     /// Every variant's boiling point, K, by variant name.
     pub tb_variants: std::collections::BTreeMap<&'static str, f64>,
-    /// Structural family whose calibrated interval applies.
+    /// Structural family.
     pub family: Family,
+    /// Class whose calibrated interval applies (the family, halides split by fluorine).
+    pub interval_class: IntervalClass,
     /// Groups and corrections behind `tb_k`, each with its value and origin.
     pub tb_terms: Vec<TbTerm>,
     /// Comfort-zone factor and reasons for a wider interval.
@@ -212,6 +214,7 @@ pub(crate) struct Raw {
     /// Extended terms of the boiling-point model.
     pub terms: GroupCounts,
     pub family: Family,
+    pub class: IntervalClass,
     pub polar: u32,
     /// New groups that stand in as their nearest published group.
     pub approximated: Vec<String>,
@@ -275,6 +278,7 @@ fn raw_from_molecule(m: &Molecule) -> Result<Raw, EstimateError> {
         tb_joback_k,
         terms: f.terms,
         family: f.family,
+        class: f.class,
         polar: f.polar,
         approximated,
         smiles: Some(m.smiles().to_string()),
@@ -353,7 +357,7 @@ fn finish(r: Raw) -> Estimate {
                 .join(", ")
         ));
     }
-    let hw = cal.q90_k(r.family) * comfort.factor;
+    let hw = cal.q90_k(r.class) * comfort.factor;
     let s = &r.sums;
     let tc =
         s.tc.map(|x| joback::tc_k(tb, x))
@@ -390,6 +394,7 @@ fn finish(r: Raw) -> Estimate {
         tb_variant: variant,
         tb_variants: variants,
         family: r.family,
+        interval_class: r.class,
         tb_terms: terms,
         comfort,
         notes,
@@ -459,6 +464,7 @@ pub fn estimate_groups(g: &GroupCounts) -> Result<Estimate, EstimateError> {
         tb_joback_k: Some(joback::tb_k(stb)),
         terms: g.clone(),
         family: tb_features::family_of_groups(g),
+        class: tb_features::class_of_groups(g),
         polar,
         approximated: Vec::new(),
         smiles: None,

@@ -38,13 +38,18 @@ pub fn table(rows: &[Row]) -> String {
             e.formula.clone().unwrap_or_default()
         ));
         s.push_str(&format!(
-            "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}, {} family; published Joback {}]\n",
+            "  Tb     {:.1} K ({:.1} °C), 90 % interval {:.1}–{:.1} K  [{}, {} family{}; published Joback {}]\n",
             e.tb_k,
             e.tb_k - crate::units::CELSIUS_OFFSET,
             e.tb_pi90_low_k,
             e.tb_pi90_high_k,
             e.tb_variant.name(),
             e.family.name(),
+            if e.interval_class == crate::estimate::IntervalClass::FluorinatedHalide {
+                " (fluorinated)"
+            } else {
+                ""
+            },
             e.tb_joback_k
                 .map_or("has no group for this structure".to_string(), |t| format!("{t:.1} K"))
         ));
