@@ -3,14 +3,17 @@
 # restarting a target after a crash until its time is used up. Logs and a summary go to
 # fuzz/logs/ (git-ignored); crashing inputs to fuzz/artifacts/TARGET/.
 # usage: fuzz/run_all.sh [SECS] [TARGET...]   (run from the repository root)
+# FUZZ_SANITIZER (default none: the library forbids unsafe code, see README.md) picks
+# cargo fuzz's --sanitizer, e.g. FUZZ_SANITIZER=address for a memory-checked run.
 set -uo pipefail
 cd "$(dirname "$0")"
 SECS=${1:-600}
 shift || true
 TARGETS=${*:-"quantity smiles measured_csv fit_points screen_rows"}
+SAN=${FUZZ_SANITIZER:-none}
 mkdir -p logs
 export RUSTC_BOOTSTRAP=1
-cargo fuzz build >logs/build.log 2>&1 || { echo "cargo fuzz build failed, see fuzz/logs/build.log" >&2; exit 1; }
+cargo fuzz build --sanitizer "$SAN" >logs/build.log 2>&1 || { echo "cargo fuzz build failed, see fuzz/logs/build.log" >&2; exit 1; }
 for t in $TARGETS; do
     mkdir -p "corpus/$t" "artifacts/$t"
     start=$(date +%s)
@@ -19,7 +22,7 @@ for t in $TARGETS; do
         left=$((SECS - ($(date +%s) - start)))
         [ "$left" -gt 5 ] || break
         run=$((run + 1))
-        cargo fuzz run "$t" "corpus/$t" -- -max_total_time="$left" -timeout=10 \
+        cargo fuzz run --sanitizer "$SAN" "$t" "corpus/$t" -- -max_total_time="$left" -timeout=10 \
             -print_final_stats=1 >"logs/$t.$run.log" 2>&1
         rc=$?
         echo "$t run $run exit $rc $(date -u +%H:%M:%S) load $(cut -d' ' -f1-3 /proc/loadavg)" >>logs/progress.txt

@@ -30,6 +30,8 @@
 //! let t = bz.t_at(parse_pressure("200 mbar").unwrap().pa()).unwrap();
 //! assert!(t > 300.0 && t < 320.0);
 //! ```
+// No unsafe code: the fuzz targets run without a memory sanitizer (fuzz/README.md).
+#![forbid(unsafe_code)]
 #![warn(missing_docs)]
 
 pub mod boiling;

@@ -5,6 +5,9 @@
 //! then Levenberg–Marquardt polishes. With u(T), u(p) given the weights are
 //! effective variances u_eff² = (u(p)/p)² + (d ln p/dT)²·u(T)², iterated until
 //! they stop changing. `--robust` reweights by Huber's loss (IRLS).
+//! Every solve of one equation fit draws on one evaluation budget that scales with the
+//! number of constants ([`evaluation_budget`]), so no input can make a fit run long: a fit
+//! that spends it ends with [`StopReason::BudgetSpent`], never with a silent number.
 //!
 //! Reference: effective variance — J. Orear, *Am. J. Phys.* 50, 912 (1982);
 //! Huber loss and IRLS — P. J. Huber, *Ann. Math. Statist.* 35, 73–101 (1964),
@@ -142,12 +145,68 @@ pub fn antoine_start(t: &[f64], y: &[f64], sigma: &[f64]) -> Option<Vec<f64>> {
     Some(vec![cl[0], cl[1], 0.0])
 }
 
+/// Residual evaluations one Levenberg–Marquardt solve may take, per constant plus one
+/// (MINPACK's `lmder1` default, J. J. Moré, B. S. Garbow & K. E. Hillstrom, *User Guide for
+/// MINPACK-1*, ANL-80-74 (1980)); fits of the tests and benchmarks need at most about 160.
+const EVALS_PER_SOLVE: usize = 100;
+
+/// Residual evaluations one equation fit may take over all its solves (the first and every
+/// effective-variance or robust reweighting), per constant plus one; robust fits of the
+/// tests need at most about 310 for Antoine's three constants, a third of this budget.
+const EVALS_PER_FIT: usize = 300;
+
+/// The evaluation budget of one fit of an equation with `k` constants: it scales with the
+/// problem's size (each evaluation costs one pass over the points), so a hostile point set
+/// costs at most a few hundred passes over its points per equation.
+pub fn evaluation_budget(k: usize) -> usize {
+    EVALS_PER_FIT * (k + 1)
+}
+
+/// What is left of one fit's evaluation budget.
+struct Budget {
+    left: usize,
+    total: usize,
+    k: usize,
+}
+
+impl Budget {
+    fn new(k: usize) -> Self {
+        let total = evaluation_budget(k);
+        Budget {
+            left: total,
+            total,
+            k,
+        }
+    }
+
+    /// The patience for the next solve (evaluations = patience·(k+1)); `None` when the
+    /// budget cannot pay for one.
+    fn patience(&self) -> Option<usize> {
+        let p = (self.left / (self.k + 1)).min(EVALS_PER_SOLVE);
+        (p > 0).then_some(p)
+    }
+
+    /// Charge a finished solve; the crate's `LostPatience` means this bound was hit.
+    fn charge(&mut self, r: &mut LsqResult) {
+        self.left = self.left.saturating_sub(r.termination.evaluations);
+        if r.termination.reason == StopReason::LostPatience {
+            self.spent(r);
+        }
+    }
+
+    /// Mark `r` as stopped by the budget.
+    fn spent(&self, r: &mut LsqResult) {
+        r.termination.reason = StopReason::BudgetSpent { budget: self.total };
+    }
+}
+
 fn solve_once(
     eq: &Equation,
     t: &[f64],
     y: &[f64],
     sigma: &[f64],
     start: Option<&[f64]>,
+    patience: usize,
 ) -> Option<LsqResult> {
     let prob = VaporProblem { eq, t, y };
     if let Some(th) = linear_fit(eq, t, y, sigma) {
@@ -164,7 +223,11 @@ fn solve_once(
             _ => return None,
         },
     };
-    Some(lsq::solve(&prob, sigma, &start, Settings::default()))
+    let settings = Settings {
+        patience,
+        ..Settings::default()
+    };
+    Some(lsq::solve(&prob, sigma, &start, settings))
 }
 
 /// Fit `eq` to `points` (already validated: finite, positive, enough of them).
@@ -185,8 +248,12 @@ pub fn fit_equation(
         .collect();
     let u_t: Vec<f64> = points.iter().map(|p| p.u_t_k.unwrap_or(0.0)).collect();
     let mut sigma = vec![1.0; t.len()];
-    let mut r = solve_once(eq, &t, &y, &sigma, None)?;
-    if weighted {
+    let mut budget = Budget::new(eq.n_params());
+    let mut r = solve_once(eq, &t, &y, &sigma, None, EVALS_PER_SOLVE)?;
+    budget.charge(&mut r);
+    // Reweighting from a point where the solver failed is not worth its cost: stop there.
+    let mut stopped = !r.termination.is_success();
+    if weighted && !stopped {
         // Effective variance, iterated to consistency with the fitted slope.
         for _ in 0..30 {
             let new: Vec<f64> = (0..t.len())
@@ -203,22 +270,32 @@ pub fn fit_equation(
                 .zip(&sigma)
                 .map(|(a, b)| ((a - b) / b).abs())
                 .fold(0.0, f64::max);
+            let Some(patience) = budget.patience() else {
+                budget.spent(&mut r);
+                stopped = true;
+                break;
+            };
             sigma = new;
             let th = r.theta.clone();
-            r = solve_once(eq, &t, &y, &sigma, Some(&th))?;
+            r = solve_once(eq, &t, &y, &sigma, Some(&th), patience)?;
+            budget.charge(&mut r);
+            if !r.termination.is_success() {
+                stopped = true;
+                break;
+            }
             if change < 1e-9 {
                 break;
             }
         }
     }
     let mut robust_weights = None;
-    if let Some(loss) = robust {
+    if let Some(loss) = robust.filter(|_| !stopped) {
         let mut w: Vec<f64> = vec![1.0; t.len()];
         let stages: &[RobustLoss] = match loss {
             RobustLoss::Huber => &[RobustLoss::Huber],
             RobustLoss::Tukey => &[RobustLoss::Huber, RobustLoss::Tukey],
         };
-        for &stage in stages {
+        'stages: for &stage in stages {
             for _ in 0..50 {
                 let mut abs: Vec<f64> = (0..t.len())
                     .map(|i| (r.residuals[i] / w[i].max(1e-12).sqrt()).abs())
@@ -240,13 +317,21 @@ pub fn fit_equation(
                     .zip(&w)
                     .map(|(a, b)| (a - b).abs())
                     .fold(0.0, f64::max);
+                let Some(patience) = budget.patience() else {
+                    budget.spent(&mut r);
+                    break 'stages;
+                };
                 w = new;
                 // a zero weight is a very large σ (the point stays in the report)
                 let s: Vec<f64> = (0..t.len())
                     .map(|i| sigma[i] / w[i].max(1e-12).sqrt())
                     .collect();
                 let th = r.theta.clone();
-                r = solve_once(eq, &t, &y, &s, Some(&th))?;
+                r = solve_once(eq, &t, &y, &s, Some(&th), patience)?;
+                budget.charge(&mut r);
+                if !r.termination.is_success() {
+                    break 'stages;
+                }
                 if change < 1e-8 {
                     break;
                 }
@@ -320,6 +405,65 @@ mod tests {
                 f.lsq.theta
             );
         }
+    }
+
+    // The slow input of the 2026-12-02 fuzz run (tests/fuzz_regressions.rs): temperatures
+    // and pressures near 1e-23 with subnormal u(p), Tukey reweighting. Its first solve took
+    // 2,000 evaluations and then 86 reweightings 158,000 more; it must end within the budget
+    // of its three constants and say so.
+    #[test]
+    fn a_hostile_point_set_ends_with_the_budget_spent() {
+        let p = |t_k, p_pa, u_t_k, u_p_pa| Point {
+            t_k,
+            p_pa,
+            u_t_k,
+            u_p_pa,
+        };
+        let pts = [
+            p(
+                2.812414082670612e-23,
+                2.252526342575774e-23,
+                Some(2.252526342575774e-23),
+                Some(2.252526342575774e-23),
+            ),
+            p(
+                2.236307114878656e-23,
+                2.252526342575774e-23,
+                Some(2.252526342575774e-23),
+                Some(3.21763131499815e-310),
+            ),
+            p(
+                2.252526342575774e-23,
+                2.252526342575774e-23,
+                Some(2.235401118821697e-23),
+                Some(2.252526342575774e-23),
+            ),
+            p(
+                2.2525263463461408e-23,
+                2.252526342575774e-23,
+                Some(2.2502645205883244e-23),
+                None,
+            ),
+            p(
+                2.252526342575774e-23,
+                1.0503209742121367e-19,
+                Some(2.2525263425905195e-23),
+                Some(1.1951619082204e-310),
+            ),
+        ];
+        let f = fit_equation(&ANTOINE, &pts, Some(RobustLoss::Tukey)).unwrap();
+        let term = &f.lsq.termination;
+        assert_eq!(
+            term.reason,
+            StopReason::BudgetSpent {
+                budget: evaluation_budget(3)
+            }
+        );
+        assert!(term.evaluations <= EVALS_PER_SOLVE * 4, "{term:?}");
+        assert_eq!(
+            term.reason.to_string(),
+            "evaluation budget spent (1200 evaluations)"
+        );
     }
 
     #[test]

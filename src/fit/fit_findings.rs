@@ -5,15 +5,21 @@ use super::curve::FittedCurve;
 use super::findings::{Finding, FitCode};
 use super::options::FitOptions;
 use super::report::*;
+use super::termination::StopReason;
 use crate::vapor::{slope, Equation};
 
 pub(super) fn findings(r: &FitReport, curve: &FittedCurve, opts: &FitOptions) -> Vec<Finding> {
     let mut v = Vec::new();
     if !r.termination.is_success() {
+        // A spent budget says the data fight the equation, not that more iterations would help.
+        let hint = match r.termination.reason {
+            StopReason::BudgetSpent { .. } => " The budget grows with the number of constants and is ample for data the equation describes: check the units, the columns and any gross outliers.",
+            _ => "",
+        };
         v.push(Finding::new(
             FitCode::NotConverged,
             format!(
-                "The fit did not converge ({}); the constants are the solver's last point, not a solution.",
+                "The fit did not converge ({}); the constants are the solver's last point, not a solution.{hint}",
                 r.termination.reason
             ),
         ));

@@ -1,5 +1,6 @@
 //! How a least-squares solve stopped: a reason enum with [`StopReason::is_success`],
 //! written in JSON as `{converged, reason, evaluations}` (the report's stable shape).
+//! The solver's own reasons keep its words; the fit's evaluation budget has its own.
 
 use levenberg_marquardt::TerminationReason;
 use serde::{Deserialize, Serialize};
@@ -25,6 +26,12 @@ pub enum StopReason {
     Orthogonal,
     /// The evaluation budget was spent.
     LostPatience,
+    /// The fit's own evaluation budget (scaled to its number of constants, summed over every
+    /// solve of the fit, reweightings included) was spent before it converged.
+    BudgetSpent {
+        /// The budget, residual evaluations.
+        budget: usize,
+    },
     /// A success criterion was met, but at non-finite constants.
     NonFinite(Box<StopReason>),
     /// Any other reason, in the solver's words.
@@ -71,6 +78,14 @@ impl StopReason {
             "ResidualsZero" => StopReason::ResidualsZero,
             "Orthogonal" => StopReason::Orthogonal,
             "LostPatience" => StopReason::LostPatience,
+            _ if s.starts_with(BUDGET_WORDS) => match s
+                .strip_prefix(BUDGET_WORDS)
+                .and_then(|r| r.strip_suffix(" evaluations)"))
+                .and_then(|n| n.parse().ok())
+            {
+                Some(budget) => StopReason::BudgetSpent { budget },
+                None => StopReason::Other(s.to_string()),
+            },
             _ => match s
                 .strip_prefix("Converged { ftol: ")
                 .and_then(|r| r.strip_suffix(" }"))
@@ -91,6 +106,9 @@ impl StopReason {
     }
 }
 
+/// The words of [`StopReason::BudgetSpent`] before its number.
+const BUDGET_WORDS: &str = "evaluation budget spent (";
+
 /// The solver's reason in words: the crate's own variant name and fields, as its
 /// `Debug` prints them (a stable part of the fit report).
 impl fmt::Display for StopReason {
@@ -103,6 +121,7 @@ impl fmt::Display for StopReason {
             StopReason::ResidualsZero => f.write_str("ResidualsZero"),
             StopReason::Orthogonal => f.write_str("Orthogonal"),
             StopReason::LostPatience => f.write_str("LostPatience"),
+            StopReason::BudgetSpent { budget } => write!(f, "{BUDGET_WORDS}{budget} evaluations)"),
             StopReason::NonFinite(r) => r.fmt(f),
             StopReason::Other(s) => f.write_str(s),
         }
@@ -191,6 +210,7 @@ mod tests {
                 true,
             ),
             (StopReason::LostPatience, false),
+            (StopReason::BudgetSpent { budget: 1200 }, false),
             (
                 StopReason::NonFinite(Box::new(StopReason::Orthogonal)),
                 false,

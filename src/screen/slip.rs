@@ -382,10 +382,16 @@ fn written(x: f64) -> String {
     }
 }
 
+/// Longest number, in digits, taken as typed by hand: more than a double holds (17) is a
+/// computed value, not a table entry, so it has no typing slips. Without this bound a value
+/// like 1e300, written out in 301 digits, costs thousands of long parses (found by the
+/// `screen_rows` fuzz target).
+const MAX_TYPED_DIGITS: usize = 17;
+
 /// Every value one typing slip away from `x` as written: the decimal point
 /// moved (or dropped), two adjacent digits swapped, one digit removed, one
 /// digit inserted. Sign kept;
-/// `x` itself excluded.
+/// `x` itself excluded. None for a number longer than [`MAX_TYPED_DIGITS`].
 pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
     let s = written(x);
     if !x.is_finite() || s.contains('e') {
@@ -393,6 +399,9 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
     }
     let sign = if x < 0.0 { -1.0 } else { 1.0 };
     let digits: Vec<u8> = s.bytes().filter(u8::is_ascii_digit).collect();
+    if digits.len() > MAX_TYPED_DIGITS {
+        return Vec::new();
+    }
     let point = s.find('.').unwrap_or(s.len());
     let mut out: Vec<(f64, DigitSlip)> = Vec::new();
     let mut buf = String::with_capacity(digits.len() + 2);
@@ -727,6 +736,11 @@ mod tests {
             assert!(v.contains(&want), "{want} missing");
         }
         assert!(!v.contains(&134.48));
+        // 1e300 is written out in 301 digits: not a hand-typed number, so no slips
+        // (and no thousands of 300-digit parses).
+        assert_eq!(written(1e300).len(), 301);
+        assert!(digit_variants(1e300).is_empty());
+        assert!(!digit_variants(12345678901234567.0).is_empty());
         let c: Vec<f64> = digit_variants(-53.67).into_iter().map(|x| x.0).collect();
         assert!(c.contains(&-536.7) && c.contains(&-5.67));
         assert_eq!(written(110.60000000000002), "110.6");
