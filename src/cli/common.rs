@@ -133,8 +133,10 @@ pub fn without_non_finite(text: &str, blank: &str) -> String {
                 i += 1;
             }
             let w = &text[start..i];
-            let l = w.to_ascii_lowercase();
-            if l == "nan" || l == "inf" || l == "infinity" {
+            if ["nan", "inf", "infinity"]
+                .iter()
+                .any(|n| w.eq_ignore_ascii_case(n))
+            {
                 if out.ends_with(['-', '+'])
                     && (start < 2 || !bytes[start - 2].is_ascii_alphanumeric())
                 {

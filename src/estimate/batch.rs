@@ -39,9 +39,15 @@ impl ReferenceMatch {
     /// The bundled reference compound with this estimate's structure, if any.
     pub fn find(e: &Estimate) -> Option<ReferenceMatch> {
         let smiles = e.smiles.as_deref()?;
-        let c = crate::reference::Library::bundled()
-            .find_smiles(smiles)
-            .ok()?;
+        let lib = crate::reference::Library::bundled();
+        // Most structures share no formula with a bundled compound: no second parse for them.
+        if e.formula
+            .as_deref()
+            .is_some_and(|f| !lib.has_structure_formula(f))
+        {
+            return None;
+        }
+        let c = lib.find_smiles(smiles).ok()?;
         let row = c.tb_row()?;
         Some(ReferenceMatch {
             compound: c.name.clone(),

@@ -175,6 +175,8 @@ pub struct Library {
     pub user_table: Option<String>,
     /// Structure key of each compound's SMILES, made on the first structure lookup.
     keys: OnceLock<Vec<Option<String>>>,
+    /// Every formula among the compounds' structures, made on first use.
+    formulas: OnceLock<std::collections::HashSet<String>>,
 }
 
 fn key(name: &str) -> String {
@@ -425,6 +427,23 @@ impl Library {
                 names: hits.iter().map(|c| c.name.clone()).collect(),
             }),
         }
+    }
+
+    /// Whether any compound's structure has this molecular formula (as
+    /// [`crate::molecule::Molecule::formula`] writes it). The same structure has the same
+    /// formula, so a batch that knows its formulas skips [`Library::find_smiles`] (which
+    /// reads the SMILES again) for every structure this says no to.
+    pub fn has_structure_formula(&self, formula: &str) -> bool {
+        self.formulas
+            .get_or_init(|| {
+                self.compounds
+                    .iter()
+                    .filter_map(|c| c.smiles.as_deref())
+                    .filter_map(|s| crate::molecule::parse_smiles(s).ok())
+                    .map(|m| m.formula())
+                    .collect()
+            })
+            .contains(formula)
     }
 
     /// The reference compound and its best curve for a structure, when the structure
