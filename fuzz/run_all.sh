@@ -14,6 +14,8 @@ SAN=${FUZZ_SANITIZER:-none}
 mkdir -p logs
 export RUSTC_BOOTSTRAP=1
 cargo fuzz build --sanitizer "$SAN" >logs/build.log 2>&1 || { echo "cargo fuzz build failed, see fuzz/logs/build.log" >&2; exit 1; }
+BIN=target/$(rustc -vV | sed -n 's/^host: //p')/release
+echo "built from $(git rev-parse --short HEAD)$(git diff --quiet HEAD -- .. || echo ' (with uncommitted changes)')" >>logs/summary.txt
 for t in $TARGETS; do
     mkdir -p "corpus/$t" "artifacts/$t"
     start=$(date +%s)
@@ -22,7 +24,9 @@ for t in $TARGETS; do
         left=$((SECS - ($(date +%s) - start)))
         [ "$left" -gt 5 ] || break
         run=$((run + 1))
-        cargo fuzz run --sanitizer "$SAN" "$t" "corpus/$t" -- -max_total_time="$left" -timeout=10 \
+        # the binaries built above, run directly: `cargo fuzz run` would rebuild from
+        # whatever the tree holds by then, so every target tests the same commit
+        "$BIN/$t" -artifact_prefix="artifacts/$t/" "corpus/$t" -max_total_time="$left" -timeout=10 \
             -print_final_stats=1 >"logs/$t.$run.log" 2>&1
         rc=$?
         echo "$t run $run exit $rc $(date -u +%H:%M:%S) load $(cut -d' ' -f1-3 /proc/loadavg)" >>logs/progress.txt
