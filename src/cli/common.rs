@@ -118,41 +118,10 @@ impl OutputArgs {
     }
 }
 
-/// `text` with every whole word `NaN`, `inf` or `infinity` (any case, with a
-/// sign) replaced by `blank`: a value that could not be computed is shown as
-/// missing (`-` in a table, an empty CSV cell), never as floating-point text.
-/// Words that merely contain the letters (`info`) are kept.
+/// `text` with every whole word `NaN`, `inf` or `infinity` replaced by `blank`
+/// ([`ebullio::table_io::without_non_finite`], the one rule).
 pub fn without_non_finite(text: &str, blank: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    let bytes = text.as_bytes();
-    let mut i = 0;
-    while i < bytes.len() {
-        if bytes[i].is_ascii_alphanumeric() {
-            let start = i;
-            while i < bytes.len() && bytes[i].is_ascii_alphanumeric() {
-                i += 1;
-            }
-            let w = &text[start..i];
-            if ["nan", "inf", "infinity"]
-                .iter()
-                .any(|n| w.eq_ignore_ascii_case(n))
-            {
-                if out.ends_with(['-', '+'])
-                    && (start < 2 || !bytes[start - 2].is_ascii_alphanumeric())
-                {
-                    out.pop();
-                }
-                out.push_str(blank);
-            } else {
-                out.push_str(w);
-            }
-        } else {
-            let c = text[i..].chars().next().unwrap_or(' ');
-            out.push(c);
-            i += c.len_utf8();
-        }
-    }
-    out
+    ebullio::table_io::without_non_finite(text, blank).into_owned()
 }
 
 /// Write `path` atomically by streaming into `write`, holding off an
@@ -177,8 +146,15 @@ pub fn colour_allowed() -> bool {
 
 /// Print to stdout; a broken pipe is reported as [`BrokenPipe`] so `main` ends quietly.
 pub fn print_stdout(text: &str) -> anyhow::Result<()> {
+    print_stdout_with(|out| out.write_all(text.as_bytes()))
+}
+
+/// Stream output to stdout through `write`, as [`print_stdout`] does with text.
+pub fn print_stdout_with(
+    write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
+) -> anyhow::Result<()> {
     let mut out = std::io::stdout().lock();
-    let r = out.write_all(text.as_bytes()).and_then(|_| out.flush());
+    let r = write(&mut out).and_then(|_| out.flush());
     match r {
         Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => Err(BrokenPipe.into()),
         Err(e) => Err(e.into()),

@@ -87,11 +87,17 @@ fn read_jobs(args: &Args) -> anyhow::Result<Vec<Job>> {
             "choose the structure column with --smiles-column",
         )?;
         let name_col = table.column("compound").or_else(|| table.column("name"));
+        jobs.reserve(table.rows.len());
         for row in table.rows {
             match row.cells {
-                Ok(cells) => jobs.push(Job {
-                    compound: name_col.and_then(|c| cells.get(c)).cloned(),
-                    smiles: Some(cells.get(col).cloned().unwrap_or_default()),
+                // the cells are moved out, not copied (unless one column is both)
+                Ok(mut cells) => jobs.push(Job {
+                    compound: match name_col {
+                        Some(c) if c == col => cells.get(c).cloned(),
+                        Some(c) => cells.get_mut(c).map(std::mem::take),
+                        None => None,
+                    },
+                    smiles: Some(cells.get_mut(col).map(std::mem::take).unwrap_or_default()),
                     read_error: None,
                 }),
                 Err(e) => jobs.push(Job {
@@ -144,14 +150,8 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let done: Vec<Row> = jobs
         .into_par_iter()
         .map(|j| {
-            let mut r = match &j.smiles {
-                Some(s) => Row::new(
-                    estimate_smiles(s),
-                    j.compound,
-                    j.smiles.clone(),
-                    &ps,
-                    &measured,
-                ),
+            let mut r = match j.smiles {
+                Some(s) => Row::new(estimate_smiles(&s), j.compound, Some(s), &ps, &measured),
                 None => Row::new(
                     Err(EstimateError::NoGroups),
                     j.compound,
@@ -192,10 +192,21 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
                 super::common::json_text(&rows)? + "\n"
             }
         }
-        Format::Csv => ebullio::table_io::estimates_csv(&rows, &ps)?,
+        // CSV is streamed (no text of the whole table; it writes no NaN or inf text itself)
+        Format::Csv => String::new(),
         Format::Table => ebullio::report::text::estimate::table(&rows),
     };
-    args.out.emit(&text, &inputs)?;
+    if args.out.format() == Format::Csv {
+        let write = |w: &mut dyn std::io::Write| {
+            ebullio::table_io::write_estimates_csv(w, &rows, &ps).map_err(csv_io)
+        };
+        match &args.out.output {
+            Some(p) => super::common::write_file_atomic(p, &inputs, write)?,
+            None => super::common::print_stdout_with(write)?,
+        }
+    } else {
+        args.out.emit(&text, &inputs)?;
+    }
     if let Some(path) = &args.report {
         let html = ebullio::report::estimate_section::estimate_report(
             &rows,
@@ -205,4 +216,12 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         super::common::write_report(path, &html, &inputs, args.out.output.as_deref())?;
     }
     Ok(Outcome::Success)
+}
+
+/// A CSV write error as the I/O error it wraps (so a closed pipe is still a closed pipe).
+fn csv_io(e: csv::Error) -> std::io::Error {
+    match e.into_kind() {
+        csv::ErrorKind::Io(e) => e,
+        other => std::io::Error::other(format!("{other:?}")),
+    }
 }

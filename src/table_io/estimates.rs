@@ -1,24 +1,28 @@
 //! Estimate rows as CSV: the columns `ebullio estimate --format csv` writes (and the demo's estimates.csv).
 
+use super::non_finite::without_non_finite;
 use crate::estimate::batch::EstimateRow;
 use crate::estimate::Estimate;
 
 use std::fmt::Write as _;
+use std::io::Write;
 
-/// Writes fields through one reused text buffer (no String per cell).
-struct Fields<'a> {
-    w: &'a mut csv::Writer<Vec<u8>>,
+/// Writes fields through one reused text buffer (no String per cell). Numbers that could not
+/// be computed are written empty, and text cells go through [`without_non_finite`], so the
+/// output never holds `NaN` or `inf` text and needs no cleaning pass afterwards.
+struct Fields<'a, W: Write> {
+    w: &'a mut csv::Writer<W>,
     buf: String,
 }
 
-impl Fields<'_> {
+impl<W: Write> Fields<'_, W> {
     fn text(&mut self, s: &str) -> Result<(), csv::Error> {
-        self.w.write_field(s)
+        self.w.write_field(without_non_finite(s, "").as_ref())
     }
 
     fn num(&mut self, v: Option<f64>, digits: usize) -> Result<(), csv::Error> {
         self.buf.clear();
-        if let Some(x) = v {
+        if let Some(x) = v.filter(|x| x.is_finite()) {
             let _ = write!(self.buf, "{x:.digits$}");
         }
         self.w.write_field(&self.buf)
@@ -30,7 +34,8 @@ impl Fields<'_> {
             let sep = if i == 0 { "" } else { ";" };
             let _ = write!(self.buf, "{sep}{k}={v}");
         }
-        self.w.write_field(&self.buf)
+        self.w
+            .write_field(without_non_finite(&self.buf, "").as_ref())
     }
 
     fn end(&mut self) -> Result<(), csv::Error> {
@@ -41,7 +46,23 @@ impl Fields<'_> {
 /// The rows as CSV text, one column `t_k_at_<p>_pa` per pressure in `ps` (Pa).
 pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Error> {
     // About 200 bytes a row: sized once so the buffer is not regrown and copied.
-    let mut w = csv::Writer::from_writer(Vec::with_capacity(1024 + 200 * rows.len()));
+    let mut bytes = Vec::with_capacity(1024 + 200 * rows.len());
+    write_estimates_csv(&mut bytes, rows, ps)?;
+    // Every field written was a &str, so the bytes are UTF-8; no lossy copy is needed.
+    Ok(String::from_utf8(bytes)
+        .unwrap_or_else(|e| String::from_utf8_lossy(e.as_bytes()).into_owned()))
+}
+
+/// The rows as CSV streamed into `out` (what [`estimates_csv`] returns as text), through the
+/// csv crate's buffer: no text of the whole table is built.
+pub fn write_estimates_csv(
+    out: impl Write,
+    rows: &[EstimateRow],
+    ps: &[f64],
+) -> Result<(), csv::Error> {
+    let mut w = csv::WriterBuilder::new()
+        .buffer_capacity(64 * 1024)
+        .from_writer(out);
     let mut head: Vec<String> = [
         "compound",
         "smiles",
@@ -119,10 +140,6 @@ pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Er
         f.text(&r.error)?;
         f.end()?;
     }
-    let bytes = w
-        .into_inner()
-        .map_err(|e| csv::Error::from(e.into_error()))?;
-    // Every field written was a &str, so the bytes are UTF-8; no lossy copy is needed.
-    Ok(String::from_utf8(bytes)
-        .unwrap_or_else(|e| String::from_utf8_lossy(e.as_bytes()).into_owned()))
+    w.flush()?;
+    Ok(())
 }

@@ -17,6 +17,7 @@ pub mod frame;
 pub mod headings;
 pub mod json;
 pub mod measured;
+pub mod non_finite;
 #[cfg(feature = "tables")]
 pub mod parquet;
 #[cfg(feature = "tables")]
@@ -26,7 +27,7 @@ pub mod text_table;
 
 pub use atomic::{write_atomic, write_atomic_with, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
-pub use estimates::estimates_csv;
+pub use estimates::{estimates_csv, write_estimates_csv};
 pub use fit_batch::{fit_batch, none_fitted, FitCheckOptions, FitRow};
 pub use fit_file::{is_binary_fit, pick_fit, read_binary_fit, read_fit_reports};
 pub use json::json_text;
@@ -34,4 +35,5 @@ pub use measured::{
     fit_set, read_measured, read_measured_bytes, MeasuredData, MeasuredPoint, MeasuredSet,
     ReadOptions, ReadWarning,
 };
+pub use non_finite::without_non_finite;
 pub use text_table::{read_text_table, read_text_table_with, TextRow, TextTable};
