@@ -391,7 +391,7 @@ const MAX_TYPED_DIGITS: usize = 17;
 /// Every value one typing slip away from `x` as written: the decimal point
 /// moved (or dropped), two adjacent digits swapped, one digit removed, one
 /// digit inserted. Sign kept;
-/// `x` itself excluded. None for a number longer than [`MAX_TYPED_DIGITS`].
+/// `x` itself excluded. None for a number longer than 17 digits (`MAX_TYPED_DIGITS`).
 pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
     let s = written(x);
     if !x.is_finite() || s.contains('e') {
