@@ -9,6 +9,7 @@ reference-data/normal-boiling-points-dev.csv; about 1 row in 50 carries a
 planted slip so the slow path (diagnosis) is exercised too.
 
 usage: gen_check_table.py ROWS OUT.csv [--smiles]
+       gen_check_table.py ROWS OUT.parquet [--smiles]   (needs polars: bench/out/venv)
 """
 import csv
 import math
@@ -19,6 +20,19 @@ def main():
     n = int(sys.argv[1])
     out = sys.argv[2]
     with_smiles = "--smiles" in sys.argv
+    if out.endswith(".parquet"):
+        # written as CSV, then converted by polars in a streaming pass (bounded memory)
+        import os
+        import polars as pl
+        tmp = out + ".csv"
+        write_csv(n, tmp, with_smiles)
+        pl.scan_csv(tmp).sink_parquet(out)
+        os.remove(tmp)
+        return
+    write_csv(n, out, with_smiles)
+
+
+def write_csv(n, out, with_smiles):
     rng = random.Random(20261202)
     here = __file__.rsplit("/", 2)[0]
     base = []

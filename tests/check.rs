@@ -449,3 +449,86 @@ fn parquet_in_and_out_gives_the_csv_findings() {
         assert_eq!(flags.get(i).unwrap_or(""), &r[f], "row {i} ({})", &r[0]);
     }
 }
+
+/// The planted table three times over, plus n-alkane rows with SMILES whose
+/// boiling points scatter (so `structure-outlier` has a median and MAD), and
+/// a duplicate by CAS at the end of the file of a row near its start.
+fn batched_table() -> String {
+    let mut t = PLANTED.to_string();
+    let body: String = PLANTED.lines().skip(1).map(|l| format!("{l}\n")).collect();
+    t.push_str(&body);
+    t.push_str(&body);
+    // n-hexane and n-heptane, Tb 341.9 and 371.6 K (Smith, Van Ness & Abbott
+    // App. B Table B.2), listed with invented scatter; the last one far off
+    for i in 0..12 {
+        let (s, tb) = if i % 2 == 0 {
+            ("CCCCCC", 341.9)
+        } else {
+            ("CCCCCCC", 371.6)
+        };
+        let tb = tb + (i % 5) as f64 * 0.7 + if i == 11 { 60.0 } else { 0.0 };
+        t.push_str(&format!("lot {i},,{s},{tb:.2},,,,,,,,,Harrow,scatter\n"));
+    }
+    t.push_str("late water,7732-18-5,,380.0,,,,,,,,,Harrow,duplicate of line 7 by CAS\n");
+    t
+}
+
+// Screening in batches gives the whole-table output, byte for byte, however
+// small the batches: the table-wide checks (duplicates by CAS, name and
+// structure, some split across batches; robust outlier scores) see every
+// row. The whole-table path (`--report`, which reads the table whole)
+// gives the same file.
+#[test]
+fn batch_size_does_not_change_the_output() {
+    let dir = scratch();
+    let input = dir.path().join("sheet.csv");
+    std::fs::write(&input, batched_table()).unwrap();
+    let run = |extra: &[&str], out: &str| {
+        let out = dir.path().join(out);
+        let o = ebullio()
+            .arg("check")
+            .arg(&input)
+            .args(extra)
+            .arg("-o")
+            .arg(&out)
+            .output()
+            .unwrap();
+        assert_eq!(
+            o.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&o.stderr)
+        );
+        (std::fs::read(&out).unwrap(), o.stderr)
+    };
+    let report = dir.path().join("r.html");
+    let whole = run(&["--report", report.to_str().unwrap()], "whole.csv");
+    let text = String::from_utf8_lossy(&whole.0).into_owned();
+    assert!(text.contains("structure-outlier"), "{text}");
+    assert!(text.contains("also on line 7 with"), "{text}");
+    assert!(String::from_utf8_lossy(&whole.1).contains("duplicate-disagrees"));
+    for n in ["1", "2", "7", "29", "1000"] {
+        let got = run(&["--batch-rows", n], &format!("b{n}.csv"));
+        assert!(got.0 == whole.0, "--batch-rows {n}: the CSV differs");
+        assert_eq!(
+            String::from_utf8_lossy(&got.1),
+            String::from_utf8_lossy(&whole.1),
+            "--batch-rows {n}: the summary differs"
+        );
+    }
+    let json = |n: &str| {
+        let o = ebullio()
+            .arg("check")
+            .arg(&input)
+            .args(["--format", "json", "--batch-rows", n])
+            .output()
+            .unwrap();
+        String::from_utf8_lossy(&o.stdout).into_owned()
+    };
+    assert_eq!(json("3"), json("100000"));
+    assert!(!std::fs::read_dir(dir.path()).unwrap().any(|e| e
+        .unwrap()
+        .file_name()
+        .to_string_lossy()
+        .ends_with(".tmp")));
+}

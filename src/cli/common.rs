@@ -191,6 +191,91 @@ pub fn exit_code(r: anyhow::Result<Outcome>) -> ExitCode {
 
 /// Set once the output file has been written; held while it is being written.
 static OUTPUT_WRITTEN: std::sync::Mutex<bool> = std::sync::Mutex::new(false);
+/// Files and folders an interrupt removes (scratch files, an output being written).
+static CLEANUP: std::sync::Mutex<Vec<PathBuf>> = std::sync::Mutex::new(Vec::new());
+
+/// Have an interrupt remove `path` (a file or a folder) before it ends the run.
+fn remove_on_interrupt(path: PathBuf) {
+    CLEANUP.lock().unwrap_or_else(|e| e.into_inner()).push(path);
+}
+
+/// A scratch folder in the system's temporary folder, removed when dropped
+/// and by an interrupt.
+pub struct ScratchDir(PathBuf);
+
+impl ScratchDir {
+    /// A new empty folder named after `what` and this process.
+    #[allow(dead_code)] // used by check
+    pub fn new(what: &str) -> anyhow::Result<Self> {
+        let p = std::env::temp_dir().join(format!("ebullio-{what}-{}", std::process::id()));
+        std::fs::create_dir_all(&p)
+            .with_context(|| format!("creating the scratch folder {}", p.display()))?;
+        remove_on_interrupt(p.clone());
+        Ok(ScratchDir(p))
+    }
+
+    /// The folder.
+    pub fn path(&self) -> &Path {
+        &self.0
+    }
+}
+
+impl Drop for ScratchDir {
+    fn drop(&mut self) {
+        let _ = std::fs::remove_dir_all(&self.0);
+    }
+}
+
+/// Like [`write_file_atomic`], for output written while the batch runs: an
+/// interrupt during the writing removes the temporary file and ends the run
+/// (exit 130, no output); only the rename is waited for.
+#[allow(dead_code)] // used by check
+pub fn write_file_atomic_streamed(
+    path: &Path,
+    inputs: &[&Path],
+    write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
+) -> anyhow::Result<()> {
+    remove_on_interrupt(ebullio::table_io::atomic::temp_path_for(path));
+    let mut written =
+        ebullio::table_io::atomic::write_atomic_with_hook(path, inputs, write, || {
+            OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner())
+        })
+        .with_context(|| format!("writing {}", path.display()))?;
+    *written = true;
+    Ok(())
+}
+
+/// Run `f` on a buffered stdout; a reader that closed it gives [`BrokenPipe`].
+#[allow(dead_code)] // used by check
+pub fn to_stdout<T>(f: impl FnOnce(&mut dyn Write) -> T) -> anyhow::Result<T> {
+    struct Watch<W> {
+        inner: W,
+        broken: bool,
+    }
+    impl<W: Write> Write for Watch<W> {
+        fn write(&mut self, b: &[u8]) -> std::io::Result<usize> {
+            let r = self.inner.write(b);
+            self.broken |= matches!(&r, Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe);
+            r
+        }
+        fn flush(&mut self) -> std::io::Result<()> {
+            let r = self.inner.flush();
+            self.broken |= matches!(&r, Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe);
+            r
+        }
+    }
+    let mut w = Watch {
+        inner: std::io::BufWriter::with_capacity(1 << 20, std::io::stdout().lock()),
+        broken: false,
+    };
+    let t = f(&mut w);
+    let r = w.flush();
+    if w.broken {
+        return Err(BrokenPipe.into());
+    }
+    r?;
+    Ok(t)
+}
 /// Items finished in the running batch, for the interrupt message.
 static BATCH_DONE: AtomicU64 = AtomicU64::new(0);
 /// Items in the running batch (0 when no batch has started).
@@ -206,6 +291,9 @@ pub fn install_interrupt_handler() {
         let written = OUTPUT_WRITTEN.lock().unwrap_or_else(|e| e.into_inner());
         if *written {
             return;
+        }
+        for p in CLEANUP.lock().unwrap_or_else(|e| e.into_inner()).iter() {
+            let _ = std::fs::remove_dir_all(p).or_else(|_| std::fs::remove_file(p));
         }
         let done = BATCH_DONE.load(Ordering::Relaxed);
         let total = BATCH_TOTAL.load(Ordering::Relaxed);

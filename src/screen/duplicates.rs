@@ -195,29 +195,36 @@ pub fn check_duplicates(keys: &[DupKey<'_>], tol_k: f64) -> Vec<(usize, Finding)
             continue;
         };
         for &i in &with_tb {
-            let v = keys[i].tb_k;
-            let far = if (keys[hi].tb_k - v).abs() >= (v - keys[lo].tb_k).abs() {
-                hi
-            } else {
-                lo
-            };
-            let d = (keys[far].tb_k - v).abs();
-            if d > tol_k {
-                out.push((
-                    i,
-                    Finding::new(
-                        CheckCode::DuplicateDisagrees,
-                        format!(
-                            "The same compound is also on line {} with a boiling point {d:.1} K different ({:.1} K there, {v:.1} K here).",
-                            keys[far].line, keys[far].tb_k
-                        ),
-                    ),
-                ));
+            let lo = (keys[lo].tb_k, keys[lo].line);
+            let hi = (keys[hi].tb_k, keys[hi].line);
+            if let Some(f) = disagreement(keys[i].tb_k, lo, hi, tol_k) {
+                out.push((i, f));
             }
         }
     }
     out.sort_by_key(|(i, _)| *i);
     out
+}
+
+/// The `duplicate-disagrees` finding of a row with boiling point `v` in a
+/// group whose lowest and highest boiling points are `lo` and `hi` ((K,
+/// line)): against the farther of the two, if more than `tol_k` away.
+pub fn disagreement(v: f64, lo: (f64, usize), hi: (f64, usize), tol_k: f64) -> Option<Finding> {
+    let far = if (hi.0 - v).abs() >= (v - lo.0).abs() {
+        hi
+    } else {
+        lo
+    };
+    let d = (far.0 - v).abs();
+    (d > tol_k).then(|| {
+        Finding::new(
+            CheckCode::DuplicateDisagrees,
+            format!(
+                "The same compound is also on line {} with a boiling point {d:.1} K different ({:.1} K there, {v:.1} K here).",
+                far.1, far.0
+            ),
+        )
+    })
 }
 
 #[cfg(test)]

@@ -42,11 +42,12 @@ mod report;
 mod row;
 pub mod slip;
 pub mod sources;
+pub mod stream;
 pub mod structure;
 
 pub use bundled::BundledReference;
 pub use finding::{CheckCode, Finding, Severity};
-pub use report::{ScreenReport, Summary, WorstRow};
+pub use report::{ScreenReport, Summary, SummaryBuilder, WorstRow};
 pub use row::{row_label, AntoineCell, RowInput};
 pub use sources::{
     Chain, Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
@@ -160,6 +161,17 @@ impl Drop for Tally<'_> {
     }
 }
 
+/// Structure outcomes by SMILES (trimmed), as the row checks look them up.
+trait Estimates: Sync {
+    fn outcome(&self, smiles: &str) -> Option<&StructureOutcome>;
+}
+
+impl Estimates for FastMap<&str, StructureOutcome> {
+    fn outcome(&self, smiles: &str) -> Option<&StructureOutcome> {
+        self.get(smiles)
+    }
+}
+
 /// Estimate every distinct SMILES once, in parallel.
 fn estimate_all<'r>(
     rows: &'r dyn Rows,
@@ -182,11 +194,11 @@ fn estimate_all<'r>(
 }
 
 /// All row-level checks of row `i`.
-fn check_row<'r>(
+fn check_row<'r, E: Estimates + ?Sized>(
     rows: &'r dyn Rows,
     i: usize,
     implied_tb_k: Option<&[f64]>,
-    estimates: &'r FastMap<&'r str, StructureOutcome>,
+    estimates: &'r E,
     ctx: &ScreenContext<'_>,
 ) -> (Vec<Finding>, Facts<'r>) {
     let tol = ctx.options.tolerance_k;
@@ -231,7 +243,7 @@ fn check_row<'r>(
     let mut residual = f64::NAN;
     let mut structure_key = None;
     if let Some(s) = row.smiles.map(str::trim).filter(|s| !s.is_empty()) {
-        if let Some(o) = estimates.get(s) {
+        if let Some(o) = estimates.outcome(s) {
             structure_key = o.structure_key();
             if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {
                 residual = r;

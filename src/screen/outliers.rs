@@ -25,6 +25,21 @@ fn median(v: &mut [f64]) -> f64 {
     }
 }
 
+/// The median and MAD of `finite` (finite residuals, reordered here);
+/// `None` when there are fewer than [`MIN_ROWS`] or their MAD is zero.
+pub fn robust_scale(finite: &mut [f64]) -> Option<(f64, f64)> {
+    if finite.len() < MIN_ROWS {
+        return None;
+    }
+    let med = median(finite);
+    finite.iter_mut().for_each(|r| *r = (*r - med).abs());
+    let mad = median(finite);
+    if mad <= 0.0 || mad.is_nan() {
+        return None;
+    }
+    Some((med, mad))
+}
+
 /// Modified z-scores for `residuals` (NaN for missing); `None` when fewer
 /// than [`MIN_ROWS`] residuals exist or their MAD is zero.
 pub fn robust_z(residuals: &[f64]) -> Option<(Vec<f64>, f64, f64)> {
@@ -33,15 +48,7 @@ pub fn robust_z(residuals: &[f64]) -> Option<(Vec<f64>, f64, f64)> {
         .copied()
         .filter(|r| r.is_finite())
         .collect();
-    if finite.len() < MIN_ROWS {
-        return None;
-    }
-    let med = median(&mut finite);
-    let mut dev: Vec<f64> = finite.iter().map(|r| (r - med).abs()).collect();
-    let mad = median(&mut dev);
-    if mad <= 0.0 || mad.is_nan() {
-        return None;
-    }
+    let (med, mad) = robust_scale(&mut finite)?;
     Some((
         residuals.iter().map(|r| 0.6745 * (r - med) / mad).collect(),
         med,
@@ -49,26 +56,34 @@ pub fn robust_z(residuals: &[f64]) -> Option<(Vec<f64>, f64, f64)> {
     ))
 }
 
+/// The `structure-outlier` finding of one residual against the table's
+/// median and MAD, if its |z| exceeds [`Z_LIMIT`].
+pub fn outlier(residual: f64, med: f64, mad: f64) -> Option<Finding> {
+    let z = 0.6745 * (residual - med) / mad;
+    (z.abs() > Z_LIMIT).then(|| {
+        Finding::new(
+            CheckCode::StructureOutlier,
+            format!(
+                "Against the structure estimate this row's residual of {residual:+.1} K is an outlier in the table (robust z = {z:.1}; median {med:+.1} K, MAD {mad:.1} K)."
+            ),
+        )
+    })
+}
+
 /// `structure-outlier` findings per row index for residuals (Tb − estimate).
 pub fn check_outliers(residuals: &[f64]) -> Vec<(usize, Finding)> {
-    let Some((z, med, mad)) = robust_z(residuals) else {
+    let mut finite: Vec<f64> = residuals
+        .iter()
+        .copied()
+        .filter(|r| r.is_finite())
+        .collect();
+    let Some((med, mad)) = robust_scale(&mut finite) else {
         return Vec::new();
     };
-    z.iter()
+    residuals
+        .iter()
         .enumerate()
-        .filter(|(_, z)| z.abs() > Z_LIMIT)
-        .map(|(i, z)| {
-            (
-                i,
-                Finding::new(
-                    CheckCode::StructureOutlier,
-                    format!(
-                        "Against the structure estimate this row's residual of {:+.1} K is an outlier in the table (robust z = {z:.1}; median {med:+.1} K, MAD {mad:.1} K).",
-                        residuals[i]
-                    ),
-                ),
-            )
-        })
+        .filter_map(|(i, &r)| outlier(r, med, mad).map(|f| (i, f)))
         .collect()
 }
 

@@ -4,6 +4,7 @@ use super::finding::{CheckCode, Finding, Severity};
 use super::row::row_label;
 use super::Rows;
 use serde::Serialize;
+use std::cmp::Reverse;
 use std::fmt;
 
 /// Findings for every row of a screened table, in row order.
@@ -114,48 +115,89 @@ impl ScreenReport {
     /// A summary: counts per finding and the `n_worst` worst rows (most
     /// severe first, then most findings, then file order).
     pub fn summary(&self, rows: &dyn Rows, n_worst: usize) -> Summary {
-        let mut flagged: Vec<usize> = (0..self.len())
-            .filter(|&i| !self.findings(i).is_empty())
-            .collect();
-        let mut by_severity = [0usize; 3];
-        for &i in &flagged {
-            if let Some(s) = self.severity(i) {
-                by_severity[s as usize] += 1;
-            }
+        let mut b = SummaryBuilder::new(n_worst);
+        b.add(self, rows, 0);
+        b.finish()
+    }
+}
+
+/// A [`Summary`] built batch by batch (a table screened in batches), the
+/// same as [`ScreenReport::summary`] on the whole table.
+#[derive(Debug, Clone)]
+pub struct SummaryBuilder {
+    n_worst: usize,
+    rows: usize,
+    by_severity: [usize; 3],
+    counts: Vec<usize>,
+    /// (severity, findings, row in the table, the row): the worst so far, in order.
+    worst: Vec<(Severity, usize, usize, WorstRow)>,
+}
+
+impl SummaryBuilder {
+    /// Nothing seen yet; `n_worst` rows will be listed.
+    pub fn new(n_worst: usize) -> Self {
+        SummaryBuilder {
+            n_worst,
+            rows: 0,
+            by_severity: [0; 3],
+            counts: vec![0; CheckCode::ALL.len()],
+            worst: Vec::new(),
         }
-        flagged.sort_by(|&a, &b| {
-            self.severity(b)
-                .cmp(&self.severity(a))
-                .then(self.findings(b).len().cmp(&self.findings(a).len()))
-                .then(a.cmp(&b))
-        });
-        let worst = flagged
-            .iter()
-            .take(n_worst)
-            .map(|&i| WorstRow {
-                line: self.lines.get(i).copied().unwrap_or(i + 2),
+    }
+
+    /// Add one batch: `report` of `rows`, whose first row is row `first_row` of the table.
+    pub fn add(&mut self, report: &ScreenReport, rows: &dyn Rows, first_row: usize) {
+        self.rows += report.len();
+        for (i, f) in report.findings.iter().enumerate() {
+            let Some(sev) = f.iter().map(|x| x.severity).max() else {
+                continue;
+            };
+            self.by_severity[sev as usize] += 1;
+            for x in f {
+                if let Some(k) = CheckCode::ALL.iter().position(|c| *c == x.code) {
+                    self.counts[k] += 1;
+                }
+            }
+            // most severe first, then most findings, then file order
+            let rank = |s: Severity, n: usize, at: usize| (Reverse(s), Reverse(n), at);
+            let me = rank(sev, f.len(), first_row + i);
+            if self.worst.len() == self.n_worst
+                && self.worst.last().is_none_or(|w| rank(w.0, w.1, w.2) < me)
+            {
+                continue;
+            }
+            let at = self.worst.partition_point(|w| rank(w.0, w.1, w.2) < me);
+            let row = WorstRow {
+                line: report.lines.get(i).copied().unwrap_or(first_row + i + 2),
                 label: row_label(&rows.row(i)),
-                severity: self.severity(i).unwrap_or(Severity::Info),
-                flags: self.flags(i),
-                diagnosis: self.diagnosis(i),
-            })
-            .collect();
+                severity: sev,
+                flags: report.flags(i),
+                diagnosis: report.diagnosis(i),
+            };
+            self.worst.insert(at, (sev, f.len(), first_row + i, row));
+            self.worst.truncate(self.n_worst);
+        }
+    }
+
+    /// The summary of every row added.
+    pub fn finish(self) -> Summary {
         Summary {
-            rows: self.len(),
-            rows_flagged: flagged.len(),
-            errors: by_severity[Severity::Error as usize],
-            warnings: by_severity[Severity::Warning as usize],
-            infos: by_severity[Severity::Info as usize],
-            counts: self
-                .counts()
-                .into_iter()
+            rows: self.rows,
+            rows_flagged: self.by_severity.iter().sum(),
+            errors: self.by_severity[Severity::Error as usize],
+            warnings: self.by_severity[Severity::Warning as usize],
+            infos: self.by_severity[Severity::Info as usize],
+            counts: CheckCode::ALL
+                .iter()
+                .zip(self.counts)
+                .filter(|(_, k)| *k > 0)
                 .map(|(c, n)| CodeCount {
                     code: c.as_str(),
                     severity: c.severity(),
                     rows: n,
                 })
                 .collect(),
-            worst,
+            worst: self.worst.into_iter().map(|w| w.3).collect(),
         }
     }
 }

@@ -59,6 +59,32 @@ pub fn write_atomic_with(
     inputs: &[&Path],
     write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
 ) -> Result<(), OutputError> {
+    write_atomic_with_hook(path, inputs, write, || ())
+}
+
+/// The temporary file [`write_atomic_with`] writes before renaming it to `path`.
+pub fn temp_path_for(path: &Path) -> PathBuf {
+    let dir = match path.parent() {
+        Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
+        _ => PathBuf::from("."),
+    };
+    let name = path
+        .file_name()
+        .map(|n| n.to_string_lossy().into_owned())
+        .unwrap_or_else(|| "output".into());
+    dir.join(format!(".{name}.{}.tmp", std::process::id()))
+}
+
+/// Like [`write_atomic_with`]; `before_rename` runs once the content is
+/// written and synced, just before the rename, and what it returns (say a
+/// lock that keeps an interrupt from stopping the rename half-way) is
+/// handed back after the rename.
+pub fn write_atomic_with_hook<G>(
+    path: &Path,
+    inputs: &[&Path],
+    write: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
+    before_rename: impl FnOnce() -> G,
+) -> Result<G, OutputError> {
     if inputs.iter().any(|i| same_file(i, path)) {
         return Err(OutputError::WouldOverwriteInput {
             path: path.to_path_buf(),
@@ -73,27 +99,22 @@ pub fn write_atomic_with(
         path: path.to_path_buf(),
         source,
     };
-    let dir = match path.parent() {
-        Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
-        _ => PathBuf::from("."),
-    };
-    let name = path
-        .file_name()
-        .map(|n| n.to_string_lossy().into_owned())
-        .unwrap_or_else(|| "output".into());
-    let tmp = dir.join(format!(".{name}.{}.tmp", std::process::id()));
+    let tmp = temp_path_for(path);
     let result = (|| {
         let mut f = std::io::BufWriter::with_capacity(1 << 20, std::fs::File::create(&tmp)?);
         write(&mut f)?;
         let f = f.into_inner().map_err(|e| e.into_error())?;
         f.sync_data()?;
-        std::fs::rename(&tmp, path)
+        let guard = before_rename();
+        std::fs::rename(&tmp, path).map(|_| guard)
     })();
-    if let Err(e) = result {
-        let _ = std::fs::remove_file(&tmp);
-        return Err(io(e));
+    match result {
+        Ok(g) => Ok(g),
+        Err(e) => {
+            let _ = std::fs::remove_file(&tmp);
+            Err(io(e))
+        }
     }
-    Ok(())
 }
 
 #[cfg(test)]

@@ -8,6 +8,8 @@
 
 pub mod atomic;
 pub mod binary;
+#[cfg(feature = "tables")]
+pub mod check_stream;
 pub mod error;
 pub mod estimates;
 pub mod fit_batch;
@@ -23,6 +25,8 @@ pub mod parquet;
 #[cfg(feature = "tables")]
 pub mod property_table;
 pub mod source;
+#[cfg(feature = "tables")]
+pub mod table_batches;
 pub mod text_table;
 
 pub use atomic::{write_atomic, write_atomic_with, OutputError};

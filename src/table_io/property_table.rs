@@ -116,7 +116,7 @@ struct NumColumn {
 /// A numeric column read, with the unit it was in.
 type NumRead = Result<(NumColumn, Option<String>), TableError>;
 
-#[derive(Clone, Copy)]
+#[derive(Debug, Clone, Copy)]
 enum Kind {
     Temperature,
     Pressure,
@@ -130,31 +130,83 @@ fn text_of(col: &Column) -> Option<StringChunked> {
     }
 }
 
-/// Read a numeric column. Returns values in the column's unit converted by
-/// `to_si` (temperatures to K, pressures to Pa); `unit` is the heading unit.
-fn read_numeric(
+/// What one read of a text number column found besides its values.
+#[derive(Debug, Clone, Default)]
+struct CellStats {
+    /// Cells read as numbers.
+    good: usize,
+    /// The first unreadable cell: (line, text).
+    first_bad: Option<(usize, String)>,
+    /// Units written in cells, each with the first line it is on.
+    cell_units: Vec<(String, usize)>,
+}
+
+/// Whether a numeric column's unit is settled by its heading or its cells.
+fn resolve_unit(
+    path: &Path,
+    heading: &str,
+    unit: Option<&str>,
+    cell_units: &[(String, usize)],
+) -> Result<Option<String>, TableError> {
+    match (unit, cell_units.len()) {
+        (_, 0) => Ok(unit.map(str::to_string)),
+        (None, 1) => Ok(Some(cell_units[0].0.clone())),
+        (h, _) => {
+            let mut all: Vec<String> = h.map(|u| format!("{u} (heading)")).into_iter().collect();
+            all.extend(cell_units.iter().map(|(u, l)| format!("{u} (line {l})")));
+            Err(ReadError::file(
+                path,
+                ReadErrorKind::HeadingUnit,
+                format!(
+                    "mixes units ({}); give one unit per column, e.g. in the heading 'Tb/K'",
+                    all.join(", ")
+                ),
+            )
+            .at_heading(heading))
+        }
+    }
+}
+
+fn no_number_error(path: &Path, heading: &str, kind: Kind, line: usize, value: &str) -> TableError {
+    let expected = match kind {
+        Kind::Temperature => "temperatures (numbers)",
+        Kind::Pressure => "pressures (numbers)",
+        Kind::Plain => "numbers",
+    };
+    ReadError::file(
+        path,
+        ReadErrorKind::NotANumber,
+        format!("should hold {expected}, but holds '{value}' and no cell in it is {expected}"),
+    )
+    .at_line(line as u64, Locus::Line)
+    .at_heading(heading)
+}
+
+/// Unreadable cells reported per column; later ones are read as missing
+/// without a message of their own (keeps a hostile table's report bounded).
+const BAD_CELLS_REPORTED: usize = 1000;
+
+/// The raw numbers of a column (NaN where empty or unreadable), the
+/// unreadable cells (row, message) after `reported` earlier ones, and what
+/// was found. `Err` for a column that is neither numbers nor text.
+fn read_raw(
     path: &Path,
     heading: &str,
     col: &Column,
     kind: Kind,
-    unit: Option<&str>,
     line0: usize,
-) -> Result<(NumColumn, Option<String>), TableError> {
+    reported: usize,
+) -> Result<(Vec<f64>, Vec<(usize, String)>, CellStats), TableError> {
     let n = col.len();
+    let mut stats = CellStats::default();
     if col.dtype().is_primitive_numeric() {
         let s = col
             .cast(&DataType::Float64)
             .map_err(|e| read_err(path, e))?;
         let ca = s.f64().map_err(|e| read_err(path, e))?;
         let raw: Vec<f64> = ca.iter().map(|v| v.unwrap_or(f64::NAN)).collect();
-        let (values, unit) = convert(path, heading, raw, kind, unit)?;
-        return Ok((
-            NumColumn {
-                values,
-                bad: vec![],
-            },
-            unit,
-        ));
+        stats.good = raw.iter().filter(|v| v.is_finite()).count().max(1);
+        return Ok((raw, vec![], stats));
     }
     let Some(ca) = text_of(col) else {
         return Err(ReadError::file(
@@ -169,8 +221,6 @@ fn read_numeric(
     };
     let mut raw = Vec::with_capacity(n);
     let mut bad = Vec::new();
-    let mut cell_units: Vec<(String, usize)> = Vec::new();
-    let mut good = 0usize;
     for (i, v) in ca.iter().enumerate() {
         let Some(v) = v.map(str::trim).filter(|v| !v.is_empty()) else {
             raw.push(f64::NAN);
@@ -179,7 +229,7 @@ fn read_numeric(
         if let Ok(x) = v.parse::<f64>() {
             if x.is_finite() {
                 raw.push(x);
-                good += 1;
+                stats.good += 1;
                 continue;
             }
         }
@@ -195,56 +245,43 @@ fn read_numeric(
         match split {
             Some((num, u)) if !u.is_empty() && unit_ok(u) && num.parse::<f64>().is_ok() => {
                 let x: f64 = num.parse().unwrap_or(f64::NAN);
-                if !cell_units.iter().any(|(x, _)| x == u) {
-                    cell_units.push((u.to_string(), i + line0));
+                if !stats.cell_units.iter().any(|(x, _)| x == u) {
+                    stats.cell_units.push((u.to_string(), i + line0));
                 }
                 raw.push(x);
-                good += 1;
+                stats.good += 1;
             }
             _ => {
-                if bad.is_empty() || bad.len() < 1000 {
+                if stats.first_bad.is_none() {
+                    stats.first_bad = Some((i + line0, v.to_string()));
+                }
+                if reported + bad.len() < BAD_CELLS_REPORTED {
                     bad.push((i, format!("'{v}' is not a number")));
                 }
                 raw.push(f64::NAN);
             }
         }
     }
-    if good == 0 {
-        if let Some((i, _)) = bad.first() {
-            let value = ca.get(*i).unwrap_or("").to_string();
-            let expected = match kind {
-                Kind::Temperature => "temperatures (numbers)",
-                Kind::Pressure => "pressures (numbers)",
-                Kind::Plain => "numbers",
-            };
-            return Err(ReadError::file(
-                path,
-                ReadErrorKind::NotANumber,
-                format!(
-                    "should hold {expected}, but holds '{value}' and no cell in it is {expected}"
-                ),
-            )
-            .at_line((i + line0) as u64, Locus::Line)
-            .at_heading(heading));
+    Ok((raw, bad, stats))
+}
+
+/// Read a numeric column whole. Returns values in the column's unit converted by
+/// `to_si` (temperatures to K, pressures to Pa); `unit` is the heading unit.
+fn read_numeric(
+    path: &Path,
+    heading: &str,
+    col: &Column,
+    kind: Kind,
+    unit: Option<&str>,
+    line0: usize,
+) -> Result<(NumColumn, Option<String>), TableError> {
+    let (raw, bad, stats) = read_raw(path, heading, col, kind, line0, 0)?;
+    if stats.good == 0 {
+        if let Some((line, value)) = &stats.first_bad {
+            return Err(no_number_error(path, heading, kind, *line, value));
         }
     }
-    let unit = match (unit, cell_units.len()) {
-        (_, 0) => unit.map(str::to_string),
-        (None, 1) => Some(cell_units[0].0.clone()),
-        (h, _) => {
-            let mut all: Vec<String> = h.map(|u| format!("{u} (heading)")).into_iter().collect();
-            all.extend(cell_units.iter().map(|(u, l)| format!("{u} (line {l})")));
-            return Err(ReadError::file(
-                path,
-                ReadErrorKind::HeadingUnit,
-                format!(
-                    "mixes units ({}); give one unit per column, e.g. in the heading 'Tb/K'",
-                    all.join(", ")
-                ),
-            )
-            .at_heading(heading));
-        }
-    };
+    let unit = resolve_unit(path, heading, unit, &stats.cell_units)?;
     let (values, unit) = convert(path, heading, raw, kind, unit.as_deref())?;
     Ok((NumColumn { values, bad }, unit))
 }
@@ -295,6 +332,144 @@ fn missing_unit(path: &Path, heading: &str, example: &str) -> ReadError {
 
 fn columns_err(path: &Path, kind: ReadErrorKind, message: impl Into<String>) -> ReadError {
     ReadError::file(path, kind, message)
+}
+
+/// One numeric column of a table read in batches.
+#[derive(Debug, Clone)]
+struct ColScan {
+    heading: String,
+    kind: Kind,
+    heading_unit: Option<String>,
+    stats: CellStats,
+    /// Unreadable cells reported so far.
+    reported: usize,
+    /// The unit each batch so far was converted with (`None`: no batch yet).
+    used: Option<Option<String>>,
+    /// Whether batches were converted with different units.
+    changed: bool,
+    /// The unit settled by [`ColumnScan::finish`], used from then on.
+    fixed: Option<Option<String>>,
+}
+
+/// What reading a table batch by batch carries from one batch to the next:
+/// per numeric column the readable cells, the units written in cells, and
+/// how many unreadable cells were reported. A first pass over all batches
+/// then [`ColumnScan::finish`] gives the errors a whole-table read gives
+/// (no readable cell, mixed units, no unit) and settles each column's
+/// unit; a second pass reads with those units.
+#[derive(Debug, Clone, Default)]
+pub struct ColumnScan {
+    cols: HashMap<Role, ColScan>,
+}
+
+impl ColumnScan {
+    /// A scan before the first batch.
+    pub fn new() -> Self {
+        Self::default()
+    }
+
+    fn batch_column(
+        &mut self,
+        path: &Path,
+        role: Role,
+        kind: Kind,
+        heading: &str,
+        heading_unit: Option<&str>,
+        res: Result<(Vec<f64>, Vec<(usize, String)>, CellStats), TableError>,
+    ) -> NumRead {
+        let (raw, bad, st) = res?;
+        let c = self.cols.entry(role).or_insert_with(|| ColScan {
+            heading: heading.to_string(),
+            kind,
+            heading_unit: heading_unit.map(str::to_string),
+            stats: CellStats::default(),
+            reported: 0,
+            used: None,
+            changed: false,
+            fixed: None,
+        });
+        c.reported += bad.len();
+        let unit = match &c.fixed {
+            Some(u) => u.clone(),
+            None => {
+                c.stats.good += st.good;
+                if c.stats.first_bad.is_none() {
+                    c.stats.first_bad = st.first_bad;
+                }
+                for (u, l) in st.cell_units {
+                    if !c.stats.cell_units.iter().any(|(x, _)| *x == u) {
+                        c.stats.cell_units.push((u, l));
+                    }
+                }
+                // mixed units are reported by `finish`; until then the heading's
+                let u = resolve_unit(path, heading, heading_unit, &c.stats.cell_units)
+                    .unwrap_or_else(|_| heading_unit.map(str::to_string));
+                match &c.used {
+                    None => c.used = Some(u.clone()),
+                    Some(prev) if *prev != u => c.changed = true,
+                    Some(_) => {}
+                }
+                u
+            }
+        };
+        let values = match (kind, unit.as_deref()) {
+            // no unit yet: `finish` reports it, or a later batch's cells give it
+            (Kind::Pressure, None) => raw,
+            (_, u) => convert(path, heading, raw, kind, u)?.0,
+        };
+        Ok((NumColumn { values, bad }, unit))
+    }
+
+    /// After the first pass over every batch: the errors of the whole table
+    /// (in the order a whole-table read finds them), else settle each
+    /// column's unit for the second pass. Returns whether some batch of the
+    /// first pass was read with a unit other than the settled one (a unit
+    /// that only appears in a later batch's cells): the first pass must then
+    /// be run again.
+    pub fn finish(&mut self, path: &Path) -> Result<bool, TableError> {
+        let order = [
+            Role::Tb,
+            Role::A,
+            Role::B,
+            Role::C,
+            Role::Tmin,
+            Role::Tmax,
+            Role::Tc,
+            Role::Pc,
+        ];
+        let mut redo = false;
+        for r in order {
+            let Some(c) = self.cols.get_mut(&r) else {
+                continue;
+            };
+            if c.fixed.is_some() {
+                continue;
+            }
+            if c.stats.good == 0 {
+                if let Some((line, value)) = &c.stats.first_bad {
+                    return Err(no_number_error(path, &c.heading, c.kind, *line, value));
+                }
+            }
+            let u = resolve_unit(
+                path,
+                &c.heading,
+                c.heading_unit.as_deref(),
+                &c.stats.cell_units,
+            )?;
+            match (r, c.kind, &u) {
+                (Role::Tb, _, None) => return Err(missing_unit(path, &c.heading, "Tb/K")),
+                (Role::Tc, _, None) => return Err(missing_unit(path, &c.heading, "Tc/K")),
+                (_, Kind::Pressure, None) => return Err(missing_unit(path, &c.heading, "pc/bar")),
+                _ => {}
+            }
+            redo |= c.changed || c.used.as_ref().is_some_and(|x| *x != u);
+            c.fixed = Some(u);
+        }
+        for c in self.cols.values_mut() {
+            c.reported = 0;
+        }
+        Ok(redo)
+    }
 }
 
 /// A property table: the original frame plus its recognised columns in SI.
@@ -400,6 +575,30 @@ impl PropertyTable {
         line0: usize,
         opts: &PropertyReadOptions,
     ) -> Result<Self, TableError> {
+        Self::from_frame_in(frame, path, line0, opts, None)
+    }
+
+    /// Recognise the columns of one batch of a table read in batches:
+    /// `scan` carries the column-wide rules (one unit per column, some
+    /// readable cell, a bounded number of unreadable-cell messages) from
+    /// batch to batch; their errors come from [`ColumnScan::finish`].
+    pub fn from_batch(
+        frame: DataFrame,
+        path: &Path,
+        line0: usize,
+        opts: &PropertyReadOptions,
+        scan: &mut ColumnScan,
+    ) -> Result<Self, TableError> {
+        Self::from_frame_in(frame, path, line0, opts, Some(scan))
+    }
+
+    fn from_frame_in(
+        frame: DataFrame,
+        path: &Path,
+        line0: usize,
+        opts: &PropertyReadOptions,
+        mut scan: Option<&mut ColumnScan>,
+    ) -> Result<Self, TableError> {
         let n = frame.height();
         let mut roles: HashMap<Role, (String, Option<String>)> = HashMap::new();
         for c in frame.columns() {
@@ -466,14 +665,33 @@ impl PropertyTable {
             (Role::Tc, Kind::Temperature),
             (Role::Pc, Kind::Pressure),
         ];
-        let read: Vec<(Role, NumRead)> = numeric
-            .par_iter()
-            .filter_map(|&(r, k)| {
-                let (h, u) = roles.get(&r)?;
-                let c = frame.column(h).ok()?;
-                Some((r, read_numeric(path, h, c, k, u.as_deref(), line0)))
-            })
-            .collect();
+        let read: Vec<(Role, NumRead)> = match scan.as_deref_mut() {
+            None => numeric
+                .par_iter()
+                .filter_map(|&(r, k)| {
+                    let (h, u) = roles.get(&r)?;
+                    let c = frame.column(h).ok()?;
+                    Some((r, read_numeric(path, h, c, k, u.as_deref(), line0)))
+                })
+                .collect(),
+            Some(scan) => {
+                let raws: Vec<_> = numeric
+                    .par_iter()
+                    .filter_map(|&(r, k)| {
+                        let (h, _) = roles.get(&r)?;
+                        let c = frame.column(h).ok()?;
+                        let reported = scan.cols.get(&r).map_or(0, |s| s.reported);
+                        Some((r, k, read_raw(path, h, c, k, line0, reported)))
+                    })
+                    .collect();
+                let mut read = Vec::with_capacity(raws.len());
+                for (r, k, res) in raws {
+                    let (h, u) = &roles[&r];
+                    read.push((r, scan.batch_column(path, r, k, h, u.as_deref(), res)));
+                }
+                read
+            }
+        };
         let mut nums: HashMap<Role, (NumColumn, Option<String>)> = HashMap::new();
         for (r, res) in read {
             nums.insert(r, res?);
@@ -492,11 +710,13 @@ impl PropertyTable {
                 tb_unit = TemperatureUnit::parse(&u).unwrap_or(TemperatureUnit::Kelvin);
                 Some(c.values)
             }
+            Some((c, None)) if scan.is_some() => Some(c.values),
             Some((_, None)) => return Err(missing_unit(path, &roles[&Role::Tb].0, "Tb/K")),
             None => None,
         };
         let tc_k = match take(Role::Tc) {
             Some((c, Some(_))) => Some(c.values),
+            Some((c, None)) if scan.is_some() => Some(c.values),
             Some((_, None)) => return Err(missing_unit(path, &roles[&Role::Tc].0, "Tc/K")),
             None => None,
         };
@@ -785,6 +1005,86 @@ pub fn write_frame(
             .map_err(werr)?;
     }
     Ok(())
+}
+
+enum Sink<'w> {
+    Start(&'w mut dyn std::io::Write),
+    Csv(polars_io::csv::write::BatchedWriter<&'w mut dyn std::io::Write>),
+    Parquet(polars_io::parquet::write::BatchedWriter<&'w mut dyn std::io::Write>),
+    Gone,
+}
+
+/// Writes a checked table batch by batch, as CSV (one header) or Parquet:
+/// the same file [`write_table`] writes from the whole table.
+pub struct BatchWriter<'w> {
+    sink: Sink<'w>,
+    parquet: bool,
+    path: PathBuf,
+}
+
+impl<'w> BatchWriter<'w> {
+    /// Write to `w`; `path_for_errors` names the output in messages.
+    pub fn new(w: &'w mut dyn std::io::Write, parquet: bool, path_for_errors: &Path) -> Self {
+        BatchWriter {
+            sink: Sink::Start(w),
+            parquet,
+            path: path_for_errors.to_path_buf(),
+        }
+    }
+
+    fn werr(&self, e: PolarsError) -> TableError {
+        ReadError::file(
+            &self.path,
+            ReadErrorKind::Io,
+            format!("cannot write the table: {e}"),
+        )
+    }
+
+    /// Write the next batch with the added text columns. Refuses (before
+    /// writing anything of it) when an added column's name is taken.
+    pub fn write(
+        &mut self,
+        frame: &DataFrame,
+        added: Vec<(&str, Vec<String>)>,
+    ) -> Result<(), TableError> {
+        let mut df = with_added(frame, added, &self.path)?;
+        // the batched writers take frames whose columns are chunked alike
+        df.align_chunks_par();
+        if matches!(self.sink, Sink::Start(_)) {
+            if let Sink::Start(w) = std::mem::replace(&mut self.sink, Sink::Gone) {
+                self.sink = if self.parquet {
+                    Sink::Parquet(
+                        ParquetWriter::new(w)
+                            .batched(df.schema())
+                            .map_err(|e| self.werr(e))?,
+                    )
+                } else {
+                    Sink::Csv(
+                        CsvWriter::new(w)
+                            .include_header(true)
+                            .batched(df.schema())
+                            .map_err(|e| self.werr(e))?,
+                    )
+                };
+            }
+        }
+        let r = match &mut self.sink {
+            Sink::Csv(c) => c.write_batch(&df),
+            Sink::Parquet(p) => p.write_batch(&df),
+            _ => Ok(()),
+        };
+        r.map_err(|e| self.werr(e))
+    }
+
+    /// End the file (Parquet's footer).
+    pub fn finish(mut self) -> Result<(), TableError> {
+        let r = match &mut self.sink {
+            Sink::Csv(c) => c.finish(),
+            Sink::Parquet(p) => p.finish().map(|_| ()),
+            _ => Ok(()),
+        };
+        r.map_err(|e| self.werr(e))
+    }
 }
 
 #[cfg(test)]
