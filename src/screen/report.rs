@@ -42,15 +42,29 @@ impl ScreenReport {
 
     /// The `flags` column: codes of row `i`, `;`-separated (empty when clean).
     pub fn flags(&self, i: usize) -> String {
-        let f = self.findings(i);
         let mut s = String::new();
-        for (k, x) in f.iter().enumerate() {
+        self.write_flags(i, &mut s);
+        s
+    }
+
+    /// [`ScreenReport::flags`] of row `i` appended to `s` (no allocation of its own).
+    pub fn write_flags(&self, i: usize, s: &mut String) {
+        for (k, x) in self.findings(i).iter().enumerate() {
             if k > 0 {
                 s.push(';');
             }
             s.push_str(x.code.as_str());
         }
-        s
+    }
+
+    /// [`ScreenReport::diagnosis`] of row `i` appended to `s`.
+    pub fn write_diagnosis(&self, i: usize, s: &mut String) {
+        for (k, x) in self.findings(i).iter().enumerate() {
+            if k > 0 {
+                s.push(' ');
+            }
+            s.push_str(&x.message);
+        }
     }
 
     /// The worst severity of row `i`, if it has findings.
@@ -60,14 +74,8 @@ impl ScreenReport {
 
     /// The `diagnosis` column: the messages of row `i`, space-separated.
     pub fn diagnosis(&self, i: usize) -> String {
-        let f = self.findings(i);
         let mut s = String::new();
-        for (k, x) in f.iter().enumerate() {
-            if k > 0 {
-                s.push(' ');
-            }
-            s.push_str(&x.message);
-        }
+        self.write_diagnosis(i, &mut s);
         s
     }
 

@@ -415,7 +415,7 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
         }
         if let Ok(v) = buf.parse::<f64>() {
             let v = sign * v;
-            if v != x && !out.iter().any(|(w, _)| *w == v) {
+            if v != x {
                 out.push((v, kind));
             }
         }
@@ -451,6 +451,19 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
             d.remove(i);
         }
     }
+    // Each value once, with the first slip that gives it, in the order found
+    // (a sort, not a search per variant: about a hundred variants per number).
+    let mut order: Vec<usize> = (0..out.len()).collect();
+    order.sort_by(|&a, &b| out[a].0.total_cmp(&out[b].0).then(a.cmp(&b)));
+    let mut keep = vec![false; out.len()];
+    for (k, &i) in order.iter().enumerate() {
+        keep[i] = k == 0 || out[order[k - 1]].0 != out[i].0;
+    }
+    let mut k = 0;
+    out.retain(|_| {
+        k += 1;
+        keep[k - 1]
+    });
     out
 }
 

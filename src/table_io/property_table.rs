@@ -961,8 +961,23 @@ pub fn with_added(
     added: Vec<(&str, Vec<String>)>,
     path_for_errors: &Path,
 ) -> Result<DataFrame, TableError> {
+    let added = added
+        .into_iter()
+        .map(|(name, values)| Column::new(name.into(), values))
+        .collect();
+    with_added_columns(frame, added, path_for_errors)
+}
+
+/// The frame with the added columns (named); an error when a name is taken.
+pub fn with_added_columns(
+    frame: &DataFrame,
+    added: Vec<Column>,
+    path_for_errors: &Path,
+) -> Result<DataFrame, TableError> {
     let mut df = frame.clone();
-    for (name, values) in added {
+    for col in added {
+        let name = col.name().to_string();
+        let name = name.as_str();
         if df.column(name).is_ok() {
             return Err(columns_err(
                 path_for_errors,
@@ -970,14 +985,13 @@ pub fn with_added(
                 format!("the input already has a column named '{name}'; rename it so the check columns can be added"),
             ));
         }
-        df.with_column(Column::new(name.into(), values))
-            .map_err(|e| {
-                ReadError::file(
-                    path_for_errors,
-                    ReadErrorKind::Io,
-                    format!("cannot add the check columns: {e}"),
-                )
-            })?;
+        df.with_column(col).map_err(|e| {
+            ReadError::file(
+                path_for_errors,
+                ReadErrorKind::Io,
+                format!("cannot add the check columns: {e}"),
+            )
+        })?;
     }
     Ok(df)
 }
@@ -1005,6 +1019,47 @@ pub fn write_frame(
             .map_err(werr)?;
     }
     Ok(())
+}
+
+/// The `flags`, `severity` and `diagnosis` columns of a screened batch, each
+/// row's text written once, straight into polars' text arrays (in parallel
+/// pieces; no string per cell).
+pub fn check_columns(report: &crate::screen::ScreenReport) -> PolarsResult<Vec<Column>> {
+    const PIECE: usize = 8192;
+    let n = report.len();
+    let pieces: Vec<[StringChunked; 3]> = (0..n.div_ceil(PIECE).max(1))
+        .into_par_iter()
+        .map(|p| {
+            let rows = p * PIECE..((p + 1) * PIECE).min(n);
+            let mut b = ["flags", "severity", "diagnosis"]
+                .map(|name| StringChunkedBuilder::new(name.into(), rows.len()));
+            let mut buf = String::new();
+            for i in rows {
+                buf.clear();
+                report.write_flags(i, &mut buf);
+                b[0].append_value(&buf);
+                b[1].append_value(report.severity(i).map_or("", |s| s.as_str()));
+                buf.clear();
+                report.write_diagnosis(i, &mut buf);
+                b[2].append_value(&buf);
+            }
+            b.map(|b| b.finish())
+        })
+        .collect();
+    let mut cols: Option<[StringChunked; 3]> = None;
+    for piece in pieces {
+        match &mut cols {
+            None => cols = Some(piece),
+            Some(c) => {
+                for (c, p) in c.iter_mut().zip(piece) {
+                    c.append_owned(p)?;
+                }
+            }
+        }
+    }
+    Ok(cols
+        .map(|c| c.into_iter().map(|c| c.into_column()).collect())
+        .unwrap_or_default())
 }
 
 enum Sink<'w> {
@@ -1042,12 +1097,8 @@ impl<'w> BatchWriter<'w> {
 
     /// Write the next batch with the added text columns. Refuses (before
     /// writing anything of it) when an added column's name is taken.
-    pub fn write(
-        &mut self,
-        frame: &DataFrame,
-        added: Vec<(&str, Vec<String>)>,
-    ) -> Result<(), TableError> {
-        let mut df = with_added(frame, added, &self.path)?;
+    pub fn write(&mut self, frame: &DataFrame, added: Vec<Column>) -> Result<(), TableError> {
+        let mut df = with_added_columns(frame, added, &self.path)?;
         // the batched writers take frames whose columns are chunked alike
         df.align_chunks_par();
         if matches!(self.sink, Sink::Start(_)) {
