@@ -141,6 +141,9 @@ struct CellStats {
     cell_units: Vec<(String, usize)>,
 }
 
+/// A text column's raw numbers, its unreadable cells (row, message) and what was found.
+type RawRead = Result<(Vec<f64>, Vec<(usize, String)>, CellStats), TableError>;
+
 /// Whether a numeric column's unit is settled by its heading or its cells.
 fn resolve_unit(
     path: &Path,
@@ -196,7 +199,7 @@ fn read_raw(
     kind: Kind,
     line0: usize,
     reported: usize,
-) -> Result<(Vec<f64>, Vec<(usize, String)>, CellStats), TableError> {
+) -> RawRead {
     let n = col.len();
     let mut stats = CellStats::default();
     if col.dtype().is_primitive_numeric() {
@@ -375,7 +378,7 @@ impl ColumnScan {
         kind: Kind,
         heading: &str,
         heading_unit: Option<&str>,
-        res: Result<(Vec<f64>, Vec<(usize, String)>, CellStats), TableError>,
+        res: RawRead,
     ) -> NumRead {
         let (raw, bad, st) = res?;
         let c = self.cols.entry(role).or_insert_with(|| ColScan {
@@ -1065,7 +1068,7 @@ pub fn check_columns(report: &crate::screen::ScreenReport) -> PolarsResult<Vec<C
 enum Sink<'w> {
     Start(&'w mut dyn std::io::Write),
     Csv(polars_io::csv::write::BatchedWriter<&'w mut dyn std::io::Write>),
-    Parquet(polars_io::parquet::write::BatchedWriter<&'w mut dyn std::io::Write>),
+    Parquet(Box<polars_io::parquet::write::BatchedWriter<&'w mut dyn std::io::Write>>),
     Gone,
 }
 
@@ -1104,11 +1107,11 @@ impl<'w> BatchWriter<'w> {
         if matches!(self.sink, Sink::Start(_)) {
             if let Sink::Start(w) = std::mem::replace(&mut self.sink, Sink::Gone) {
                 self.sink = if self.parquet {
-                    Sink::Parquet(
+                    Sink::Parquet(Box::new(
                         ParquetWriter::new(w)
                             .batched(df.schema())
                             .map_err(|e| self.werr(e))?,
-                    )
+                    ))
                 } else {
                     Sink::Csv(
                         CsvWriter::new(w)
