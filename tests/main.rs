@@ -26,6 +26,7 @@ mod estimate_joback;
 mod estimate_lee_kesler_published;
 mod estimate_tb_model;
 mod fit_hostile_data;
+mod fit_separable;
 mod fuzz_regressions;
 mod iapws_if97;
 mod layers;

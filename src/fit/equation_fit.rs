@@ -2,7 +2,9 @@
 //!
 //! Residuals are in ln p. Linear-in-parameter equations are solved exactly;
 //! Antoine starts from its linearized form, T·ln p = A·T + (A·C − B) − C·ln p,
-//! then Levenberg–Marquardt polishes. With u(T), u(p) given the weights are
+//! then separable least squares (variable projection over C, [`super::separable`])
+//! finishes, or Levenberg–Marquardt when that cannot certify convergence. With
+//! u(T), u(p) given the weights are
 //! effective variances u_eff² = (u(p)/p)² + (d ln p/dT)²·u(T)², iterated until
 //! they stop changing. `--robust` reweights by Huber's loss (IRLS).
 //! Every solve of one equation fit draws on one evaluation budget that scales with the
@@ -16,6 +18,7 @@
 
 use super::linear::solve_weighted_columns;
 use super::lsq::{self, LsqResult, Problem, Settings, StopReason, Termination};
+use super::separable;
 use crate::vapor::{Antoine, Clapeyron, Equation, VaporEquation};
 use nalgebra::DMatrix;
 
@@ -200,13 +203,23 @@ impl Budget {
     }
 }
 
+/// Which solver fits Antoine (every other equation is linear or uses Levenberg–Marquardt).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum AntoineSolver {
+    /// Separable least squares over C ([`super::separable`]), falling back to
+    /// Levenberg–Marquardt whenever it cannot certify convergence.
+    #[default]
+    Separable,
+    /// Levenberg–Marquardt on all three constants (the general solver).
+    LevenbergMarquardt,
+}
+
 fn solve_once(
     eq: &Equation,
-    t: &[f64],
-    y: &[f64],
-    sigma: &[f64],
+    (t, y, sigma): (&[f64], &[f64], &[f64]),
     start: Option<&[f64]>,
     patience: usize,
+    solver: AntoineSolver,
 ) -> Option<LsqResult> {
     let prob = VaporProblem { eq, t, y };
     if let Some(th) = linear_fit(eq, t, y, sigma) {
@@ -223,6 +236,29 @@ fn solve_once(
             _ => return None,
         },
     };
+    if matches!(eq, Equation::Antoine(_)) && solver == AntoineSolver::Separable {
+        // The fast path gets the same evaluation bound as one Levenberg–Marquardt solve;
+        // what it spent before declining is charged to the solve that follows.
+        let max_evals = patience * (eq.n_params() + 1);
+        match separable::antoine(t, y, sigma, start[2], max_evals) {
+            Ok((th, evaluations)) => {
+                let term = Termination {
+                    reason: StopReason::Separable,
+                    evaluations,
+                };
+                return Some(lsq::finish(&prob, sigma, th.to_vec(), term));
+            }
+            Err(spent) => {
+                let settings = Settings {
+                    patience,
+                    ..Settings::default()
+                };
+                let mut r = lsq::solve(&prob, sigma, &start, settings);
+                r.termination.evaluations += spent;
+                return Some(r);
+            }
+        }
+    }
     let settings = Settings {
         patience,
         ..Settings::default()
@@ -237,6 +273,17 @@ pub fn fit_equation(
     points: &[Point],
     robust: Option<RobustLoss>,
 ) -> Option<EquationFit> {
+    fit_equation_using(eq, points, robust, AntoineSolver::default())
+}
+
+/// [`fit_equation`] with the Antoine solver chosen (the fast path is checked against
+/// Levenberg–Marquardt with this).
+pub fn fit_equation_using(
+    eq: &Equation,
+    points: &[Point],
+    robust: Option<RobustLoss>,
+    solver: AntoineSolver,
+) -> Option<EquationFit> {
     let t: Vec<f64> = points.iter().map(|p| p.t_k).collect();
     let y: Vec<f64> = points.iter().map(|p| p.p_pa.ln()).collect();
     let weighted = points
@@ -249,7 +296,7 @@ pub fn fit_equation(
     let u_t: Vec<f64> = points.iter().map(|p| p.u_t_k.unwrap_or(0.0)).collect();
     let mut sigma = vec![1.0; t.len()];
     let mut budget = Budget::new(eq.n_params());
-    let mut r = solve_once(eq, &t, &y, &sigma, None, EVALS_PER_SOLVE)?;
+    let mut r = solve_once(eq, (&t, &y, &sigma), None, EVALS_PER_SOLVE, solver)?;
     budget.charge(&mut r);
     // Reweighting from a point where the solver failed is not worth its cost: stop there.
     let mut stopped = !r.termination.is_success();
@@ -277,7 +324,7 @@ pub fn fit_equation(
             };
             sigma = new;
             let th = r.theta.clone();
-            r = solve_once(eq, &t, &y, &sigma, Some(&th), patience)?;
+            r = solve_once(eq, (&t, &y, &sigma), Some(&th), patience, solver)?;
             budget.charge(&mut r);
             if !r.termination.is_success() {
                 stopped = true;
@@ -327,7 +374,7 @@ pub fn fit_equation(
                     .map(|i| sigma[i] / w[i].max(1e-12).sqrt())
                     .collect();
                 let th = r.theta.clone();
-                r = solve_once(eq, &t, &y, &s, Some(&th), patience)?;
+                r = solve_once(eq, (&t, &y, &s), Some(&th), patience, solver)?;
                 budget.charge(&mut r);
                 if !r.termination.is_success() {
                     break 'stages;

@@ -1,7 +1,8 @@
 //! Fitting vapor-pressure equations to measured data, with honest uncertainties.
 //!
 //! Layers, one concern per file: [`lsq`] (generic weighted Levenberg–Marquardt
-//! and covariance), [`linear`] (exact linear least squares), [`svd`] (thin
+//! and covariance), [`separable`] (Antoine by variable projection, the fast path
+//! before Levenberg–Marquardt), [`linear`] (exact linear least squares), [`svd`] (thin
 //! one-sided Jacobi SVD used by both), [`equation_fit`]
 //! (one equation to points: starts, effective-variance weights, robust loss),
 //! [`vapor_fit`] (statistics, diagnostics, predictions, findings, model
@@ -38,6 +39,7 @@ mod outlier_refit;
 pub mod plausibility;
 pub mod report;
 pub mod request;
+pub mod separable;
 pub mod stats;
 pub mod svd;
 pub mod termination;

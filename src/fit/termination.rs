@@ -12,6 +12,9 @@ use std::fmt;
 pub enum StopReason {
     /// The equation is linear in its constants: solved exactly, no iteration.
     ExactLinear,
+    /// Antoine by separable least squares (variable projection over C with A, B
+    /// solved exactly at each C): the step in C reached rounding level.
+    Separable,
     /// The relative reduction of the sum of squares (`ftol`) or of the step (`xtol`) met
     /// its bound.
     Converged {
@@ -44,6 +47,7 @@ impl StopReason {
         matches!(
             self,
             StopReason::ExactLinear
+                | StopReason::Separable
                 | StopReason::Converged { .. }
                 | StopReason::ResidualsZero
                 | StopReason::Orthogonal
@@ -75,6 +79,7 @@ impl StopReason {
     fn parse(s: &str, converged: bool) -> Self {
         let r = match s {
             "exact linear least squares" => StopReason::ExactLinear,
+            "separable least squares" => StopReason::Separable,
             "ResidualsZero" => StopReason::ResidualsZero,
             "Orthogonal" => StopReason::Orthogonal,
             "LostPatience" => StopReason::LostPatience,
@@ -115,6 +120,7 @@ impl fmt::Display for StopReason {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             StopReason::ExactLinear => f.write_str("exact linear least squares"),
+            StopReason::Separable => f.write_str("separable least squares"),
             StopReason::Converged { ftol, xtol } => {
                 write!(f, "Converged {{ ftol: {ftol}, xtol: {xtol} }}")
             }
@@ -202,6 +208,7 @@ mod tests {
     fn json_keeps_its_shape_and_reads_back() {
         for (reason, ok) in [
             (StopReason::ExactLinear, true),
+            (StopReason::Separable, true),
             (
                 StopReason::Converged {
                     ftol: true,

@@ -370,14 +370,24 @@ impl Library {
         if kq.is_empty() {
             return Vec::new();
         }
-        let limit = (kq.chars().count() / 3).clamp(1, 3);
+        let len_q = kq.chars().count();
+        let limit = (len_q / 3).clamp(1, 3);
         let mut scored: Vec<(usize, &str, usize)> = self
             .index
             .iter()
             .filter_map(|(k, &i)| {
-                let d = edit_distance(&kq, k);
-                let contains =
-                    kq.chars().count() >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
+                let contains = len_q >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
+                // The distance is at least the difference in length: a name further off
+                // than the limit that does not contain the query is not a suggestion, and
+                // its distance need not be computed (once per unknown name in a batch).
+                if !contains && k.chars().count().abs_diff(len_q) > limit {
+                    return None;
+                }
+                let d = if contains {
+                    edit_distance(&kq, k)
+                } else {
+                    edit_distance_within(&kq, k, limit)?
+                };
                 (d <= limit || contains).then_some((d, k.as_str(), i))
             })
             .collect();
@@ -469,6 +479,40 @@ pub fn edit_distance(a: &str, b: &str) -> usize {
         std::mem::swap(&mut prev, &mut cur);
     }
     prev[b.len()]
+}
+
+/// [`edit_distance`] when it is at most `limit`, else `None`: the rows stop as soon as
+/// every entry exceeds the limit (the distance never falls along the rows), so an
+/// unrelated name costs a few rows; short names stay on the stack.
+fn edit_distance_within(a: &str, b: &str, limit: usize) -> Option<usize> {
+    const STACK: usize = 64;
+    let (mut bs, mut pv, mut cv) = ([' '; STACK], [0usize; STACK + 1], [0usize; STACK + 1]);
+    let nb = b.chars().count();
+    if nb > STACK {
+        let d = edit_distance(a, b);
+        return (d <= limit).then_some(d);
+    }
+    for (slot, c) in bs.iter_mut().zip(b.chars()) {
+        *slot = c;
+    }
+    let (b, mut prev, mut cur) = (&bs[..nb], &mut pv[..=nb], &mut cv[..=nb]);
+    for (j, v) in prev.iter_mut().enumerate() {
+        *v = j;
+    }
+    for (i, ca) in a.chars().enumerate() {
+        cur[0] = i + 1;
+        let mut row_min = cur[0];
+        for (j, &cb) in b.iter().enumerate() {
+            let sub = prev[j] + usize::from(ca != cb);
+            cur[j + 1] = sub.min(prev[j + 1] + 1).min(cur[j] + 1);
+            row_min = row_min.min(cur[j + 1]);
+        }
+        if row_min > limit {
+            return None;
+        }
+        std::mem::swap(&mut prev, &mut cur);
+    }
+    Some(prev[nb]).filter(|&d| d <= limit)
 }
 
 fn structure_key(smiles: &str) -> Result<String, String> {

@@ -178,3 +178,37 @@ fn comparison_flags_five_percent_shift_not_identity() {
         .iter()
         .any(|f| f.code == "reference-no-overlap"));
 }
+
+// The bounded distance used by `suggestions` is the full distance whenever that is
+// within the limit, and `None` otherwise.
+#[test]
+fn bounded_edit_distance_matches_the_full_one() {
+    let words = [
+        "",
+        "a",
+        "ethanol",
+        "ethanal",
+        "methanol",
+        "hv-000123",
+        "toluene",
+        "tolune",
+        "2-propanol",
+        "propan-2-ol",
+        "water",
+        "wtaer",
+        "ÉTHANOL",
+        "éthanol",
+    ];
+    for a in words {
+        for b in words {
+            let d = super::edit_distance(a, b);
+            for limit in 0..5 {
+                assert_eq!(
+                    super::edit_distance_within(a, b, limit),
+                    (d <= limit).then_some(d),
+                    "{a} {b} {limit}"
+                );
+            }
+        }
+    }
+}
