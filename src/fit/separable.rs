@@ -9,10 +9,10 @@
 //! is the Schur complement of the 3×3 normal equations; from the second step on, the
 //! curvature comes from the last two gradients instead (a secant Newton step, which
 //! stays fast where large residuals slow Gauss–Newton). Steps that raise the sum of
-//! squares are halved. The search is declared converged only when the step has
-//! shrunk to rounding level at a sum of squares no higher than before, with C
-//! between −0.95·Tmin and Tmin; anything else (a pole near the data, a valley running
-//! flat towards C → ∞, non-finite values, the iteration or evaluation bound) returns an error and the
+//! squares (beyond rounding) are halved. The search is declared converged only when a
+//! full Newton step has shrunk to rounding level of C, with C between −0.95·Tmin and
+//! Tmin; anything else (a pole near the data, a valley running flat towards C → ∞,
+//! non-finite values, the iteration or evaluation bound) returns an error and the
 //! caller runs Levenberg–Marquardt instead.
 //!
 //! Reference: G. H. Golub & V. Pereyra, "The differentiation of pseudo-inverses and
@@ -39,7 +39,7 @@ pub fn antoine(
     max_evals: usize,
 ) -> Result<([f64; 3], usize), usize> {
     let m = t.len();
-    if m < 4 || m > MAX_POINTS || y.len() != m || sigma.len() != m {
+    if !(4..=MAX_POINTS).contains(&m) || y.len() != m || sigma.len() != m {
         return Err(0);
     }
     let mut w = [0.0; MAX_POINTS];
@@ -170,7 +170,7 @@ impl Eval {
             sxx += w[i] * dx * dx;
             sxy += w[i] * dx * (y[i] - ym);
         }
-        if !(sxx > 0.0) {
+        if sxx.is_nan() || sxx <= 0.0 {
             return None;
         }
         // y = A − B·x: the slope on x is −B.
