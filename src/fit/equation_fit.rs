@@ -237,10 +237,11 @@ fn solve_once(
         },
     };
     if matches!(eq, Equation::Antoine(_)) && solver == AntoineSolver::Separable {
-        // The fast path gets the same evaluation bound as one Levenberg–Marquardt solve;
-        // what it spent before declining is charged to the solve that follows.
-        let max_evals = patience * (eq.n_params() + 1);
-        match separable::antoine(t, y, sigma, start[2], max_evals) {
+        // The fast path and the Levenberg–Marquardt solve that follows when it declines
+        // share one solve's evaluation bound: the fast path may take a quarter of it
+        // (on vapor-pressure data it needs a few to a few dozen), the rest is left.
+        let k1 = eq.n_params() + 1;
+        match separable::antoine(t, y, sigma, start[2], patience * k1 / 4) {
             Ok((th, evaluations)) => {
                 let term = Termination {
                     reason: StopReason::Separable,
@@ -250,7 +251,7 @@ fn solve_once(
             }
             Err(spent) => {
                 let settings = Settings {
-                    patience,
+                    patience: patience.saturating_sub(spent.div_ceil(k1)).max(1),
                     ..Settings::default()
                 };
                 let mut r = lsq::solve(&prob, sigma, &start, settings);
