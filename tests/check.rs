@@ -532,3 +532,56 @@ fn batch_size_does_not_change_the_output() {
         .to_string_lossy()
         .ends_with(".tmp")));
 }
+
+// Column-wide rules over batches: a unit written only in the cells of a
+// later batch settles the column (the first pass is read again with it),
+// and units that mix across batches are the whole-table error, exit 2 and
+// no output. Benzene 80.1 °C, toluene 110.6 °C (Smith, Van Ness & Abbott
+// App. B Table B.2) with invented scatter: read without its unit, the
+// first batches would compare 80.1 as kelvin and flag the benzene rows.
+#[test]
+fn units_settled_across_batches_as_in_the_whole_table() {
+    let dir = scratch();
+    let run = |text: &str, extra: &[&str], name: &str| {
+        let input = dir.path().join(format!("{name}.csv"));
+        std::fs::write(&input, text).unwrap();
+        let out = dir.path().join(format!("{name}.out.csv"));
+        let o = ebullio()
+            .arg("check")
+            .arg(&input)
+            .args(extra)
+            .arg("-o")
+            .arg(&out)
+            .output()
+            .unwrap();
+        (
+            o.status.code(),
+            std::fs::read(&out).ok(),
+            String::from_utf8_lossy(&o.stderr).into_owned(),
+        )
+    };
+    let mut late = String::from("compound,Tb\n");
+    for i in 0..6 {
+        late.push_str(&format!("benzene,80.{}\n", i + 1));
+    }
+    late.push_str("toluene,110.6 °C\ntoluene,120.6\n");
+    let report = dir.path().join("r.html");
+    let whole = run(&late, &["--report", report.to_str().unwrap()], "late-whole");
+    let batched = run(&late, &["--batch-rows", "2"], "late-batched");
+    assert_eq!(whole.0, Some(0), "{}", whole.2);
+    assert_eq!(batched.0, Some(0), "{}", batched.2);
+    assert!(whole.1 == batched.1, "outputs differ");
+    assert!(whole.2.contains("checked 8 rows"), "{}", whole.2);
+
+    let mixed = late.replace("120.6\n", "393.8 K\n");
+    let whole = run(
+        &mixed,
+        &["--report", report.to_str().unwrap()],
+        "mixed-whole",
+    );
+    let batched = run(&mixed, &["--batch-rows", "2"], "mixed-batched");
+    assert_eq!((whole.0, batched.0), (Some(2), Some(2)));
+    assert!(whole.1.is_none() && batched.1.is_none());
+    assert!(batched.2.contains("mixes units"), "{}", batched.2);
+    assert_eq!(whole.2.replace("mixed-whole", "mixed-batched"), batched.2);
+}
