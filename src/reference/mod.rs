@@ -177,6 +177,15 @@ pub struct Library {
     keys: OnceLock<Vec<Option<String>>>,
     /// Every formula among the compounds' structures, made on first use.
     formulas: OnceLock<std::collections::HashSet<String>>,
+    /// Per index key (in the index's order): its character mask and length in
+    /// characters, made on the first name suggestion.
+    name_masks: OnceLock<Vec<(u64, usize)>>,
+}
+
+/// Which characters occur in `s`, folded onto 64 bits: a character of one string whose
+/// bit is missing from the other's mask occurs nowhere in the other.
+fn char_mask(s: &str) -> u64 {
+    s.chars().fold(0, |m, c| m | 1u64 << (c as u32 % 64))
 }
 
 fn key(name: &str) -> String {
@@ -308,6 +317,7 @@ impl Library {
             equation: None,
         });
         self.index.insert(key(name), i);
+        self.name_masks = OnceLock::new();
         i
     }
 
@@ -372,16 +382,32 @@ impl Library {
         }
         let len_q = kq.chars().count();
         let limit = (len_q / 3).clamp(1, 3);
+        let mq = char_mask(&kq);
+        let masks = self.name_masks.get_or_init(|| {
+            self.index
+                .keys()
+                .map(|k| (char_mask(k), k.chars().count()))
+                .collect()
+        });
         let mut scored: Vec<(usize, &str, usize)> = self
             .index
             .iter()
-            .filter_map(|(k, &i)| {
-                let contains = len_q >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
-                // The distance is at least the difference in length: a name further off
-                // than the limit that does not contain the query is not a suggestion, and
-                // its distance need not be computed (once per unknown name in a batch).
-                if !contains && k.chars().count().abs_diff(len_q) > limit {
-                    return None;
+            .zip(masks)
+            .filter_map(|((k, &i), &(mk, len_k))| {
+                // Containment needs the shorter name's characters inside the longer's.
+                let may_contain = len_q >= 3
+                    && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
+                let contains = may_contain && (k.contains(&kq) || kq.contains(k.as_str()));
+                // Lower bounds on the distance: the difference in length, and the
+                // characters either name has that the other lacks (one edit each). A
+                // name beyond the limit that does not contain the query is not a
+                // suggestion, and its distance need not be computed (once per unknown
+                // name in a batch).
+                if !contains {
+                    let missing = (mq & !mk).count_ones().max((mk & !mq).count_ones()) as usize;
+                    if len_k.abs_diff(len_q) > limit || missing > limit {
+                        return None;
+                    }
                 }
                 let d = if contains {
                     edit_distance(&kq, k)

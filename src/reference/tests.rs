@@ -212,3 +212,67 @@ fn bounded_edit_distance_matches_the_full_one() {
         }
     }
 }
+
+// The pruned scan of `suggestions` gives what scoring every name by its full distance
+// gives (the scan before the pruning, kept here as the oracle).
+#[test]
+fn suggestions_match_a_full_scan() {
+    let lib = Library::bundled();
+    let full = |query: &str| -> Vec<String> {
+        let kq = key(query);
+        if kq.is_empty() {
+            return Vec::new();
+        }
+        let limit = (kq.chars().count() / 3).clamp(1, 3);
+        let mut scored: Vec<(usize, &str, usize)> = lib
+            .index
+            .iter()
+            .filter_map(|(k, &i)| {
+                let d = super::edit_distance(&kq, k);
+                let contains =
+                    kq.chars().count() >= 3 && (k.contains(&kq) || kq.contains(k.as_str()));
+                (d <= limit || contains).then_some((d, k.as_str(), i))
+            })
+            .collect();
+        scored.sort_by(|a, b| a.0.cmp(&b.0).then(a.1.cmp(b.1)));
+        let mut out: Vec<String> = Vec::new();
+        for (_, k, i) in scored {
+            let name = &lib.compounds[i].name;
+            let shown = if key(name) == k {
+                name.clone()
+            } else {
+                format!("{k} ({name})")
+            };
+            if !out.iter().any(|o| o == &shown) && out.len() < 5 {
+                out.push(shown);
+            }
+        }
+        out
+    };
+    for q in [
+        "tolune",
+        "ethanl",
+        "HV-000123",
+        "acetone",
+        "aceton",
+        "benzen",
+        "water",
+        "wtaer",
+        "propanol",
+        "2-propanol",
+        "eth",
+        "ol",
+        "x",
+        "methyl",
+        "butan",
+        "hexane",
+        "Hexan",
+        "chloroform",
+        "cyclohexan",
+        "ÉTHANOL",
+        "acetic acid",
+        "n-octane",
+    ] {
+        assert_eq!(lib.suggestions(q), full(q), "{q}");
+    }
+}
