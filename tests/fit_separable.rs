@@ -95,7 +95,7 @@ fn agrees((d, d_se): (f64, f64)) -> bool {
 /// The whole fit (effective-variance and robust loops included) both ways: the largest
 /// relative difference of the constants, the largest difference in units of their
 /// standard errors, and whether the fast path ran (or `None` when either solver gave no
-/// fit).
+/// fit, or when neither converged).
 fn compare(points: &[Point], robust: Option<RobustLoss>) -> Option<(f64, f64, bool)> {
     let fast = fit_equation_using(&ANTOINE, points, robust, AntoineSolver::Separable)?;
     let lm = fit_equation_using(&ANTOINE, points, robust, AntoineSolver::LevenbergMarquardt)?;
@@ -106,6 +106,10 @@ fn compare(points: &[Point], robust: Option<RobustLoss>) -> Option<(f64, f64, bo
         fast.lsq.termination,
         lm.lsq.termination
     );
+    // Two unconverged fits stop wherever their budgets ran out: nothing to compare.
+    if !lm.lsq.termination.is_success() {
+        return None;
+    }
     let dp = (0..3)
         .map(|k| rel(fast.lsq.theta[k], lm.lsq.theta[k]))
         .fold(0.0, f64::max);
