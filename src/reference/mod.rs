@@ -177,9 +177,10 @@ pub struct Library {
     keys: OnceLock<Vec<Option<String>>>,
     /// Every formula among the compounds' structures, made on first use.
     formulas: OnceLock<std::collections::HashSet<String>>,
-    /// Per index key (in the index's order): its character mask and length in
-    /// characters, made on the first name suggestion.
-    name_masks: OnceLock<Vec<(u64, usize)>>,
+    /// Per index key: its character mask, length in characters, the key and its
+    /// compound, in one flat list made on the first name suggestion (scanned per
+    /// unknown name).
+    name_masks: OnceLock<Vec<(u64, usize, String, usize)>>,
 }
 
 /// Which characters occur in `s`, folded onto 64 bits: a character of one string whose
@@ -383,17 +384,16 @@ impl Library {
         let len_q = kq.chars().count();
         let limit = (len_q / 3).clamp(1, 3);
         let mq = char_mask(&kq);
-        let masks = self.name_masks.get_or_init(|| {
+        let names = self.name_masks.get_or_init(|| {
             self.index
-                .keys()
-                .map(|k| (char_mask(k), k.chars().count()))
+                .iter()
+                .map(|(k, &i)| (char_mask(k), k.chars().count(), k.clone(), i))
                 .collect()
         });
-        let mut scored: Vec<(usize, &str, usize)> = self
-            .index
+        let mut scored: Vec<(usize, &str, usize)> = names
             .iter()
-            .zip(masks)
-            .filter_map(|((k, &i), &(mk, len_k))| {
+            .filter_map(|(mk, len_k, k, i)| {
+                let (mk, len_k, i) = (*mk, *len_k, *i);
                 // Containment needs the shorter name's characters inside the longer's.
                 let may_contain = len_q >= 3
                     && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
