@@ -160,20 +160,11 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     let summary = report.summary(&table, args.worst);
     let format = args.format.unwrap_or(super::common::Format::Csv);
     if format != super::common::Format::Csv {
-        let text = if format == super::common::Format::Json {
-            let rows: Vec<serde_json::Value> = (0..report.len())
-                .filter(|&i| !report.findings(i).is_empty())
-                .map(|i| flagged_row(&report, i))
-                .collect();
-            super::common::json_text(&serde_json::json!({
-                "table": args.table.display().to_string(),
-                "tolerance_k": args.tolerance,
-                "summary": &summary,
-                "flagged_rows": rows,
-            }))? + "\n"
-        } else {
-            summary.to_string()
-        };
+        let rows: Vec<serde_json::Value> = (0..report.len())
+            .filter(|&i| format == super::common::Format::Json && !report.findings(i).is_empty())
+            .map(|i| flagged_row(&report, i))
+            .collect();
+        let text = summary_text(&args, &summary, rows, format == super::common::Format::Json)?;
         let out = super::common::OutputArgs {
             format: Some(format),
             output: args.output.clone(),
@@ -324,16 +315,7 @@ fn streamed(
             },
         )
         .map_err(stream_err)?;
-        let text = if json {
-            super::common::json_text(&serde_json::json!({
-                "table": args.table.display().to_string(),
-                "tolerance_k": args.tolerance,
-                "summary": &summary,
-                "flagged_rows": rows,
-            }))? + "\n"
-        } else {
-            summary.to_string()
-        };
+        let text = summary_text(args, &summary, rows, json)?;
         let out = super::common::OutputArgs {
             format: Some(format),
             output: args.output.clone(),
@@ -376,5 +358,25 @@ fn flagged_row(report: &ebullio::screen::ScreenReport, i: usize) -> serde_json::
             "severity": f.severity.to_string(),
             "message": f.message,
         })).collect::<Vec<_>>(),
+    })
+}
+
+/// The text `check` prints for table and JSON output: the summary, and for JSON the
+/// flagged rows beside it.
+fn summary_text(
+    args: &Args,
+    summary: &ebullio::screen::Summary,
+    rows: Vec<serde_json::Value>,
+    json: bool,
+) -> anyhow::Result<String> {
+    Ok(if json {
+        super::common::json_text(&serde_json::json!({
+            "table": args.table.display().to_string(),
+            "tolerance_k": args.tolerance,
+            "summary": summary,
+            "flagged_rows": rows,
+        }))? + "\n"
+    } else {
+        summary.to_string()
     })
 }

@@ -346,17 +346,3 @@ pub fn write_report(
     refuse.extend(output);
     write_file_atomic(path, &refuse, |w| w.write_all(html.as_bytes()))
 }
-
-#[cfg(test)]
-mod tests {
-    use super::without_non_finite;
-
-    #[test]
-    fn non_finite_words_are_blanked_and_info_is_kept() {
-        assert_eq!(
-            without_non_finite("RMS NaN % [info] -inf,inf,NaN\n", "-"),
-            "RMS - % [info] -,-,-\n"
-        );
-        assert_eq!(without_non_finite("1,NaN,,x-inf\n", ""), "1,,,x-\n");
-    }
-}
