@@ -23,7 +23,7 @@ impl<W: Write> Fields<'_, W> {
     fn num(&mut self, v: Option<f64>, digits: usize) -> Result<(), csv::Error> {
         self.buf.clear();
         if let Some(x) = v.filter(|x| x.is_finite()) {
-            let _ = write!(self.buf, "{x:.digits$}");
+            super::decimal::push_fixed(&mut self.buf, x, digits);
         }
         self.w.write_field(&self.buf)
     }

@@ -10,6 +10,7 @@ pub mod atomic;
 pub mod binary;
 #[cfg(feature = "tables")]
 pub mod check_stream;
+pub mod decimal;
 pub mod error;
 pub mod estimates;
 pub mod fit_batch;
