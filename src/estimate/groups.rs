@@ -10,6 +10,7 @@
 //! group table as compiled in `reference-data/joback-groups.csv` (see
 //! `reference-data/JOBACK.md` for what is confirmed and what is from memory).
 
+use super::terms::{t, TermCounts};
 use super::EstimateError;
 use crate::molecule::{BondOrder, Element, Molecule};
 use std::collections::BTreeMap;
@@ -171,11 +172,21 @@ pub fn assign_tb_groups(m: &Molecule) -> Result<GroupCounts, EstimateError> {
 }
 
 fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
+    let mut c = TermCounts::new();
+    assign_counts(m, extended, &mut c)?;
+    Ok(c.to_map())
+}
+
+/// [`assign_groups`] (`extended` false) or [`assign_tb_groups`] (true) into `out`, by index.
+pub(crate) fn assign_counts(
+    m: &Molecule,
+    extended: bool,
+    out: &mut TermCounts,
+) -> Result<(), EstimateError> {
     let atoms = m.atoms();
     let n = atoms.len();
     let mut used = vec![false; n];
-    let mut out = GroupCounts::new();
-    let mut add = |id: &str| *out.entry(id.to_string()).or_insert(0) += 1;
+    let mut add = |id: usize| out.add(id);
     let el = |i: usize| atoms[i].element;
     // Terminal oxygen double-bonded (or nitro O-) to atom i.
     let terminal_o = |i: usize, order: BondOrder| -> Vec<usize> {
@@ -215,7 +226,7 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
             used[i] = true;
             used[o1] = true;
             used[o2] = true;
-            add("no2");
+            add(t!("no2"));
         }
     }
     // 2. Nitrile: C#N with a terminal N.
@@ -233,7 +244,7 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
             {
                 used[i] = true;
                 used[j] = true;
-                add("cn");
+                add(t!("cn"));
                 break;
             }
         }
@@ -269,29 +280,29 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
             used[i] = true;
             used[o] = true;
             used[oh] = true;
-            add("cooh");
+            add(t!("cooh"));
             continue;
         }
         if let Some(&oe) = singles.iter().find(|&&j| m.heavy_degree(j) == 2) {
             used[i] = true;
             used[o] = true;
             used[oe] = true;
-            add("coo");
+            add(t!("coo"));
             continue;
         }
         if h == 1 {
             used[i] = true;
             used[o] = true;
-            add("cho");
+            add(t!("cho"));
             continue;
         }
         if h == 0 && m.heavy_degree(i) == 3 {
             used[i] = true;
             used[o] = true;
             add(if atoms[i].in_ring {
-                "co_ring"
+                t!("co_ring")
             } else {
-                "co_chain"
+                t!("co_chain")
             });
             continue;
         }
@@ -307,7 +318,7 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
                 if !used[o] && atoms[o].charge == 0 {
                     used[o] = true;
                     s_oxo[i] += 1;
-                    add("s_oxo");
+                    add(t!("s_oxo"));
                 }
             }
         }
@@ -350,27 +361,27 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
         if a.aromatic && aromatic_bonds > 0 && double == 0 && el(i) == Element::C {
             double = 1;
         }
-        let id: &str = match a.element {
+        let id: usize = match a.element {
             e if e == Element::C => match (double, triple, h) {
                 (0, 0, 4) => return Err(no_group(m, i, "methane (CH4) has no Joback group")),
-                (0, 0, 3) => "ch3",
-                (0, 0, 2) => if ring { "ch2_ring" } else { "ch2_chain" },
-                (0, 0, 1) => if ring { "ch_ring" } else { "ch_chain" },
-                (0, 0, 0) => if ring { "c_ring" } else { "c_chain" },
-                (1, 0, 2) => "eq_ch2",
-                (1, 0, 1) => if ring { "eq_ch_ring" } else { "eq_ch_chain" },
-                (1, 0, 0) => if ring { "eq_c_ring" } else { "eq_c_chain" },
-                (2, 0, 0) => "eq_c_eq",
-                (0, 1, 1) => "tr_ch",
-                (0, 1, 0) => "tr_c",
+                (0, 0, 3) => t!("ch3"),
+                (0, 0, 2) => if ring { t!("ch2_ring") } else { t!("ch2_chain") },
+                (0, 0, 1) => if ring { t!("ch_ring") } else { t!("ch_chain") },
+                (0, 0, 0) => if ring { t!("c_ring") } else { t!("c_chain") },
+                (1, 0, 2) => t!("eq_ch2"),
+                (1, 0, 1) => if ring { t!("eq_ch_ring") } else { t!("eq_ch_chain") },
+                (1, 0, 0) => if ring { t!("eq_c_ring") } else { t!("eq_c_chain") },
+                (2, 0, 0) => t!("eq_c_eq"),
+                (0, 1, 1) => t!("tr_ch"),
+                (0, 1, 0) => t!("tr_c"),
                 _ => return Err(no_group(m, i, format!("carbon with {double} double, {triple} triple bonds and {h} H fits no group"))),
             },
             e if e == Element::O => {
                 let arom_nb = m.neighbours(i).iter().any(|&(j, _)| atoms[j].aromatic);
                 match (double, h, deg) {
-                    (0, 1, 1) => if arom_nb { "oh_phenol" } else { "oh_alcohol" },
-                    (0, 0, 2) => if ring { "o_ring" } else { "o_chain" },
-                    (1, 0, 1) => "eq_o",
+                    (0, 1, 1) => if arom_nb { t!("oh_phenol") } else { t!("oh_alcohol") },
+                    (0, 0, 2) => if ring { t!("o_ring") } else { t!("o_chain") },
+                    (1, 0, 1) => t!("eq_o"),
                     (0, 2, 0) => return Err(no_group(m, i, "water has no Joback group")),
                     _ => return Err(no_group(m, i, "oxygen bonded in a way the table does not cover")),
                 }
@@ -378,31 +389,31 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
             e if e == Element::N => {
                 let arom = a.aromatic;
                 match (double, h, deg, arom) {
-                    (0, 2, 1, false) => "nh2",
-                    (0, 1, 2, false) => if ring { "nh_ring" } else { "nh_chain" },
-                    (_, 1, 2, true) => "nh_ring",
-                    (0, 0, 3, false) if !ring => "n_chain",
-                    (0, 0, 3, false) if extended => "n_ring_tert",
-                    (0, 0, 3, true) if extended => "n_arom_sub",
+                    (0, 2, 1, false) => t!("nh2"),
+                    (0, 1, 2, false) => if ring { t!("nh_ring") } else { t!("nh_chain") },
+                    (_, 1, 2, true) => t!("nh_ring"),
+                    (0, 0, 3, false) if !ring => t!("n_chain"),
+                    (0, 0, 3, false) if extended => t!("n_ring_tert"),
+                    (0, 0, 3, true) if extended => t!("n_arom_sub"),
                     (0, 0, 3, _) => return Err(no_group(m, i, "ring tertiary nitrogen >N-: the table has >N- only outside rings")),
-                    (1, 0, 2, false) => if ring { "eq_n_ring" } else { "eq_n_chain" },
-                    (0, 0, 2, true) => "eq_n_ring",
-                    (1, 1, 1, false) => "eq_nh",
+                    (1, 0, 2, false) => if ring { t!("eq_n_ring") } else { t!("eq_n_chain") },
+                    (0, 0, 2, true) => t!("eq_n_ring"),
+                    (1, 1, 1, false) => t!("eq_nh"),
                     _ => return Err(no_group(m, i, "nitrogen bonded in a way the table does not cover")),
                 }
             }
             e if e == Element::S => match (double - s_oxo[i] as i32, h, deg - s_oxo[i] as usize) {
-                (0, 1, 1) => "sh",
-                (0, 0, 2) => if ring { "s_ring" } else { "s_chain" },
+                (0, 1, 1) => t!("sh"),
+                (0, 0, 2) => if ring { t!("s_ring") } else { t!("s_chain") },
                 _ => return Err(no_group(m, i, "sulfur other than -SH or -S- (e.g. sulfoxide, sulfone) has no Joback group")),
             },
             e if e == Element::F || e == Element::CL || e == Element::BR || e == Element::I => {
                 if deg == 1 && double == 0 && triple == 0 {
                     match a.element.number() {
-                        9 => "f",
-                        17 => "cl",
-                        35 => "br",
-                        _ => "i",
+                        9 => t!("f"),
+                        17 => t!("cl"),
+                        35 => t!("br"),
+                        _ => t!("i"),
                     }
                 } else {
                     return Err(no_group(m, i, "halogen must have exactly one single bond"));
@@ -419,5 +430,5 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
         used[i] = true;
         add(id);
     }
-    Ok(out)
+    Ok(())
 }

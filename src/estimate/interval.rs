@@ -57,10 +57,17 @@ pub fn comfort(outside_terms: &[String], strongly_polar: u32) -> Comfort {
             "outside-calibration: {strongly_polar} strongly polar groups (more than two are not covered by the calibration)"
         ));
     }
-    if !c.reasons.is_empty() {
-        c.factor = OUTSIDE_FACTOR;
-    }
+    c.factor = comfort_factor(!outside_terms.is_empty(), strongly_polar);
     c
+}
+
+/// The factor of [`comfort`] alone (`outside`: some term has no fitted value).
+pub fn comfort_factor(outside: bool, strongly_polar: u32) -> f64 {
+    if outside || strongly_polar > 2 {
+        OUTSIDE_FACTOR
+    } else {
+        1.0
+    }
 }
 
 /// One committed figure.

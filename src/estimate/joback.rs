@@ -3,7 +3,8 @@
 //! Reference: K. G. Joback, R. C. Reid, Chem. Eng. Commun. 57 (1987) 233–243
 //! (equations confirmed as listed in `reference-data/JOBACK.md` §3).
 
-use super::groups::{group, GroupCounts};
+use super::groups::{group, table, Group, GroupCounts};
+use super::terms::{TermCounts, N_JOBACK};
 
 /// Sums of every group contribution; `None` where a present group has no value.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
@@ -41,6 +42,19 @@ fn acc(total: &mut Option<f64>, v: Option<f64>, n: f64) {
 
 /// Sum contributions over `groups` (unknown ids are skipped; callers validate ids).
 pub fn sums(groups: &GroupCounts) -> GroupSums {
+    sums_over(groups.iter().filter_map(|(id, &n)| Some((group(id)?, n))))
+}
+
+/// [`sums`] over counts by index (the Joback groups among them, in the same order).
+pub fn sums_counts(c: &TermCounts) -> GroupSums {
+    let t = table();
+    sums_over(
+        c.iter_sorted()
+            .filter_map(|(i, n)| Some((t.get(i).filter(|_| i < N_JOBACK)?, n))),
+    )
+}
+
+fn sums_over<'a>(groups: impl Iterator<Item = (&'a Group, u32)>) -> GroupSums {
     let z = Some(0.0);
     let mut s = GroupSums {
         tc: z,
@@ -55,8 +69,7 @@ pub fn sums(groups: &GroupCounts) -> GroupSums {
         hvap: z,
         atoms: (0, 0),
     };
-    for (id, &count) in groups {
-        let Some(g) = group(id) else { continue };
+    for (g, count) in groups {
         let n = count as f64;
         acc(&mut s.tc, g.tc, n);
         acc(&mut s.pc, g.pc, n);

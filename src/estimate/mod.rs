@@ -40,6 +40,7 @@ pub mod stein_brown;
 pub mod tb_features;
 pub mod tb_fit;
 pub mod tb_model;
+pub mod terms;
 
 pub use groups::{assign_groups, assign_tb_groups, group, parse_groups, table, Group, GroupCounts};
 pub use interval::{calibration, Calibration, Comfort, TbVariant};
@@ -47,6 +48,7 @@ pub use lee_kesler::LeeKeslerCurve;
 pub use tb_features::{Family, IntervalClass};
 
 use crate::molecule::{parse_smiles, Molecule, SmilesError};
+use terms::TermCounts;
 
 /// Why a structure could not be estimated.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
@@ -202,31 +204,30 @@ pub struct TbTerm {
     pub published_joback_dtb_k: Option<f64>,
 }
 
-/// Group-level result before the recommended variant is chosen.
+/// Group-level result before the recommended variant is chosen (counts by term index).
 #[derive(Debug, Clone)]
 pub(crate) struct Raw {
     /// Joback groups for the published property equations (nearest published group
     /// standing in for this project's new groups; see `approximated`).
-    pub groups: GroupCounts,
+    pub groups: TermCounts,
     pub sums: joback::GroupSums,
     pub n_atoms: u32,
     pub tb_joback_k: Option<f64>,
     /// Extended terms of the boiling-point model.
-    pub terms: GroupCounts,
+    pub terms: TermCounts,
     pub family: Family,
     pub class: IntervalClass,
     pub polar: u32,
     /// New groups that stand in as their nearest published group.
-    pub approximated: Vec<String>,
-    pub smiles: Option<String>,
-    pub formula: Option<String>,
+    pub approximated: bool,
 }
 
-fn missing_tb(groups: &GroupCounts) -> EstimateError {
+fn missing_tb(groups: &TermCounts) -> EstimateError {
+    let t = table();
     let g = groups
-        .keys()
-        .find(|id| group(id).is_some_and(|g| g.tb.is_none()))
-        .cloned()
+        .iter_sorted()
+        .find(|&(i, _)| i < terms::N_JOBACK && t[i].tb.is_none())
+        .map(|(i, _)| terms::IDS[i].to_string())
         .unwrap_or_default();
     EstimateError::MissingContribution {
         group: g,
@@ -240,37 +241,31 @@ fn raw_from_molecule(m: &Molecule) -> Result<Raw, EstimateError> {
             count: m.components(),
         });
     }
-    let published = assign_groups(m);
-    let f = match tb_features::features(m) {
+    let f = match tb_features::feature_counts(m) {
         Ok(f) => f,
-        Err(e) => return Err(published.err().unwrap_or(e)),
-    };
-    let (groups, approximated) = match published {
-        Ok(g) => (g, Vec::new()),
-        Err(_) => {
-            let mut g = GroupCounts::new();
-            let mut approx = Vec::new();
-            for (id, &n) in &f.terms {
-                if tb_features::CORRECTIONS.contains(&id.as_str()) {
-                    continue;
-                }
-                let p = tb_features::nearest_published(id);
-                if p != id {
-                    approx.push(id.clone());
-                }
-                *g.entry(p.to_string()).or_insert(0) += n;
-            }
-            (g, approx)
+        Err(e) => {
+            // the published assignment's error when it fails too (it names the atom the
+            // published table cannot place)
+            let mut published = TermCounts::new();
+            return Err(groups::assign_counts(m, false, &mut published)
+                .err()
+                .unwrap_or(e));
         }
     };
-    let sums = joback::sums(&groups);
+    // The extended assignment differs from the published one only by the new groups:
+    // without them it is the published assignment; with them the published one fails and
+    // each new group stands in as its nearest published group.
+    let approximated = (terms::N_JOBACK..terms::FIRST_CORRECTION).any(|i| f.terms.get(i) > 0);
+    let groups = f.terms.published();
+    let sums = joback::sums_counts(&groups);
     if sums.tb.is_none() {
         return Err(missing_tb(&groups));
     }
-    let tb_joback_k = approximated
-        .is_empty()
-        .then(|| sums.tb.map(joback::tb_k))
-        .flatten();
+    let tb_joback_k = if approximated {
+        None
+    } else {
+        sums.tb.map(joback::tb_k)
+    };
     Ok(Raw {
         groups,
         sums,
@@ -281,83 +276,108 @@ fn raw_from_molecule(m: &Molecule) -> Result<Raw, EstimateError> {
         class: f.class,
         polar: f.polar,
         approximated,
-        smiles: Some(m.smiles().to_string()),
-        formula: Some(m.formula()),
     })
 }
 
-pub(crate) fn raw_from_smiles(s: &str) -> Result<Raw, EstimateError> {
-    raw_from_molecule(&parse_smiles(s)?)
+/// The numbers of one estimate, computed without building any text, map or list: what
+/// the CSV output holds. [`Estimate`] carries the same numbers with their explanations.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Numbers {
+    /// Recommended normal boiling point, K.
+    pub tb_k: f64,
+    /// Half-width of the 90 % interval, K.
+    pub half_width_k: f64,
+    /// Published Joback boiling point, K.
+    pub tb_joback_k: Option<f64>,
+    /// Which variant `tb_k` is.
+    pub tb_variant: TbVariant,
+    /// Every variant's boiling point, K, in [`TbVariant::ALL`] order.
+    pub tb_variants: [Option<f64>; 6],
+    /// Bit set over term indices of the shipped model's terms outside the calibration.
+    outside: u64,
+    /// The shipped model (index into the committed models), if any.
+    shipped: Option<usize>,
+    /// Melting point, K.
+    pub tm_k: Option<f64>,
+    /// Critical temperature, K.
+    pub tc_k: Option<f64>,
+    /// Critical pressure, bar.
+    pub pc_bar: Option<f64>,
+    /// Critical volume, cm³/mol.
+    pub vc_cm3_mol: Option<f64>,
+    /// Ideal-gas ΔHf° at 298 K, kJ/mol.
+    pub hf_kj_mol: Option<f64>,
+    /// Ideal-gas ΔGf° at 298 K, kJ/mol.
+    pub gf_kj_mol: Option<f64>,
+    /// Ideal-gas Cp polynomial.
+    pub cp: Option<CpPolynomial>,
+    /// Enthalpy of vaporization at Tb, kJ/mol.
+    pub hvap_tb_kj_mol: Option<f64>,
+    /// Enthalpy of fusion, kJ/mol.
+    pub hfus_kj_mol: Option<f64>,
+    /// Acentric factor.
+    pub omega: Option<f64>,
+    /// Joback groups by term index (the published groups only).
+    pub groups: TermCounts,
 }
 
-fn finish(r: Raw) -> Estimate {
+impl Numbers {
+    /// Stein & Brown correction of the published Joback value, K.
+    pub fn tb_stein_brown_k(&self) -> Option<f64> {
+        self.tb_joback_k.map(stein_brown::corrected_tb_k)
+    }
+
+    /// The Lee–Kesler curve, as [`Estimate::curve`] gives it.
+    pub fn curve(&self) -> Option<LeeKeslerCurve> {
+        let (tc, pc) = (self.tc_k?, self.pc_bar?);
+        let high = self.tb_k + self.half_width_k;
+        Some(LeeKeslerCurve::from_tb(
+            self.tb_k,
+            tc,
+            pc * 1e5,
+            Some((high - self.tb_k) / 1.645),
+        ))
+    }
+}
+
+fn numbers(r: &Raw) -> Numbers {
     let cal = calibration();
-    let mut variants = std::collections::BTreeMap::new();
+    let mut variants = [None; 6];
+    let slot = |v: TbVariant| TbVariant::ALL.iter().position(|&x| x == v).unwrap_or(0);
     if let Some(j) = r.tb_joback_k {
-        variants.insert(TbVariant::Joback.name(), j);
-        variants.insert(TbVariant::SteinBrown.name(), stein_brown::corrected_tb_k(j));
+        variants[slot(TbVariant::Joback)] = Some(j);
+        variants[slot(TbVariant::SteinBrown)] = Some(stein_brown::corrected_tb_k(j));
     }
     let mut shipped = None;
-    for m in tb_model::models() {
+    for (k, m) in tb_model::indexed_models().iter().enumerate() {
         let p = m.predict(&r.terms);
         if p.tb_k.is_finite() {
-            variants.insert(m.variant.name(), p.tb_k);
-            if m.variant == cal.variant {
-                shipped = Some((m, p));
+            variants[slot(m.model.variant)] = Some(p.tb_k);
+            if m.model.variant == cal.variant {
+                shipped = Some((k, p));
             }
         }
     }
-    let mut notes = Vec::new();
     // Without a committed model (or outside its domain) the published value ships.
-    let (tb, variant, outside, terms) = match &shipped {
-        Some((m, p)) => {
-            let terms = tb_model::terms_for(m.variant, &r.terms)
-                .into_iter()
-                .map(|(id, count)| {
-                    let c = m.contributions.get(&id);
-                    TbTerm {
-                        kind: if tb_features::CORRECTIONS.contains(&id.as_str()) {
-                            "correction"
-                        } else {
-                            "group"
-                        },
-                        count,
-                        value: c.map_or(0.0, |c| c.value),
-                        se: c.and_then(|c| c.se),
-                        n_compounds: c.map_or(0, |c| c.n_compounds),
-                        origin: if c.is_some_and(|c| c.fitted) {
-                            "project-fit"
-                        } else {
-                            "prior-not-fitted"
-                        },
-                        published_joback_dtb_k: group(&id).and_then(|g| g.tb),
-                        id,
-                    }
-                })
-                .collect();
-            (p.tb_k, m.variant, p.outside.clone(), terms)
-        }
+    let (tb, variant, outside) = match &shipped {
+        Some((k, p)) => (
+            p.tb_k,
+            tb_model::indexed_models()[*k].model.variant,
+            p.outside,
+        ),
         None => {
-            let j = joback::tb_k(r.sums.tb.unwrap_or(0.0));
-            if r.tb_joback_k.is_none() {
-                notes.push("no fitted model covers this structure: tb_k is Joback with the nearest published groups".into());
-            }
-            (j, TbVariant::Joback, r.approximated.clone(), Vec::new())
+            let approximated = (terms::N_JOBACK..terms::FIRST_CORRECTION)
+                .filter(|&i| r.terms.get(i) > 0)
+                .fold(0u64, |m, i| m | 1 << i);
+            (
+                joback::tb_k(r.sums.tb.unwrap_or(0.0)),
+                TbVariant::Joback,
+                approximated,
+            )
         }
     };
-    let comfort = interval::comfort(&outside, r.polar);
-    if !r.approximated.is_empty() {
-        notes.push(format!(
-            "the published Joback table has no group for {}: Tc, pc, Vc and the other Joback properties use the nearest published group ({}), an approximation of this project",
-            r.approximated.join(", "),
-            r.approximated
-                .iter()
-                .map(|id| format!("{id} as {}", tb_features::nearest_published(id)))
-                .collect::<Vec<_>>()
-                .join(", ")
-        ));
-    }
-    let hw = cal.q90_k(r.class) * comfort.factor;
+    let factor = interval::comfort_factor(outside != 0, r.polar);
+    let hw = cal.q90_k(r.class) * factor;
     let s = &r.sums;
     let tc =
         s.tc.map(|x| joback::tc_k(tb, x))
@@ -382,22 +402,14 @@ fn finish(r: Raw) -> Estimate {
         }
         _ => None,
     };
-    Estimate {
-        smiles: r.smiles,
-        formula: r.formula,
+    Numbers {
         tb_k: tb,
-        tb_pi90_low_k: tb - hw,
-        tb_pi90_high_k: tb + hw,
-        tb_typical_error_k: hw / 1.645,
+        half_width_k: hw,
         tb_joback_k: r.tb_joback_k,
-        tb_stein_brown_k: r.tb_joback_k.map(stein_brown::corrected_tb_k),
         tb_variant: variant,
         tb_variants: variants,
-        family: r.family,
-        interval_class: r.class,
-        tb_terms: terms,
-        comfort,
-        notes,
+        outside,
+        shipped: shipped.map(|(k, _)| k),
         tm_k: s.tm.map(joback::tm_k),
         tc_k: tc,
         pc_bar: pc,
@@ -408,19 +420,132 @@ fn finish(r: Raw) -> Estimate {
         hvap_tb_kj_mol: s.hvap.map(joback::hvap_kj_mol),
         hfus_kj_mol: s.hfus.map(joback::hfus_kj_mol),
         omega,
-        n_atoms: r.n_atoms,
         groups: r.groups,
     }
 }
 
+/// The numbers of the estimate of `s` (what [`estimate_smiles`] gives, without its
+/// texts), and the molecule they came from (for its formula).
+pub fn estimate_numbers(s: &str) -> Result<(Numbers, Molecule), EstimateError> {
+    let m = parse_smiles(s)?;
+    let r = raw_from_molecule(&m)?;
+    Ok((numbers(&r), m))
+}
+
+fn finish(r: Raw, smiles: Option<String>, formula: Option<String>) -> Estimate {
+    let n = numbers(&r);
+    let mut notes = Vec::new();
+    let approximated: Vec<String> = (terms::N_JOBACK..terms::FIRST_CORRECTION)
+        .filter(|&i| r.approximated && r.terms.get(i) > 0)
+        .map(|i| terms::IDS[i])
+        .collect::<std::collections::BTreeSet<_>>()
+        .into_iter()
+        .map(str::to_string)
+        .collect();
+    let (outside, terms) = match n.shipped {
+        Some(k) => {
+            let im = &tb_model::indexed_models()[k];
+            let m = im.model;
+            let used = if m.variant.extended() {
+                r.terms
+            } else {
+                r.terms.published()
+            };
+            let terms = used
+                .iter_sorted()
+                .map(|(i, count)| {
+                    let id = terms::IDS[i];
+                    let c = m.contributions.get(id);
+                    TbTerm {
+                        kind: if terms::is_correction(i) {
+                            "correction"
+                        } else {
+                            "group"
+                        },
+                        count,
+                        value: c.map_or(0.0, |c| c.value),
+                        se: c.and_then(|c| c.se),
+                        n_compounds: c.map_or(0, |c| c.n_compounds),
+                        origin: if c.is_some_and(|c| c.fitted) {
+                            "project-fit"
+                        } else {
+                            "prior-not-fitted"
+                        },
+                        published_joback_dtb_k: group(id).and_then(|g| g.tb),
+                        id: id.to_string(),
+                    }
+                })
+                .collect();
+            (im.outside_ids(n.outside), terms)
+        }
+        None => {
+            if r.tb_joback_k.is_none() {
+                notes.push("no fitted model covers this structure: tb_k is Joback with the nearest published groups".into());
+            }
+            (approximated.clone(), Vec::new())
+        }
+    };
+    let comfort = interval::comfort(&outside, r.polar);
+    if !approximated.is_empty() {
+        notes.push(format!(
+            "the published Joback table has no group for {}: Tc, pc, Vc and the other Joback properties use the nearest published group ({}), an approximation of this project",
+            approximated.join(", "),
+            approximated
+                .iter()
+                .map(|id| format!("{id} as {}", tb_features::nearest_published(id)))
+                .collect::<Vec<_>>()
+                .join(", ")
+        ));
+    }
+    let hw = n.half_width_k;
+    let tb = n.tb_k;
+    Estimate {
+        smiles,
+        formula,
+        tb_k: tb,
+        tb_pi90_low_k: tb - hw,
+        tb_pi90_high_k: tb + hw,
+        tb_typical_error_k: hw / 1.645,
+        tb_joback_k: r.tb_joback_k,
+        tb_stein_brown_k: n.tb_stein_brown_k(),
+        tb_variant: n.tb_variant,
+        tb_variants: TbVariant::ALL
+            .iter()
+            .zip(n.tb_variants)
+            .filter_map(|(v, t)| Some((v.name(), t?)))
+            .collect(),
+        family: r.family,
+        interval_class: r.class,
+        tb_terms: terms,
+        comfort,
+        notes,
+        tm_k: n.tm_k,
+        tc_k: n.tc_k,
+        pc_bar: n.pc_bar,
+        vc_cm3_mol: n.vc_cm3_mol,
+        hf_kj_mol: n.hf_kj_mol,
+        gf_kj_mol: n.gf_kj_mol,
+        cp: n.cp,
+        hvap_tb_kj_mol: n.hvap_tb_kj_mol,
+        hfus_kj_mol: n.hfus_kj_mol,
+        omega: n.omega,
+        n_atoms: r.n_atoms,
+        groups: r.groups.to_map(),
+    }
+}
+
+fn finish_molecule(r: Raw, m: &Molecule) -> Estimate {
+    finish(r, Some(m.smiles().to_string()), Some(m.formula()))
+}
+
 /// Estimate from a SMILES string.
 pub fn estimate_smiles(s: &str) -> Result<Estimate, EstimateError> {
-    raw_from_smiles(s).map(finish)
+    estimate_molecule(&parse_smiles(s)?)
 }
 
 /// Estimate from a parsed molecule.
 pub fn estimate_molecule(m: &Molecule) -> Result<Estimate, EstimateError> {
-    raw_from_molecule(m).map(finish)
+    raw_from_molecule(m).map(|r| finish_molecule(r, m))
 }
 
 /// Estimate from group counts given by hand (ids from the table). Atom
@@ -440,9 +565,10 @@ pub fn estimate_groups(g: &GroupCounts) -> Result<Estimate, EstimateError> {
             return Err(EstimateError::UnknownGroup { id: id.clone() });
         }
     }
-    let s = joback::sums(g);
+    let counts = TermCounts::from_map(g).map_err(|id| EstimateError::UnknownGroup { id })?;
+    let s = joback::sums_counts(&counts);
     let Some(stb) = s.tb else {
-        return Err(missing_tb(g));
+        return Err(missing_tb(&counts));
     };
     let polar = [
         "oh_alcohol",
@@ -457,19 +583,21 @@ pub fn estimate_groups(g: &GroupCounts) -> Result<Estimate, EstimateError> {
     .iter()
     .filter_map(|id| g.get(*id))
     .sum();
-    Ok(finish(Raw {
-        groups: g.clone(),
-        sums: s,
-        n_atoms: s.atoms.0 + s.atoms.1,
-        tb_joback_k: Some(joback::tb_k(stb)),
-        terms: g.clone(),
-        family: tb_features::family_of_groups(g),
-        class: tb_features::class_of_groups(g),
-        polar,
-        approximated: Vec::new(),
-        smiles: None,
-        formula: None,
-    }))
+    Ok(finish(
+        Raw {
+            groups: counts,
+            sums: s,
+            n_atoms: s.atoms.0 + s.atoms.1,
+            tb_joback_k: Some(joback::tb_k(stb)),
+            terms: counts,
+            family: tb_features::family_of_groups(g),
+            class: tb_features::class_of_groups(g),
+            polar,
+            approximated: false,
+        },
+        None,
+        None,
+    ))
 }
 
 impl Estimate {

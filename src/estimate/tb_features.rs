@@ -21,7 +21,8 @@
 //! groups follows L. Constantinou, R. Gani, AIChE J. 40 (1994) 1697–1710; the
 //! choice of corrections and their values are this project's own.
 
-use super::groups::{assign_tb_groups, GroupCounts};
+use super::groups::{assign_counts, GroupCounts};
+use super::terms::{t, TermCounts};
 use super::EstimateError;
 use crate::molecule::{BondOrder, Element, Molecule};
 
@@ -207,11 +208,7 @@ pub struct TbFeatures {
     pub polar: u32,
 }
 
-fn bump(g: &mut GroupCounts, id: &str) {
-    *g.entry(id.to_string()).or_insert(0) += 1;
-}
-
-/// Features of a molecule (errors as [`assign_tb_groups`]).
+/// Features of a molecule (errors as [`crate::estimate::assign_tb_groups`]).
 ///
 /// ```
 /// use ebullio::molecule::parse_smiles;
@@ -221,6 +218,25 @@ fn bump(g: &mut GroupCounts, id: &str) {
 /// assert_eq!((f.terms["nh_aromatic"], f.terms["fused_aromatic"]), (1, 2));
 /// ```
 pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
+    let f = feature_counts(m)?;
+    Ok(TbFeatures {
+        terms: f.terms.to_map(),
+        family: f.family,
+        class: f.class,
+        polar: f.polar,
+    })
+}
+
+/// [`features`] with the terms counted by index.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct FeatureCounts {
+    pub terms: TermCounts,
+    pub family: Family,
+    pub class: IntervalClass,
+    pub polar: u32,
+}
+
+pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateError> {
     // Group contributions describe organic compounds: H2, N2, Cl2 and the like would get
     // the bare intercept (about 198 K), far from the truth, so they are refused.
     if !m.atoms().iter().any(|a| a.element == Element::C) {
@@ -230,7 +246,8 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
             reason: "the molecule has no carbon atom; the group-contribution methods describe organic compounds only".into(),
         });
     }
-    let mut terms = assign_tb_groups(m)?;
+    let mut terms = TermCounts::new();
+    assign_counts(m, true, &mut terms)?;
     let atoms = m.atoms();
     let el = |i: usize| atoms[i].element;
     let is_terminal_o = |j: usize, k: usize| {
@@ -256,10 +273,10 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
                     })
                     .count();
                 if hal >= 2 && m.total_hydrogens(i) == 0 {
-                    bump(&mut terms, "perhalo_c");
+                    terms.add(t!("perhalo_c"));
                 }
                 if hal >= 1 && m.total_hydrogens(i) > 0 {
-                    bump(&mut terms, "halo_ch");
+                    terms.add(t!("halo_ch"));
                 }
                 if !nb.iter().any(|&(j, k)| is_terminal_o(j, k)) {
                     continue;
@@ -285,27 +302,27 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
                         && m.bonds()[k].in_ring
                 });
                 if ns.is_empty() && ring_ester {
-                    bump(&mut terms, "ester_ring");
+                    terms.add(t!("ester_ring"));
                 }
                 let id = match (ns.len(), o_single) {
                     (0, _) => None,
                     (1, 0) => {
                         let (nn, k) = ns[0];
                         Some(if m.bonds()[k].in_ring {
-                            "amide_ring"
+                            t!("amide_ring")
                         } else {
                             match m.total_hydrogens(nn) {
-                                0 => "amide_tertiary",
-                                1 => "amide_secondary",
-                                _ => "amide_primary",
+                                0 => t!("amide_tertiary"),
+                                1 => t!("amide_secondary"),
+                                _ => t!("amide_primary"),
                             }
                         })
                     }
-                    (1, _) => Some("carbamate"),
-                    _ => Some("urea"),
+                    (1, _) => Some(t!("carbamate")),
+                    _ => Some(t!("urea")),
                 };
                 if let Some(id) = id {
-                    bump(&mut terms, id);
+                    terms.add(id);
                     polar += 1;
                     for (nn, _) in ns {
                         amide_n[nn] = true;
@@ -315,13 +332,13 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
             e if e == Element::S => {
                 let oxo = nb.iter().filter(|&&(j, k)| is_terminal_o(j, k)).count();
                 if oxo == 1 {
-                    bump(&mut terms, "sulfoxide");
+                    terms.add(t!("sulfoxide"));
                 }
                 if oxo > 0 {
                     polar += 1;
                     for &(j, _) in nb {
                         if el(j) == Element::N && atoms[j].charge == 0 {
-                            bump(&mut terms, "sulfonamide");
+                            terms.add(t!("sulfonamide"));
                             amide_n[j] = true;
                         }
                     }
@@ -333,10 +350,10 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
     for i in 0..atoms.len() {
         let a = &atoms[i];
         if a.aromatic && (a.element == Element::O || a.element == Element::S) {
-            bump(&mut terms, "arom_o_s");
+            terms.add(t!("arom_o_s"));
         }
         if a.element == Element::N && a.aromatic && m.total_hydrogens(i) > 0 {
-            bump(&mut terms, "nh_aromatic");
+            terms.add(t!("nh_aromatic"));
         }
         if a.aromatic {
             let fused = m
@@ -345,25 +362,30 @@ pub fn features(m: &Molecule) -> Result<TbFeatures, EstimateError> {
                 .filter(|&&(j, k)| atoms[j].aromatic && m.bonds()[k].in_ring)
                 .count();
             if fused >= 3 {
-                bump(&mut terms, "fused_aromatic");
+                terms.add(t!("fused_aromatic"));
             }
         }
         if a.element == Element::N && !amide_n[i] && m.total_hydrogens(i) > 0 && a.charge == 0 {
             polar += 1;
         }
     }
-    for id in ["oh_alcohol", "oh_phenol", "cooh", "cn", "no2"] {
-        polar += terms.get(id).copied().unwrap_or(0);
+    for id in [
+        t!("oh_alcohol"),
+        t!("oh_phenol"),
+        t!("cooh"),
+        t!("cn"),
+        t!("no2"),
+    ] {
+        polar += terms.get(id);
     }
-    let counts = m.element_counts();
-    let has = |e: Element| counts.get(&e).is_some_and(|&c| c > 0);
+    let has = |e: Element| m.has_element(e);
     let family = Family::from_classes(
         has(Element::F) || has(Element::CL) || has(Element::BR) || has(Element::I),
         has(Element::O),
         has(Element::N),
         has(Element::S),
     );
-    Ok(TbFeatures {
+    Ok(FeatureCounts {
         terms,
         family,
         class: IntervalClass::of(family, has(Element::F)),

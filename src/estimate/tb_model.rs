@@ -16,6 +16,7 @@
 
 use super::groups::GroupCounts;
 use super::stein_brown;
+use super::terms::{self, TermCounts, N_JOBACK, N_TERMS};
 use std::collections::BTreeMap;
 use std::sync::OnceLock;
 
@@ -248,6 +249,101 @@ impl FittedModel {
             outside,
         }
     }
+}
+
+/// A fitted model's contributions by term index (built once from [`FittedModel`]).
+#[derive(Debug, Clone)]
+pub(crate) struct IndexedModel {
+    /// The model it indexes.
+    pub model: &'static FittedModel,
+    value: [f64; N_TERMS],
+    /// 0: no contribution, 1: a prior (not fitted), 2: fitted.
+    state: [u8; N_TERMS],
+}
+
+/// [`Prediction`] with the outside terms as a bit set over term indices.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct IndexedPrediction {
+    pub tb_k: f64,
+    /// Bit `i`: term `i` is outside the calibration.
+    pub outside: u64,
+}
+
+impl IndexedModel {
+    fn new(model: &'static FittedModel) -> Self {
+        let mut m = IndexedModel {
+            model,
+            value: [0.0; N_TERMS],
+            state: [0; N_TERMS],
+        };
+        for (id, c) in &model.contributions {
+            if let Some(i) = terms::index(id) {
+                m.value[i] = c.value;
+                m.state[i] = if c.fitted { 2 } else { 1 };
+            }
+        }
+        m
+    }
+
+    /// [`FittedModel::predict`] by index: the same sum in the same order.
+    pub fn predict(&self, extended_terms: &TermCounts) -> IndexedPrediction {
+        let variant = self.model.variant;
+        let form = variant.form().unwrap_or(Form::Log);
+        let terms = if variant.extended() {
+            *extended_terms
+        } else {
+            extended_terms.published()
+        };
+        let mut s = 0.0;
+        let mut outside = 0u64;
+        for (i, n) in terms.iter_sorted() {
+            if self.state[i] > 0 {
+                s += n as f64 * self.value[i];
+            }
+            if self.state[i] < 2 {
+                outside |= 1 << i;
+            }
+        }
+        if !variant.extended() {
+            for i in N_JOBACK..terms::FIRST_CORRECTION {
+                if extended_terms.get(i) > 0 {
+                    outside |= 1 << i;
+                }
+            }
+        }
+        IndexedPrediction {
+            tb_k: form.tb(s),
+            outside,
+        }
+    }
+
+    /// The outside terms of a prediction as ids, in the order [`FittedModel::predict`] lists them.
+    pub fn outside_ids(&self, outside: u64) -> Vec<String> {
+        let listed = |i: usize| outside & (1 << i) != 0;
+        let mut ids: Vec<String> = Vec::new();
+        let extended = self.model.variant.extended();
+        for &i in terms::SORTED.iter() {
+            let i = i as usize;
+            if listed(i) && (extended || !terms::is_new_group(i)) {
+                ids.push(terms::IDS[i].to_string());
+            }
+        }
+        if !extended {
+            for &i in terms::SORTED.iter() {
+                let i = i as usize;
+                if listed(i) && terms::is_new_group(i) {
+                    ids.push(terms::IDS[i].to_string());
+                }
+            }
+        }
+        ids
+    }
+}
+
+/// The committed models by index, in the order of [`models`].
+pub(crate) fn indexed_models() -> &'static [IndexedModel] {
+    static M: OnceLock<Vec<IndexedModel>> = OnceLock::new();
+    M.get_or_init(|| models().iter().map(IndexedModel::new).collect())
 }
 
 const MODEL_CSV: &str = include_str!("../../reference-data/tb-model.csv");

@@ -214,7 +214,7 @@ pub(super) fn canonical_smiles(m: &Molecule) -> String {
     let mut closure_bond = vec![false; m.bonds.len()];
     let mut roots = Vec::new();
     let sorted_nb = |v: usize| {
-        let mut nb: Vec<(usize, usize)> = m.adj[v].clone();
+        let mut nb: Vec<(usize, usize)> = m.adj[v].to_vec();
         nb.sort_by_key(|&(j, _)| ranks[j]);
         nb
     };

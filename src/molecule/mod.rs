@@ -114,7 +114,7 @@ pub struct Molecule {
     atoms: Vec<Atom>,
     bonds: Vec<Bond>,
     /// For each atom, (neighbour, bond index).
-    adj: Vec<Vec<(usize, usize)>>,
+    adj: Adjacency,
     components: usize,
     smiles: String,
 }
@@ -173,13 +173,47 @@ pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
     Ok(m)
 }
 
-fn adjacency(n: usize, bonds: &[Bond]) -> Vec<Vec<(usize, usize)>> {
-    let mut adj = vec![Vec::new(); n];
-    for (k, b) in bonds.iter().enumerate() {
-        adj[b.a].push((b.b, k));
-        adj[b.b].push((b.a, k));
+/// Every atom's (neighbour, bond index) list in one flat array (two allocations per
+/// molecule instead of one per atom); `adj[i]` is atom `i`'s slice, in bond order.
+#[derive(Debug, Clone, PartialEq)]
+struct Adjacency {
+    /// Atom `i`'s entries are `nb[start[i]..start[i + 1]]`.
+    start: Vec<usize>,
+    nb: Vec<(usize, usize)>,
+}
+
+impl Adjacency {
+    fn get(&self, i: usize) -> Option<&[(usize, usize)]> {
+        let (a, b) = (*self.start.get(i)?, *self.start.get(i + 1)?);
+        self.nb.get(a..b)
     }
-    adj
+}
+
+impl std::ops::Index<usize> for Adjacency {
+    type Output = [(usize, usize)];
+    fn index(&self, i: usize) -> &[(usize, usize)] {
+        &self.nb[self.start[i]..self.start[i + 1]]
+    }
+}
+
+fn adjacency(n: usize, bonds: &[Bond]) -> Adjacency {
+    let mut start = vec![0usize; n + 1];
+    for b in bonds {
+        start[b.a + 1] += 1;
+        start[b.b + 1] += 1;
+    }
+    for i in 0..n {
+        start[i + 1] += start[i];
+    }
+    let mut fill = start.clone();
+    let mut nb = vec![(0usize, 0usize); 2 * bonds.len()];
+    for (k, b) in bonds.iter().enumerate() {
+        nb[fill[b.a]] = (b.b, k);
+        fill[b.a] += 1;
+        nb[fill[b.b]] = (b.a, k);
+        fill[b.b] += 1;
+    }
+    Adjacency { start, nb }
 }
 
 impl Molecule {
@@ -195,7 +229,7 @@ impl Molecule {
 
     /// Neighbours of atom `i` as (atom index, bond index).
     pub fn neighbours(&self, i: usize) -> &[(usize, usize)] {
-        self.adj.get(i).map(Vec::as_slice).unwrap_or(&[])
+        self.adj.get(i).unwrap_or(&[])
     }
 
     /// Number of dot-separated components (connected pieces).
@@ -253,7 +287,18 @@ impl Molecule {
 
     /// Total number of atoms, hydrogens included.
     pub fn atom_count_with_hydrogens(&self) -> u32 {
-        self.element_counts().values().sum()
+        self.atoms.iter().map(|a| 1 + a.hydrogens as u32).sum()
+    }
+
+    /// Atoms of each element by atomic number, hydrogens included (what
+    /// [`Molecule::element_counts`] gives, without building a map).
+    fn counts_by_number(&self) -> [u32; 119] {
+        let mut c = [0u32; 119];
+        for a in &self.atoms {
+            c[a.element.number() as usize] += 1;
+            c[1] += a.hydrogens as u32;
+        }
+        c
     }
 
     /// Net formal charge.
@@ -279,37 +324,56 @@ impl Molecule {
     /// assert_eq!(ebullio::molecule::parse_smiles("ClCCl").unwrap().formula(), "CH2Cl2");
     /// ```
     pub fn formula(&self) -> String {
-        let counts = self.element_counts();
-        let mut parts: Vec<(&str, u32)> = Vec::new();
-        let has_c = counts.contains_key(&Element::C);
+        let mut s = String::new();
+        self.write_formula(&mut s);
+        s
+    }
+
+    /// Appends [`Molecule::formula`] to `out` (no text of its own built).
+    pub fn write_formula(&self, out: &mut String) {
+        use std::fmt::Write as _;
+        let counts = self.counts_by_number();
+        let mut push = |sym: &str, n: u32| {
+            out.push_str(sym);
+            if n > 1 {
+                let _ = write!(out, "{n}");
+            }
+        };
+        let has_c = counts[6] > 0;
         if has_c {
-            parts.push(("C", counts[&Element::C]));
-            if let Some(&h) = counts.get(&Element::H) {
-                parts.push(("H", h));
+            push("C", counts[6]);
+            if counts[1] > 0 {
+                push("H", counts[1]);
             }
         }
-        let mut rest: Vec<(&str, u32)> = counts
-            .iter()
-            .filter(|(e, _)| !has_c || (**e != Element::C && **e != Element::H))
-            .map(|(e, n)| (e.symbol(), *n))
-            .collect();
-        rest.sort();
-        parts.extend(rest);
-        let mut s = String::new();
-        for (sym, n) in parts {
-            s.push_str(sym);
-            if n > 1 {
-                s.push_str(&n.to_string());
+        // the other elements present, alphabetical by symbol
+        let mut rest = [Element::H; 119];
+        let mut k = 0;
+        for (z, &n) in counts.iter().enumerate() {
+            if n > 0 && !(has_c && (z == 1 || z == 6)) {
+                rest[k] = Element::from_number(z as u8).unwrap_or(Element::H);
+                k += 1;
             }
+        }
+        let rest = &mut rest[..k];
+        rest.sort_unstable_by_key(|e| e.symbol());
+        for e in rest.iter() {
+            push(e.symbol(), counts[e.number() as usize]);
         }
         let q = self.net_charge();
         if q != 0 {
-            s.push(if q > 0 { '+' } else { '-' });
+            out.push(if q > 0 { '+' } else { '-' });
             if q.abs() > 1 {
-                s.push_str(&q.abs().to_string());
+                let _ = write!(out, "{}", q.abs());
             }
         }
-        s
+    }
+
+    /// Whether any atom is of element `e` (hydrogens on atoms count as H).
+    pub fn has_element(&self, e: Element) -> bool {
+        self.atoms
+            .iter()
+            .any(|a| a.element == e || (e == Element::H && a.hydrogens > 0))
     }
 
     /// A string identical for every valid spelling of the same structure
