@@ -4,10 +4,15 @@ use super::common::parse_pressure;
 use super::common::{Format, OutputArgs};
 use super::{InputError, Outcome};
 use ebullio::estimate::anchor::MeasuredPoint;
+use ebullio::estimate::batch::at_pressures;
 use ebullio::estimate::batch::EstimateRow as Row;
-use ebullio::estimate::{estimate_groups, estimate_smiles, parse_groups, EstimateError};
+use ebullio::estimate::{
+    estimate_groups, estimate_numbers, estimate_smiles, parse_groups, EstimateError,
+};
+use ebullio::table_io::estimates::EstimateRows;
 use ebullio::table_io::read_text_table_with;
 use ebullio::units::parse_temperature;
+use ebullio::vapor::Curve;
 use rayon::prelude::*;
 use std::io::IsTerminal;
 use std::path::PathBuf;
@@ -147,6 +152,25 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         b
     });
     super::common::batch_started(jobs.len());
+    // CSV of a table is streamed: each row written as it is estimated, no row kept.
+    if args.out.format() == Format::Csv
+        && args.report.is_none()
+        && rows.is_empty()
+        && args.input.is_some()
+    {
+        let inputs: Vec<&std::path::Path> = args.input.iter().map(|p| p.as_path()).collect();
+        let write = |w: &mut dyn std::io::Write| {
+            stream_csv(w, &jobs, &ps, &measured, bar.as_ref()).map_err(csv_io)
+        };
+        match &args.out.output {
+            Some(p) => super::common::write_file_atomic_streamed(p, &inputs, write)?,
+            None => super::common::print_stdout_with(write)?,
+        }
+        if let Some(b) = bar {
+            b.finish_and_clear();
+        }
+        return Ok(Outcome::Success);
+    }
     let done: Vec<Row> = jobs
         .into_par_iter()
         .map(|j| {
@@ -216,6 +240,80 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
         super::common::write_report(path, &html, &inputs, args.out.output.as_deref())?;
     }
     Ok(Outcome::Success)
+}
+
+/// Structures estimated and written per chunk: chunks are estimated in parallel into
+/// their own buffers and written in input order.
+const CHUNK: usize = 1024;
+
+/// The CSV of `jobs` into `out`, row by row as they are estimated (the rows
+/// `write_estimates_csv` writes for the same jobs, byte for byte).
+fn stream_csv(
+    out: &mut dyn std::io::Write,
+    jobs: &[Job],
+    ps: &[f64],
+    measured: &[MeasuredPoint],
+    bar: Option<&indicatif::ProgressBar>,
+) -> Result<(), csv::Error> {
+    ebullio::table_io::estimates::write_estimates_header(&mut *out, ps)?;
+    // a few chunks per thread at a time, so memory stays bounded by the chunk size
+    let group = CHUNK * 4 * rayon::current_num_threads();
+    for part in jobs.chunks(group) {
+        let texts: Vec<Result<Vec<u8>, csv::Error>> = part
+            .par_chunks(CHUNK)
+            .map(|chunk| {
+                let mut w = EstimateRows::new(Vec::with_capacity(200 * chunk.len()));
+                for j in chunk {
+                    write_job(&mut w, j, ps, measured)?;
+                    if let Some(b) = bar {
+                        b.inc(1);
+                    }
+                    super::common::batch_step();
+                }
+                w.into_inner()
+            })
+            .collect();
+        for t in texts {
+            out.write_all(&t?)?;
+        }
+    }
+    out.flush()?;
+    Ok(())
+}
+
+/// One job's row, as `Row::new` and `write_estimates_csv` would give it.
+fn write_job(
+    w: &mut EstimateRows<Vec<u8>>,
+    j: &Job,
+    ps: &[f64],
+    measured: &[MeasuredPoint],
+) -> Result<(), csv::Error> {
+    let compound = j.compound.as_deref().unwrap_or_default();
+    let Some(s) = &j.smiles else {
+        let e = j
+            .read_error
+            .clone()
+            .unwrap_or_else(|| EstimateError::NoGroups.to_string());
+        return w.error_row(compound, "", ps.len(), &e);
+    };
+    if !measured.is_empty() {
+        let r = Row::new(
+            estimate_smiles(s),
+            j.compound.clone(),
+            Some(s.clone()),
+            ps,
+            measured,
+        );
+        return w.row(&r, ps.len());
+    }
+    match estimate_numbers(s) {
+        Ok((n, m)) => {
+            let curve = n.curve();
+            let at = at_pressures(curve.as_ref().map(|c| c as &dyn Curve), ps);
+            w.numbers_row(compound, &m, &n, &at)
+        }
+        Err(e) => w.error_row(compound, s, ps.len(), &e.to_string()),
+    }
 }
 
 /// A CSV write error as the I/O error it wraps (so a closed pipe is still a closed pipe).

@@ -1,8 +1,9 @@
 //! Estimate rows as CSV: the columns `ebullio estimate --format csv` writes (and the demo's estimates.csv).
 
 use super::non_finite::without_non_finite;
-use crate::estimate::batch::EstimateRow;
-use crate::estimate::Estimate;
+use crate::estimate::batch::{AtPressure, EstimateRow};
+use crate::estimate::{terms, Numbers};
+use crate::molecule::Molecule;
 
 use std::fmt::Write as _;
 use std::io::Write;
@@ -12,7 +13,7 @@ use std::io::Write;
 /// output never holds `NaN` or `inf` text and needs no cleaning pass afterwards.
 struct Fields<'a, W: Write> {
     w: &'a mut csv::Writer<W>,
-    buf: String,
+    buf: &'a mut String,
 }
 
 impl<W: Write> Fields<'_, W> {
@@ -23,19 +24,15 @@ impl<W: Write> Fields<'_, W> {
     fn num(&mut self, v: Option<f64>, digits: usize) -> Result<(), csv::Error> {
         self.buf.clear();
         if let Some(x) = v.filter(|x| x.is_finite()) {
-            super::decimal::push_fixed(&mut self.buf, x, digits);
+            super::decimal::push_fixed(self.buf, x, digits);
         }
         self.w.write_field(&self.buf)
     }
 
-    fn groups(&mut self, e: &Estimate) -> Result<(), csv::Error> {
-        self.buf.clear();
-        for (i, (k, v)) in e.groups.iter().enumerate() {
-            let sep = if i == 0 { "" } else { ";" };
-            let _ = write!(self.buf, "{sep}{k}={v}");
-        }
+    /// The text in the buffer as a text cell.
+    fn buffered_text(&mut self) -> Result<(), csv::Error> {
         self.w
-            .write_field(without_non_finite(&self.buf, "").as_ref())
+            .write_field(without_non_finite(self.buf, "").as_ref())
     }
 
     fn end(&mut self) -> Result<(), csv::Error> {
@@ -56,13 +53,21 @@ pub fn estimates_csv(rows: &[EstimateRow], ps: &[f64]) -> Result<String, csv::Er
 /// The rows as CSV streamed into `out` (what [`estimates_csv`] returns as text), through the
 /// csv crate's buffer: no text of the whole table is built.
 pub fn write_estimates_csv(
-    out: impl Write,
+    mut out: impl Write,
     rows: &[EstimateRow],
     ps: &[f64],
 ) -> Result<(), csv::Error> {
-    let mut w = csv::WriterBuilder::new()
-        .buffer_capacity(64 * 1024)
-        .from_writer(out);
+    write_estimates_header(&mut out, ps)?;
+    let mut w = EstimateRows::new(out);
+    for r in rows {
+        w.row(r, ps.len())?;
+    }
+    w.flush()
+}
+
+/// The header line of the estimate CSV, one column `t_k_at_<p>_pa` per pressure in `ps` (Pa).
+pub fn write_estimates_header(out: impl Write, ps: &[f64]) -> Result<(), csv::Error> {
+    let mut w = csv::Writer::from_writer(out);
     let mut head: Vec<String> = [
         "compound",
         "smiles",
@@ -94,52 +99,208 @@ pub fn write_estimates_csv(
     head.push("anchored_tb_k".into());
     head.push("error".into());
     w.write_record(&head)?;
-    let mut f = Fields {
-        w: &mut w,
-        buf: String::with_capacity(64),
-    };
-    for r in rows {
+    w.flush()?;
+    Ok(())
+}
+
+/// Estimate rows written one at a time below a header from [`write_estimates_header`]
+/// (several writers may fill separate buffers that are then joined in order).
+pub struct EstimateRows<W: Write> {
+    w: csv::Writer<W>,
+    buf: String,
+}
+
+/// What the estimate columns hold, from an [`Estimate`] or from [`Numbers`].
+struct Values<'a> {
+    smiles: &'a str,
+    tb: [Option<f64>; 6],
+    variant: &'static str,
+    props: [Option<f64>; 9],
+}
+
+impl<W: Write> EstimateRows<W> {
+    /// Rows into `out`.
+    pub fn new(out: W) -> Self {
+        EstimateRows {
+            w: csv::WriterBuilder::new()
+                .buffer_capacity(64 * 1024)
+                .from_writer(out),
+            buf: String::with_capacity(64),
+        }
+    }
+
+    fn fields(&mut self) -> Fields<'_, W> {
+        Fields {
+            w: &mut self.w,
+            buf: &mut self.buf,
+        }
+    }
+
+    /// One row of `ebullio estimate`, `n_ps` boiling points at pressure wide.
+    pub fn row(&mut self, r: &EstimateRow, n_ps: usize) -> Result<(), csv::Error> {
+        let mut f = self.fields();
         f.text(r.compound.as_deref().unwrap_or_default())?;
         match &r.estimate {
             Some(e) => {
-                f.text(e.smiles.as_deref().unwrap_or_default())?;
-                f.text(e.formula.as_deref().unwrap_or_default())?;
-                for v in [
-                    Some(e.tb_k),
-                    Some(e.tb_pi90_low_k),
-                    Some(e.tb_pi90_high_k),
-                    Some(e.tb_typical_error_k),
-                    e.tb_joback_k,
-                    e.tb_stein_brown_k,
-                ] {
-                    f.num(v, 2)?;
-                }
-                f.text(e.tb_variant.name())?;
-                f.num(e.tm_k, 2)?;
-                f.num(e.tc_k, 2)?;
-                f.num(e.pc_bar, 3)?;
-                f.num(e.vc_cm3_mol, 1)?;
-                f.num(e.hf_kj_mol, 2)?;
-                f.num(e.gf_kj_mol, 2)?;
-                f.num(e.hvap_tb_kj_mol, 3)?;
-                f.num(e.hfus_kj_mol, 3)?;
-                f.num(e.omega, 4)?;
-                f.groups(e)?;
+                f.estimate(
+                    &Values {
+                        smiles: e.smiles.as_deref().unwrap_or_default(),
+                        tb: [
+                            Some(e.tb_k),
+                            Some(e.tb_pi90_low_k),
+                            Some(e.tb_pi90_high_k),
+                            Some(e.tb_typical_error_k),
+                            e.tb_joback_k,
+                            e.tb_stein_brown_k,
+                        ],
+                        variant: e.tb_variant.name(),
+                        props: [
+                            e.tm_k,
+                            e.tc_k,
+                            e.pc_bar,
+                            e.vc_cm3_mol,
+                            e.hf_kj_mol,
+                            e.gf_kj_mol,
+                            e.hvap_tb_kj_mol,
+                            e.hfus_kj_mol,
+                            e.omega,
+                        ],
+                    },
+                    |buf| buf.push_str(e.formula.as_deref().unwrap_or_default()),
+                    |buf| {
+                        for (i, (k, v)) in e.groups.iter().enumerate() {
+                            let sep = if i == 0 { "" } else { ";" };
+                            let _ = write!(buf, "{sep}{k}={v}");
+                        }
+                    },
+                )?;
             }
-            None => {
-                f.text(r.smiles_given.as_deref().unwrap_or_default())?;
-                for _ in 0..18 {
-                    f.text("")?;
-                }
-            }
+            None => f.no_estimate(r.smiles_given.as_deref().unwrap_or_default())?,
         }
-        for k in 0..ps.len() {
+        for k in 0..n_ps {
             f.num(r.at.get(k).and_then(|a| a.t_k), 2)?;
         }
         f.num(r.anchored.as_ref().map(|a| a.tb_k), 2)?;
         f.text(&r.error)?;
-        f.end()?;
+        f.end()
     }
-    w.flush()?;
-    Ok(())
+
+    /// The row [`EstimateRows::row`] writes for an estimate without anchoring, from its
+    /// numbers (`m` the molecule they came from, `at` the boiling points at pressure).
+    pub fn numbers_row(
+        &mut self,
+        compound: &str,
+        m: &Molecule,
+        n: &Numbers,
+        at: &[AtPressure],
+    ) -> Result<(), csv::Error> {
+        let mut f = self.fields();
+        f.text(compound)?;
+        let hw = n.half_width_k;
+        f.estimate(
+            &Values {
+                smiles: m.smiles(),
+                tb: [
+                    Some(n.tb_k),
+                    Some(n.tb_k - hw),
+                    Some(n.tb_k + hw),
+                    Some(hw / 1.645),
+                    n.tb_joback_k,
+                    n.tb_stein_brown_k(),
+                ],
+                variant: n.tb_variant.name(),
+                props: [
+                    n.tm_k,
+                    n.tc_k,
+                    n.pc_bar,
+                    n.vc_cm3_mol,
+                    n.hf_kj_mol,
+                    n.gf_kj_mol,
+                    n.hvap_tb_kj_mol,
+                    n.hfus_kj_mol,
+                    n.omega,
+                ],
+            },
+            |buf| m.write_formula(buf),
+            |buf| {
+                for (k, (i, v)) in n.groups.iter_sorted().enumerate() {
+                    if k > 0 {
+                        buf.push(';');
+                    }
+                    buf.push_str(terms::IDS[i]);
+                    buf.push('=');
+                    let _ = write!(buf, "{v}");
+                }
+            },
+        )?;
+        for a in at {
+            f.num(a.t_k, 2)?;
+        }
+        f.num(None, 2)?;
+        f.text("")?;
+        f.end()
+    }
+
+    /// The row [`EstimateRows::row`] writes for a structure without an estimate.
+    pub fn error_row(
+        &mut self,
+        compound: &str,
+        smiles_given: &str,
+        n_ps: usize,
+        error: &str,
+    ) -> Result<(), csv::Error> {
+        let mut f = self.fields();
+        f.text(compound)?;
+        f.no_estimate(smiles_given)?;
+        for _ in 0..n_ps + 1 {
+            f.num(None, 2)?;
+        }
+        f.text(error)?;
+        f.end()
+    }
+
+    /// Write out what is buffered.
+    pub fn flush(&mut self) -> Result<(), csv::Error> {
+        self.w.flush()?;
+        Ok(())
+    }
+
+    /// The underlying writer, everything written out.
+    pub fn into_inner(self) -> Result<W, csv::Error> {
+        self.w
+            .into_inner()
+            .map_err(|e| csv::Error::from(std::io::Error::other(e.error().to_string())))
+    }
+}
+
+impl<W: Write> Fields<'_, W> {
+    fn estimate(
+        &mut self,
+        v: &Values,
+        formula: impl FnOnce(&mut String),
+        groups: impl FnOnce(&mut String),
+    ) -> Result<(), csv::Error> {
+        self.text(v.smiles)?;
+        self.buf.clear();
+        formula(self.buf);
+        self.buffered_text()?;
+        for x in v.tb {
+            self.num(x, 2)?;
+        }
+        self.text(v.variant)?;
+        for (x, digits) in v.props.into_iter().zip([2, 2, 3, 1, 2, 2, 3, 3, 4]) {
+            self.num(x, digits)?;
+        }
+        self.buf.clear();
+        groups(self.buf);
+        self.buffered_text()
+    }
+
+    fn no_estimate(&mut self, smiles_given: &str) -> Result<(), csv::Error> {
+        self.text(smiles_given)?;
+        for _ in 0..18 {
+            self.text("")?;
+        }
+        Ok(())
+    }
 }
