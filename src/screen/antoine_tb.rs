@@ -9,6 +9,7 @@
 //! a second finding naming the slip ([`super::slip`]).
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::{OneDecimal as D1, Shortest};
 use super::slip::diagnose;
 use crate::units::TemperatureUnit;
 use crate::vapor::AntoineConstants;
@@ -32,8 +33,11 @@ pub fn check_implied_vs_listed(
     out.push(Finding::new(
         CheckCode::TbAntoineMismatch,
         format!(
-            "The Antoine constants imply a normal boiling point of {implied_tb_k:.1} K; the listed {listed_tb_k:.1} K disagrees by {:.1} K (tolerance {tol_k} K).",
-            d.abs()
+            "The Antoine constants imply a normal boiling point of {} K; the listed {} K disagrees by {} K (tolerance {} K).",
+            D1(implied_tb_k),
+            D1(listed_tb_k),
+            D1(d.abs()),
+            Shortest(tol_k)
         ),
     ));
     if let Some(slip) = diagnose(k, listed_tb_k, tb_unit, tol_k) {

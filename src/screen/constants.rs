@@ -6,6 +6,7 @@
 //! see [`crate::vapor::slope::TROUTON_BAND_J_MOL_K`].
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::OneDecimal as D1;
 use crate::vapor::slope::{svap_j_mol_k, trouton_plausible, TROUTON_BAND_J_MOL_K};
 use crate::vapor::AntoineConstants;
 
@@ -54,8 +55,11 @@ pub fn check_constants(
         out.push(Finding::new(
             CheckCode::AntoineDenominatorNotPositive,
             format!(
-                "t + C falls to {worst:.1} (C = {}) within {lo:.1}–{hi:.1} K, where the Antoine equation is undefined.",
-                k.c
+                "t + C falls to {} (C = {}) within {}–{} K, where the Antoine equation is undefined.",
+                D1(worst),
+                k.c,
+                D1(lo),
+                D1(hi)
             ),
         ));
         return;

@@ -6,6 +6,7 @@
 //! another joins both.
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::OneDecimal as D1;
 use super::sources::{fast_hash, with_name_key, FastMap};
 use rayon::prelude::*;
 
@@ -220,8 +221,11 @@ pub fn disagreement(v: f64, lo: (f64, usize), hi: (f64, usize), tol_k: f64) -> O
         Finding::new(
             CheckCode::DuplicateDisagrees,
             format!(
-                "The same compound is also on line {} with a boiling point {d:.1} K different ({:.1} K there, {v:.1} K here).",
-                far.1, far.0
+                "The same compound is also on line {} with a boiling point {} K different ({} K there, {} K here).",
+                far.1,
+                D1(d),
+                D1(far.0),
+                D1(v)
             ),
         )
     })

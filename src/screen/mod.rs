@@ -36,6 +36,7 @@ pub mod duplicates;
 mod false_cause;
 mod finding;
 pub mod identity;
+mod number_text;
 pub mod outliers;
 pub mod reference;
 mod report;

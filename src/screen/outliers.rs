@@ -8,6 +8,7 @@
 //! Outliers*, ASQC Quality Press (1993) (from memory).
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::OneDecimal as D1;
 
 /// |z| above which a residual is an outlier.
 pub const Z_LIMIT: f64 = 3.5;
@@ -64,7 +65,11 @@ pub fn outlier(residual: f64, med: f64, mad: f64) -> Option<Finding> {
         Finding::new(
             CheckCode::StructureOutlier,
             format!(
-                "Against the structure estimate this row's residual of {residual:+.1} K is an outlier in the table (robust z = {z:.1}; median {med:+.1} K, MAD {mad:.1} K)."
+                "Against the structure estimate this row's residual of {:+} K is an outlier in the table (robust z = {}; median {:+} K, MAD {} K).",
+                D1(residual),
+                D1(z),
+                D1(med),
+                D1(mad)
             ),
         )
     })

@@ -1,6 +1,7 @@
 //! Boiling point against the reference table (bundled or user-supplied).
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::OneDecimal as D1;
 use super::sources::{Identity, ReferenceLookup};
 
 /// Compare `tb_k` (listed, or implied when `listed` is false) with the
@@ -22,9 +23,10 @@ pub fn check_reference(
         out.push(Finding::new(
             CheckCode::ReferenceMismatch,
             format!(
-                "The {which} boiling point {tb_k:.1} K differs by {:.1} K from the reference value {:.1} K for {} ({}).",
-                d.abs(),
-                entry.tb_k,
+                "The {which} boiling point {} K differs by {} K from the reference value {} K for {} ({}).",
+                D1(tb_k),
+                D1(d.abs()),
+                D1(entry.tb_k),
                 entry.name,
                 entry.source
             ),

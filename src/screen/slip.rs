@@ -19,6 +19,7 @@
 //! Otherwise the row only says how far apart the two boiling points are.
 
 use super::finding::CheckCode;
+use super::number_text::OneDecimal as D1;
 use crate::units::{PressureUnit, TemperatureUnit, ATM_PA, CELSIUS_OFFSET};
 use crate::vapor::slope::{svap_j_mol_k, trouton_plausible};
 use crate::vapor::{AntoineConstants, AntoineConvention, Curve, LogBase};
@@ -103,15 +104,16 @@ pub fn diagnose(
     let mut best: Vec<Cand> = Vec::new();
 
     // 1. Another convention (pressure unit, log base, K vs °C), alone or combined.
-    let t_units: Vec<TemperatureUnit> = match declared.t_unit {
+    let t_units: &[TemperatureUnit] = match declared.t_unit {
         TemperatureUnit::Kelvin | TemperatureUnit::Celsius => {
-            vec![TemperatureUnit::Kelvin, TemperatureUnit::Celsius]
+            &[TemperatureUnit::Kelvin, TemperatureUnit::Celsius]
         }
-        other => vec![other],
+        TemperatureUnit::Fahrenheit => &[TemperatureUnit::Fahrenheit],
+        TemperatureUnit::Rankine => &[TemperatureUnit::Rankine],
     };
     for log_base in [LogBase::Ten, LogBase::E] {
         for &p_unit in &SLIP_PRESSURE_UNITS {
-            for &t_unit in &t_units {
+            for &t_unit in t_units {
                 let conv = AntoineConvention {
                     log_base,
                     p_unit,
@@ -127,65 +129,29 @@ pub fn diagnose(
                 let Some(t) = implied(&alt) else { continue };
                 let r = (t - listed_tb_k).abs();
                 if r.is_nan() || r > tol_k {
-                    continue; // the message is only written for a candidate that fits
+                    continue;
                 }
                 let dp = u8::from(p_unit != declared.p_unit);
                 let db = u8::from(log_base != declared.log_base);
                 let dt = u8::from(t_unit != declared.t_unit);
                 let changes = dp + db + dt;
-                let tail =
-                    format!("the implied Tb is {t:.1} K, matching the listed {listed_tb_k:.1} K");
-                let (code, message) = match (dp, db, dt) {
-                    (1, 0, 0) => (
-                        CheckCode::SlipPressureUnit,
-                        format!(
-                            "The constants look like {}, not {}: with {} {tail}.",
-                            p_unit.symbol(),
-                            declared.p_unit.symbol(),
-                            p_unit.symbol()
-                        ),
-                    ),
-                    (0, 1, 0) => (
-                        CheckCode::SlipLogBase,
-                        format!(
-                            "The constants look like {}, not {}: with {} {tail}.",
-                            log_base.symbol(),
-                            declared.log_base.symbol(),
-                            log_base.symbol()
-                        ),
-                    ),
-                    (0, 0, 1) => (
-                        CheckCode::SlipConstantsTemperatureUnit,
-                        format!(
-                            "The constants look like they are for t in {}, not {} (C = {}): read that way {tail}.",
-                            t_unit_word(t_unit),
-                            t_unit_word(declared.t_unit),
-                            k.c
-                        ),
-                    ),
-                    _ => (
-                        CheckCode::SlipConvention,
-                        format!(
-                            "The constants look like {conv}, not {declared}: with {conv} {tail}."
-                        ),
-                    ),
+                let code = match (dp, db, dt) {
+                    (1, 0, 0) => CheckCode::SlipPressureUnit,
+                    (0, 1, 0) => CheckCode::SlipLogBase,
+                    (0, 0, 1) => CheckCode::SlipConstantsTemperatureUnit,
+                    _ => CheckCode::SlipConvention,
                 };
                 offer(
                     &mut best,
                     (changes, 0),
                     (t - listed_tb_k).abs(),
                     &alt,
-                    Slip {
-                        code,
-                        corrected_tb_k: t,
-                        matches_k: listed_tb_k,
-                        message,
-                    },
+                    Cand::new(code, t, listed_tb_k, Msg::Label { conv, c: k.c }),
                     tol_k,
                 );
                 if let Some(c) = best.last_mut() {
-                    if c.2.code == CheckCode::SlipPressureUnit && c.3.is_none() {
-                        c.3 = Some(p_unit);
+                    if c.code == CheckCode::SlipPressureUnit && c.unit.is_none() {
+                        c.unit = Some(p_unit);
                     }
                 }
             }
@@ -204,15 +170,7 @@ pub fn diagnose(
             (1, 0),
             (t - listed_tb_k).abs(),
             &swapped,
-            Slip {
-                code: CheckCode::SlipSwappedAB,
-                corrected_tb_k: t,
-                matches_k: listed_tb_k,
-                message: format!(
-                    "A and B look swapped: with A = {} and B = {} the implied Tb is {t:.1} K, matching the listed {listed_tb_k:.1} K.",
-                    k.b, k.a
-                ),
-            },
+            Cand::new(CheckCode::SlipSwappedAB, t, listed_tb_k, Msg::Swapped),
             tol_k,
         );
     }
@@ -231,17 +189,12 @@ pub fn diagnose(
                 (1, 0),
                 (as_k - t_impl).abs(),
                 k,
-                Slip {
-                    code: CheckCode::SlipTbTemperatureUnit,
-                    corrected_tb_k: as_k,
-                    matches_k: t_impl,
-                    message: format!(
-                        "The listed boiling point looks like {} written as {}: {number} {} is {as_k:.1} K, matching the implied {t_impl:.1} K.",
-                        t_unit_word(was),
-                        t_unit_word(tb_unit),
-                        t_unit_word(was)
-                    ),
-                },
+                Cand::new(
+                    CheckCode::SlipTbTemperatureUnit,
+                    as_k,
+                    t_impl,
+                    Msg::TbUnit { was, number },
+                ),
                 tol_k,
             );
         }
@@ -249,10 +202,142 @@ pub fn diagnose(
     // 4. One digit dropped, doubled or the decimal point misplaced, in A, B,
     // C or the listed Tb. Many variants exist, so these rank after any
     // plausible one-change label slip, and are only tried when none exists.
-    if best.iter().map(|c| c.0 .0).min().is_none_or(|m| m > 1) {
+    if best.iter().map(|c| c.rank.0).min().is_none_or(|m| m > 1) {
         digit_slips(k, listed_tb_k, tb_unit, tol_k, &mut best);
     }
-    choose(best, &declared)
+    choose(best, k, tb_unit)
+}
+
+/// What a candidate's message says: the message is written only for the
+/// slip chosen, not for every candidate tried.
+#[derive(Debug, Clone, Copy)]
+enum Msg {
+    /// Another convention `conv` (C as given).
+    Label { conv: AntoineConvention, c: f64 },
+    /// A and B swapped.
+    Swapped,
+    /// The listed Tb (`number` in its column's unit) written in unit `was`.
+    TbUnit { was: TemperatureUnit, number: f64 },
+    /// A, B or C typed `typed`, meant `v`.
+    Digit {
+        which: &'static str,
+        kind: DigitSlip,
+        v: f64,
+        typed: f64,
+    },
+    /// The listed Tb typed `number`, meant `v` (in its column's unit).
+    TbDigit {
+        kind: DigitSlip,
+        v: f64,
+        number: f64,
+    },
+}
+
+/// A candidate that explains the row within the tolerance: (changes, family),
+/// residual, the slip's code and values, the pressure unit for a
+/// pressure-unit slip, what was changed (the code for a label slip, A, B, C
+/// or Tb for a typing slip) and its message. Family 0 is a label slip (unit,
+/// base, swap), 1–4 a typing slip ([`DigitSlip`]).
+#[derive(Debug, Clone, Copy)]
+struct Cand {
+    rank: (u8, u8),
+    residual: f64,
+    code: CheckCode,
+    corrected_tb_k: f64,
+    matches_k: f64,
+    unit: Option<PressureUnit>,
+    what: &'static str,
+    msg: Msg,
+}
+
+impl Cand {
+    fn new(code: CheckCode, corrected_tb_k: f64, matches_k: f64, msg: Msg) -> Self {
+        Cand {
+            rank: (0, 0),
+            residual: 0.0,
+            code,
+            corrected_tb_k,
+            matches_k,
+            unit: None,
+            what: code.as_str(),
+            msg,
+        }
+    }
+
+    /// The slip with its sentence (`k` and `tb_unit` as given to [`diagnose`]).
+    fn into_slip(self, k: &AntoineConstants, tb_unit: TemperatureUnit) -> Slip {
+        let declared = k.convention;
+        let (t, listed_tb_k) = (D1(self.corrected_tb_k), D1(self.matches_k));
+        let message = match self.msg {
+            Msg::Label { conv, c } => {
+                let tail =
+                    format!("the implied Tb is {t} K, matching the listed {listed_tb_k} K");
+                match self.code {
+                    CheckCode::SlipPressureUnit => format!(
+                        "The constants look like {}, not {}: with {} {tail}.",
+                        conv.p_unit.symbol(),
+                        declared.p_unit.symbol(),
+                        conv.p_unit.symbol()
+                    ),
+                    CheckCode::SlipLogBase => format!(
+                        "The constants look like {}, not {}: with {} {tail}.",
+                        conv.log_base.symbol(),
+                        declared.log_base.symbol(),
+                        conv.log_base.symbol()
+                    ),
+                    CheckCode::SlipConstantsTemperatureUnit => format!(
+                        "The constants look like they are for t in {}, not {} (C = {}): read that way {tail}.",
+                        t_unit_word(conv.t_unit),
+                        t_unit_word(declared.t_unit),
+                        c
+                    ),
+                    _ => format!(
+                        "The constants look like {conv}, not {declared}: with {conv} {tail}."
+                    ),
+                }
+            }
+            Msg::Swapped => format!(
+                "A and B look swapped: with A = {} and B = {} the implied Tb is {t} K, matching the listed {listed_tb_k} K.",
+                k.b, k.a
+            ),
+            Msg::TbUnit { was, number } => {
+                let (as_k, t_impl) = (t, listed_tb_k);
+                format!(
+                    "The listed boiling point looks like {} written as {}: {number} {} is {as_k} K, matching the implied {t_impl} K.",
+                    t_unit_word(was),
+                    t_unit_word(tb_unit),
+                    t_unit_word(was)
+                )
+            }
+            Msg::Digit {
+                which,
+                kind,
+                v,
+                typed,
+            } => format!(
+                "{which} looks mistyped ({}): with {which} = {} instead of {} the implied Tb is {t} K, matching the listed {listed_tb_k} K.",
+                kind.words(),
+                written_signed(v),
+                written_signed(typed)
+            ),
+            Msg::TbDigit { kind, v, number } => {
+                let u = t_unit_word(tb_unit);
+                let t_impl = listed_tb_k;
+                format!(
+                    "The listed boiling point looks mistyped ({}): {} {u} instead of {} {u} matches the implied {t_impl} K.",
+                    kind.words(),
+                    written_signed(v),
+                    written_signed(number)
+                )
+            }
+        };
+        Slip {
+            code: self.code,
+            corrected_tb_k: self.corrected_tb_k,
+            matches_k: self.matches_k,
+            message,
+        }
+    }
 }
 
 /// The one slip the evidence singles out, if any. The fewest changes win;
@@ -261,25 +346,32 @@ pub fn diagnose(
 /// and none is named. Within one thing, the likeliest typing wins (a moved
 /// decimal point before a dropped digit: [`DigitSlip`]); several pressure
 /// units that all fit are named together.
-fn choose(cands: Vec<Cand>, declared: &AntoineConvention) -> Option<Slip> {
-    let fewest = cands.iter().map(|c| c.0 .0).min()?;
-    let mut tied: Vec<Cand> = cands.into_iter().filter(|c| c.0 .0 == fewest).collect();
-    if tied.iter().any(|c| c.4 != tied[0].4) {
+fn choose(cands: Vec<Cand>, k: &AntoineConstants, tb_unit: TemperatureUnit) -> Option<Slip> {
+    let declared = &k.convention;
+    let fewest = cands.iter().map(|c| c.rank.0).min()?;
+    let mut tied: Vec<Cand> = cands.into_iter().filter(|c| c.rank.0 == fewest).collect();
+    if tied.iter().any(|c| c.what != tied[0].what) {
         return None;
     }
-    tied.sort_by(|a, b| a.0 .1.cmp(&b.0 .1).then(a.1.total_cmp(&b.1)));
-    if tied.len() > 1 && tied.iter().all(|c| c.3.is_some()) {
+    tied.sort_by(|a, b| {
+        a.rank
+            .1
+            .cmp(&b.rank.1)
+            .then(a.residual.total_cmp(&b.residual))
+    });
+    if tied.len() > 1 && tied.iter().all(|c| c.unit.is_some()) {
         let units: Vec<&str> = tied
             .iter()
-            .filter_map(|c| c.3)
+            .filter_map(|c| c.unit)
             .map(|u| u.symbol())
             .collect();
-        let first = &tied[0].2;
+        let first = &tied[0];
         let listed = first.matches_k;
         let tbs: Vec<String> = tied
             .iter()
             .filter_map(|c| {
-                c.3.map(|u| format!("{:.1} K with {}", c.2.corrected_tb_k, u.symbol()))
+                c.unit
+                    .map(|u| format!("{:.1} K with {}", c.corrected_tb_k, u.symbol()))
             })
             .collect();
         return Some(Slip {
@@ -294,7 +386,7 @@ fn choose(cands: Vec<Cand>, declared: &AntoineConvention) -> Option<Slip> {
             ),
         });
     }
-    tied.into_iter().next().map(|c| c.2)
+    tied.into_iter().next().map(|c| c.into_slip(k, tb_unit))
 }
 
 fn join_or(words: &[&str]) -> String {
@@ -305,29 +397,24 @@ fn join_or(words: &[&str]) -> String {
     }
 }
 
-/// A candidate that explains the row within the tolerance: (changes, family),
-/// residual, the slip, the pressure unit for a pressure-unit slip, and what
-/// was changed (the code for a label slip, A, B, C or Tb for a typing slip).
-/// Family 0 is a label slip (unit, base, swap), 1–4 a typing slip ([`DigitSlip`]).
-type Cand = ((u8, u8), f64, Slip, Option<PressureUnit>, &'static str);
-
-/// Keep `slip` as a candidate if it explains the row (residual within
-/// `tol_k`). A corrected curve outside the Trouton band counts as one more change.
+/// Keep `cand` if it explains the row (residual within `tol_k`), ranked by
+/// `(changes, family)`. A corrected curve outside the Trouton band counts as
+/// one more change.
 fn offer(
     best: &mut Vec<Cand>,
     (changes, family): (u8, u8),
     residual: f64,
     curve: &AntoineConstants,
-    slip: Slip,
+    mut cand: Cand,
     tol_k: f64,
 ) {
     if !(residual.is_finite() && residual <= tol_k) {
         return;
     }
-    let plausible = trouton_plausible(svap_j_mol_k(curve, slip.corrected_tb_k));
-    let rank = (changes + u8::from(!plausible), family);
-    let what = slip.code.as_str();
-    best.push((rank, residual, slip, None, what));
+    let plausible = trouton_plausible(svap_j_mol_k(curve, cand.corrected_tb_k));
+    cand.rank = (changes + u8::from(!plausible), family);
+    cand.residual = residual;
+    best.push(cand);
 }
 
 /// How a number was mistyped, read from the typed value to the intended one.
@@ -388,48 +475,68 @@ fn written(x: f64) -> String {
 /// `screen_rows` fuzz target).
 const MAX_TYPED_DIGITS: usize = 17;
 
-/// Every value one typing slip away from `x` as written: the decimal point
-/// moved (or dropped), two adjacent digits swapped, one digit removed, one
-/// digit inserted. Sign kept;
-/// `x` itself excluded. None for a number longer than 17 digits (`MAX_TYPED_DIGITS`).
-pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
+/// Powers of ten a double holds exactly.
+const EXACT_POW10: [f64; 23] = [
+    1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16,
+    1e17, 1e18, 1e19, 1e20, 1e21, 1e22,
+];
+
+/// The number written with the ASCII digits `d` and a decimal point before
+/// digit `point` (none when `point == d.len()`), as `str::parse` reads it.
+/// Up to 2^53 in the digits and 22 decimal places it is one correctly
+/// rounded division of two exact doubles, which is what the parse gives
+/// (Clinger's fast path); otherwise the text is parsed.
+fn digits_value(d: &[u8], point: usize, buf: &mut String) -> Option<f64> {
+    let places = d.len() - point;
+    if d.len() <= 19 && places < EXACT_POW10.len() {
+        let m = d.iter().fold(0u64, |m, &c| m * 10 + u64::from(c - b'0'));
+        if m <= 1 << 53 {
+            return Some(m as f64 / EXACT_POW10[places]);
+        }
+    }
+    buf.clear();
+    for (i, &c) in d.iter().enumerate() {
+        if i == point {
+            buf.push('.');
+        }
+        buf.push(c as char);
+    }
+    buf.parse::<f64>().ok()
+}
+
+/// Every value one typing slip away from `x` as written, in the order
+/// generated (a value may come more than once), each told to `f`. None for a
+/// number longer than [`MAX_TYPED_DIGITS`].
+fn each_digit_variant(x: f64, mut f: impl FnMut(f64, DigitSlip)) {
     let s = written(x);
     if !x.is_finite() || s.contains('e') {
-        return Vec::new();
+        return;
     }
     let sign = if x < 0.0 { -1.0 } else { 1.0 };
     let digits: Vec<u8> = s.bytes().filter(u8::is_ascii_digit).collect();
     if digits.len() > MAX_TYPED_DIGITS {
-        return Vec::new();
+        return;
     }
     let point = s.find('.').unwrap_or(s.len());
-    let mut out: Vec<(f64, DigitSlip)> = Vec::new();
     let mut buf = String::with_capacity(digits.len() + 2);
-    let mut push = |d: &[u8], point: usize, kind: DigitSlip, out: &mut Vec<(f64, DigitSlip)>| {
-        buf.clear();
-        for (i, &c) in d.iter().enumerate() {
-            if i == point {
-                buf.push('.');
-            }
-            buf.push(c as char);
-        }
-        if let Ok(v) = buf.parse::<f64>() {
+    let mut push = |d: &[u8], point: usize, kind: DigitSlip| {
+        if let Some(v) = digits_value(d, point, &mut buf) {
             let v = sign * v;
             if v != x {
-                out.push((v, kind));
+                f(v, kind);
             }
         }
     };
     for p in 1..=digits.len() {
         if p != point {
-            push(&digits, p, DigitSlip::DecimalPoint, &mut out);
+            push(&digits, p, DigitSlip::DecimalPoint);
         }
     }
     let mut d = digits.clone();
     for i in 0..digits.len().saturating_sub(1) {
         if d[i] != d[i + 1] && !(i == 0 && d[1] == b'0') {
             d.swap(i, i + 1);
-            push(&d, point, DigitSlip::Transposed, &mut out);
+            push(&d, point, DigitSlip::Transposed);
             d.swap(i, i + 1);
         }
     }
@@ -437,7 +544,7 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
         let c = d.remove(i);
         let p = if i < point { point - 1 } else { point };
         if !d.is_empty() && p >= 1 {
-            push(&d, p, DigitSlip::Extra, &mut out);
+            push(&d, p, DigitSlip::Extra);
         }
         d.insert(i, c);
     }
@@ -446,24 +553,53 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
         for c in b'0'..=b'9' {
             d.insert(i, c);
             if !(i == 0 && c == b'0') {
-                push(&d, p, DigitSlip::Dropped, &mut out);
+                push(&d, p, DigitSlip::Dropped);
             }
             d.remove(i);
         }
     }
-    // Each value once, with the first slip that gives it, in the order found
-    // (a sort, not a search per variant: about a hundred variants per number).
-    let mut order: Vec<usize> = (0..out.len()).collect();
-    order.sort_by(|&a, &b| out[a].0.total_cmp(&out[b].0).then(a.cmp(&b)));
-    let mut keep = vec![false; out.len()];
+}
+
+/// Keep the first of each value (in the order found).
+fn first_of_each<T>(v: &mut Vec<T>, value: impl Fn(&T) -> f64) {
+    // a sort, not a search per variant: about a hundred variants per number
+    let mut order: Vec<usize> = (0..v.len()).collect();
+    order.sort_by(|&a, &b| value(&v[a]).total_cmp(&value(&v[b])).then(a.cmp(&b)));
+    let mut keep = vec![false; v.len()];
     for (k, &i) in order.iter().enumerate() {
-        keep[i] = k == 0 || out[order[k - 1]].0 != out[i].0;
+        keep[i] = k == 0 || value(&v[order[k - 1]]) != value(&v[i]);
     }
     let mut k = 0;
-    out.retain(|_| {
+    v.retain(|_| {
         k += 1;
         keep[k - 1]
     });
+}
+
+/// Every value one typing slip away from `x` as written: the decimal point
+/// moved (or dropped), two adjacent digits swapped, one digit removed, one
+/// digit inserted. Sign kept;
+/// `x` itself excluded. None for a number longer than 17 digits (`MAX_TYPED_DIGITS`).
+pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
+    let mut out: Vec<(f64, DigitSlip)> = Vec::new();
+    each_digit_variant(x, |v, kind| out.push((v, kind)));
+    // each value once, with the first slip that gives it, in the order found
+    first_of_each(&mut out, |x| x.0);
+    out
+}
+
+/// The typing slips of `x` whose value `fits` (giving the corrected
+/// boiling point): [`digit_variants`] filtered, without keeping the others
+/// (whether a value fits depends on the value alone, so filtering before
+/// keeping the first of each value gives the same list).
+fn fitting_variants(x: f64, fits: impl Fn(f64) -> Option<f64>) -> Vec<(f64, DigitSlip, f64)> {
+    let mut out = Vec::new();
+    each_digit_variant(x, |v, kind| {
+        if let Some(t) = fits(v) {
+            out.push((v, kind, t));
+        }
+    });
+    first_of_each(&mut out, |x| x.0);
     out
 }
 
@@ -474,41 +610,45 @@ fn digit_slips(
     tol_k: f64,
     best: &mut Vec<Cand>,
 ) {
+    // the convention is kept, so every variant's implied Tb solves for one log-pressure
+    let y = k.log_p_in_convention(ATM_PA);
     for which in ["A", "B", "C"] {
         let typed = match which {
             "A" => k.a,
             "B" => k.b,
             _ => k.c,
         };
-        for (v, kind) in digit_variants(typed) {
+        let with = |v: f64| {
             let mut alt = *k;
             match which {
                 "A" => alt.a = v,
                 "B" => alt.b = v,
                 _ => alt.c = v,
             }
-            let Some(t) = implied(&alt) else { continue };
-            let residual = (t - listed_tb_k).abs();
-            if residual > tol_k {
-                continue;
-            }
+            alt
+        };
+        let fits = |v: f64| {
+            let t = with(v).t_at_log_p(y)?;
+            ((t - listed_tb_k).abs() <= tol_k).then_some(t)
+        };
+        for (v, kind, t) in fitting_variants(typed, fits) {
             let n0 = best.len();
             offer(
                 best,
                 (1, kind.family()),
-                residual,
-                &alt,
-                Slip {
-                    code: CheckCode::SlipDigit,
-                    corrected_tb_k: t,
-                    matches_k: listed_tb_k,
-                    message: format!(
-                        "{which} looks mistyped ({}): with {which} = {} instead of {} the implied Tb is {t:.1} K, matching the listed {listed_tb_k:.1} K.",
-                        kind.words(),
-                        written_signed(v),
-                        written_signed(typed)
-                    ),
-                },
+                (t - listed_tb_k).abs(),
+                &with(v),
+                Cand::new(
+                    CheckCode::SlipDigit,
+                    t,
+                    listed_tb_k,
+                    Msg::Digit {
+                        which,
+                        kind,
+                        v,
+                        typed,
+                    },
+                ),
                 tol_k,
             );
             mark(best, n0, which);
@@ -516,29 +656,27 @@ fn digit_slips(
     }
     let Some(t_impl) = implied(k) else { return };
     let number = tb_unit.from_kelvin(listed_tb_k);
-    for (v, kind) in digit_variants(number) {
+    let fits = |v: f64| {
         let as_k = tb_unit.to_kelvin(v);
         if as_k.is_nan() || as_k <= 0.0 {
-            continue;
+            return None;
         }
-        let u = t_unit_word(tb_unit);
+        let r = (as_k - t_impl).abs();
+        (r.is_finite() && r <= tol_k).then_some(as_k)
+    };
+    for (v, kind, as_k) in fitting_variants(number, fits) {
         let n0 = best.len();
         offer(
             best,
             (1, kind.family()),
             (as_k - t_impl).abs(),
             k,
-            Slip {
-                code: CheckCode::SlipDigit,
-                corrected_tb_k: as_k,
-                matches_k: t_impl,
-                message: format!(
-                    "The listed boiling point looks mistyped ({}): {} {u} instead of {} {u} matches the implied {t_impl:.1} K.",
-                    kind.words(),
-                    written_signed(v),
-                    written_signed(number)
-                ),
-            },
+            Cand::new(
+                CheckCode::SlipDigit,
+                as_k,
+                t_impl,
+                Msg::TbDigit { kind, v, number },
+            ),
             tol_k,
         );
         mark(best, n0, "Tb");
@@ -549,7 +687,7 @@ fn digit_slips(
 fn mark(best: &mut [Cand], n0: usize, what: &'static str) {
     if best.len() > n0 {
         if let Some(c) = best.last_mut() {
-            c.4 = what;
+            c.what = what;
         }
     }
 }
@@ -740,6 +878,32 @@ mod tests {
             "{}",
             s.message
         );
+    }
+
+    // The arithmetic path gives exactly what parsing the written digits gives.
+    #[test]
+    fn digits_value_is_the_parse_of_the_digits() {
+        let mut s: u64 = 0x2545_F491_4F6C_DD1D;
+        let mut buf = String::new();
+        for _ in 0..100_000 {
+            s ^= s << 13;
+            s ^= s >> 7;
+            s ^= s << 17;
+            let len = 1 + (s % 19) as usize;
+            let d: Vec<u8> = (0..len)
+                .map(|i| b'0' + ((s >> (i * 3 % 60)) % 10) as u8)
+                .collect();
+            let point = 1 + ((s >> 40) as usize % len);
+            let mut text = String::new();
+            for (i, &c) in d.iter().enumerate() {
+                if i == point {
+                    text.push('.');
+                }
+                text.push(c as char);
+            }
+            let want: f64 = text.parse().unwrap();
+            assert_eq!(digits_value(&d, point, &mut buf), Some(want), "{text}");
+        }
     }
 
     #[test]

@@ -5,6 +5,7 @@
 //! so it is flagged as a warning, not an error: the method can be wrong too.
 
 use super::finding::{CheckCode, Finding};
+use super::number_text::{OneDecimal as D1, Shortest};
 use super::sources::StructureOutcome;
 
 /// Multiple of the typical error beyond which a row is flagged.
@@ -41,8 +42,12 @@ pub fn check_structure(
                 out.push(Finding::new(
                     CheckCode::TbStructureMismatch,
                     format!(
-                        "The {which} boiling point {tb:.1} K is {:.1} K from the structure estimate {est:.1} K, more than {STRUCTURE_SIGMAS} times the method's typical error of {typical_error_k:.1} K.",
-                        d.abs()
+                        "The {which} boiling point {} K is {} K from the structure estimate {} K, more than {} times the method's typical error of {} K.",
+                        D1(tb),
+                        D1(d.abs()),
+                        D1(*est),
+                        Shortest(STRUCTURE_SIGMAS),
+                        D1(*typical_error_k)
                     ),
                 ));
             }

@@ -191,6 +191,25 @@ impl AntoineConstants {
         self.b / (self.a - y) - self.c
     }
 
+    /// The convention's log-pressure `y` at `p_pa` (what [`Curve::t_at`] solves for;
+    /// the same for every set of constants in one convention).
+    pub fn log_p_in_convention(&self, p_pa: f64) -> f64 {
+        let conv = self.convention;
+        (p_pa / conv.p_unit.pa_per_unit()).ln() / conv.log_base.ln_base()
+    }
+
+    /// [`Curve::t_at`] given the convention's log-pressure `y`
+    /// ([`AntoineConstants::log_p_in_convention`]), in K; `None` where the
+    /// equation gives no positive temperature.
+    pub fn t_at_log_p(&self, y: f64) -> Option<f64> {
+        if y >= self.a || self.b <= 0.0 {
+            return None;
+        }
+        let t_own = self.t_own_at(y);
+        let k = self.convention.t_unit.to_kelvin(t_own);
+        (k > 0.0 && k.is_finite()).then_some(k)
+    }
+
     /// True when `t + C` stays positive over `[lo, hi]` K, so the equation is
     /// defined and monotone there.
     pub fn denominator_positive_on(&self, lo_k: f64, hi_k: f64) -> bool {
@@ -226,14 +245,7 @@ impl Curve for AntoineConstants {
         if !(p_pa > 0.0 && p_pa.is_finite()) {
             return None;
         }
-        let conv = self.convention;
-        let y = (p_pa / conv.p_unit.pa_per_unit()).ln() / conv.log_base.ln_base();
-        if y >= self.a || self.b <= 0.0 {
-            return None;
-        }
-        let t_own = self.t_own_at(y);
-        let k = conv.t_unit.to_kelvin(t_own);
-        (k > 0.0 && k.is_finite()).then_some(k)
+        self.t_at_log_p(self.log_p_in_convention(p_pa))
     }
 }
 
