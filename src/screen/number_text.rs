@@ -17,25 +17,29 @@ pub struct OneDecimal(pub f64);
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Shortest(pub f64);
 
-/// Largest magnitude taken by the integer path: ten times it stays below
-/// 2^33, so the product's rounding error (at most half an ulp, 2^-20) is far
-/// inside the margin kept from a rounding tie.
+/// Largest magnitude taken by the integer path (ten times it is far below 2^53).
 const FAST_LIMIT: f64 = 1e9;
 
-/// How close to a tie (in tenths) the integer path leaves to the standard formatter.
-const TIE_MARGIN: f64 = 1e-4;
-
-/// |x| rounded to tenths, as an integer count of tenths, when that is certain.
+/// |x| rounded to tenths (the exact binary value, as the standard formatter
+/// rounds it), as an integer count of tenths; `None` for an exact tie (left
+/// to the standard formatter's rule) and outside the integer path.
 fn tenths(x: f64) -> Option<u64> {
     let a = x.abs();
     if !(a < FAST_LIMIT) {
         return None; // also NaN
     }
+    // y is 10·a rounded; the exact 10·a is within half an ulp of y, so only
+    // a y exactly halfway between tenths leaves the side in doubt, and the
+    // product's exact error (one fused multiply-add) settles it.
     let y = a * 10.0;
     let whole = y.floor();
     let frac = y - whole;
-    if (frac - 0.5).abs() < TIE_MARGIN {
-        return None;
+    if frac == 0.5 {
+        let err = a.mul_add(10.0, -y);
+        if err == 0.0 {
+            return None;
+        }
+        return Some(whole as u64 + u64::from(err > 0.0));
     }
     Some(whole as u64 + u64::from(frac > 0.5))
 }

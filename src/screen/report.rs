@@ -107,7 +107,7 @@ impl ScreenReport {
         let mut n = vec![0usize; CheckCode::ALL.len()];
         for f in &self.findings {
             for x in f {
-                if let Some(k) = CheckCode::ALL.iter().position(|c| *c == x.code) {
+                if let Some(k) = check_index(x.code) {
                     n[k] += 1;
                 }
             }
@@ -126,6 +126,14 @@ impl ScreenReport {
         let mut b = SummaryBuilder::new(n_worst);
         b.add(self, rows, 0);
         b.finish()
+    }
+}
+
+/// Where a check finding's code stands in [`CheckCode::ALL`] (declaration order).
+fn check_index(code: crate::finding::Code) -> Option<usize> {
+    match code {
+        crate::finding::Code::Check(c) => Some(c as usize),
+        _ => None,
     }
 }
 
@@ -162,7 +170,7 @@ impl SummaryBuilder {
             };
             self.by_severity[sev as usize] += 1;
             for x in f {
-                if let Some(k) = CheckCode::ALL.iter().position(|c| *c == x.code) {
+                if let Some(k) = check_index(x.code) {
                     self.counts[k] += 1;
                 }
             }
@@ -283,5 +291,19 @@ impl fmt::Display for Summary {
             }
         }
         Ok(())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    // The counts index codes by declaration order: it must be their place in ALL.
+    #[test]
+    fn check_index_is_the_place_in_all() {
+        for (k, c) in CheckCode::ALL.iter().enumerate() {
+            assert_eq!(check_index((*c).into()), Some(k), "{c}");
+        }
+        assert_eq!(check_index(crate::finding::FitCode::ALL[0].into()), None);
     }
 }

@@ -57,6 +57,25 @@ fn implied(k: &AntoineConstants) -> Option<f64> {
     k.t_at(ATM_PA)
 }
 
+/// One atmosphere as the log-pressure of each convention tried (log base ×
+/// [`SLIP_PRESSURE_UNITS`]; the temperature unit does not enter), computed
+/// once: what [`implied`] computes for constants in that convention.
+fn slip_log_p() -> &'static [[f64; 6]; 2] {
+    static LOG_P: std::sync::OnceLock<[[f64; 6]; 2]> = std::sync::OnceLock::new();
+    LOG_P.get_or_init(|| {
+        [LogBase::Ten, LogBase::E].map(|log_base| {
+            SLIP_PRESSURE_UNITS.map(|p_unit| {
+                let conv = AntoineConvention {
+                    log_base,
+                    p_unit,
+                    t_unit: TemperatureUnit::Kelvin,
+                };
+                AntoineConstants::new(1.0, 1.0, 0.0, conv).log_p_in_convention(ATM_PA)
+            })
+        })
+    })
+}
+
 fn t_unit_word(u: TemperatureUnit) -> &'static str {
     match u {
         TemperatureUnit::Kelvin => "K",
@@ -111,8 +130,9 @@ pub fn diagnose(
         TemperatureUnit::Fahrenheit => &[TemperatureUnit::Fahrenheit],
         TemperatureUnit::Rankine => &[TemperatureUnit::Rankine],
     };
-    for log_base in [LogBase::Ten, LogBase::E] {
-        for &p_unit in &SLIP_PRESSURE_UNITS {
+    let log_p = slip_log_p();
+    for (b, log_base) in [LogBase::Ten, LogBase::E].into_iter().enumerate() {
+        for (u, &p_unit) in SLIP_PRESSURE_UNITS.iter().enumerate() {
             for &t_unit in t_units {
                 let conv = AntoineConvention {
                     log_base,
@@ -126,7 +146,9 @@ pub fn diagnose(
                     convention: conv,
                     ..*k
                 };
-                let Some(t) = implied(&alt) else { continue };
+                let Some(t) = alt.t_at_log_p(log_p[b][u]) else {
+                    continue;
+                };
                 let r = (t - listed_tb_k).abs();
                 if r.is_nan() || r > tol_k {
                     continue;

@@ -213,7 +213,7 @@ fn next_chunk(
         while pos < buf.len() {
             // jump to the next quote or line break
             let rest = &buf[pos..];
-            let Some(k) = rest.iter().position(|&b| b == b'"' || b == b'\n') else {
+            let Some(k) = memchr::memchr2(b'"', b'\n', rest) else {
                 pos = buf.len();
                 break;
             };
