@@ -25,8 +25,8 @@ const FAST_LIMIT: f64 = 1e9;
 /// to the standard formatter's rule) and outside the integer path.
 fn tenths(x: f64) -> Option<u64> {
     let a = x.abs();
-    if !(a < FAST_LIMIT) {
-        return None; // also NaN
+    if a.is_nan() || a >= FAST_LIMIT {
+        return None;
     }
     // y is 10·a rounded; the exact 10·a is within half an ulp of y, so only
     // a y exactly halfway between tenths leaves the side in doubt, and the
@@ -136,7 +136,7 @@ mod tests {
             1.0,
             3.0,
             -1.0,
-            273.15,
+            crate::units::CELSIUS_OFFSET,
             353.15,
             1e8,
             999_999_999.95,
