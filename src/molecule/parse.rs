@@ -62,8 +62,9 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
         s,
         b: s.as_bytes(),
         i: 0,
-        atoms: Vec::new(),
-        bonds: Vec::new(),
+        // at most one atom per character and one bond per atom or ring digit
+        atoms: Vec::with_capacity(s.len().min(MAX_ATOMS)),
+        bonds: Vec::with_capacity(s.len().min(MAX_ATOMS)),
         rings: (0..100).map(|_| None).collect(),
     };
     let mut components = 0usize;

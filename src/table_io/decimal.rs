@@ -7,7 +7,7 @@
 //! is the exact value's rounding unless the scaled value lies that close to a half. Those
 //! rare near-ties, large values, many digits and non-finite values go to the formatter.
 
-use std::fmt::Write as _;
+use std::io::Write as _;
 
 const POW10: [f64; 10] = [1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
 /// Scaled values below this are exact to under 2^-10 (ulp ≤ 2^-9).
@@ -18,11 +18,11 @@ const TIE_MARGIN: f64 = 1.0 / 256.0;
 /// Appends `x` written with `digits` decimals, exactly as `write!(out, "{x:.digits$}")`.
 ///
 /// ```
-/// let mut s = String::new();
+/// let mut s = Vec::new();
 /// ebullio::table_io::decimal::push_fixed(&mut s, 583.955, 2);
-/// assert_eq!(s, format!("{:.2}", 583.955));
+/// assert_eq!(s, format!("{:.2}", 583.955).as_bytes());
 /// ```
-pub fn push_fixed(out: &mut String, x: f64, digits: usize) {
+pub fn push_fixed(out: &mut Vec<u8>, x: f64, digits: usize) {
     if let Some(scaled) = POW10.get(digits).map(|p| x.abs() * p) {
         if scaled < FAST_LIMIT {
             let floor = scaled.floor();
@@ -38,7 +38,7 @@ pub fn push_fixed(out: &mut String, x: f64, digits: usize) {
 }
 
 /// `n / 10^digits` as text with `digits` decimals, a leading `-` when `negative`.
-fn push_scaled(out: &mut String, negative: bool, mut n: u64, digits: usize) {
+fn push_scaled(out: &mut Vec<u8>, negative: bool, mut n: u64, digits: usize) {
     // at most 20 digits of n, a point and leading zeros up to digits + 1 figures
     let mut buf = [b'0'; 32];
     let mut i = buf.len();
@@ -54,10 +54,10 @@ fn push_scaled(out: &mut String, negative: bool, mut n: u64, digits: usize) {
         written += 1;
     }
     if negative {
-        out.push('-');
+        i -= 1;
+        buf[i] = b'-';
     }
-    // only ASCII digits and a point were written
-    out.push_str(std::str::from_utf8(&buf[i..]).unwrap_or_default());
+    out.extend_from_slice(&buf[i..]);
 }
 
 #[cfg(test)]
@@ -65,9 +65,13 @@ mod tests {
     use super::push_fixed;
 
     fn same(x: f64, d: usize) {
-        let mut s = String::new();
+        let mut s = Vec::new();
         push_fixed(&mut s, x, d);
-        assert_eq!(s, format!("{x:.d$}"), "{x:e} with {d} decimals");
+        assert_eq!(
+            String::from_utf8(s).unwrap(),
+            format!("{x:.d$}"),
+            "{x:e} with {d} decimals"
+        );
     }
 
     #[test]

@@ -8,35 +8,63 @@ use crate::molecule::Molecule;
 use std::fmt::Write as _;
 use std::io::Write;
 
-/// Writes fields through one reused text buffer (no String per cell). Numbers that could not
-/// be computed are written empty, and text cells go through [`without_non_finite`], so the
-/// output never holds `NaN` or `inf` text and needs no cleaning pass afterwards.
-struct Fields<'a, W: Write> {
-    w: &'a mut csv::Writer<W>,
+/// Writes one row's fields into the row buffer: numbers straight as digits, text quoted
+/// as the csv crate quotes it (a field holding `,`, `"`, CR or LF goes in double quotes,
+/// quotes doubled; `csv_text_matches_the_csv_crate` holds the two together). Numbers that
+/// could not be computed are written empty, and text cells go through
+/// [`without_non_finite`], so the output never holds `NaN` or `inf` text and needs no
+/// cleaning pass afterwards.
+struct Fields<'a> {
+    line: &'a mut Vec<u8>,
     buf: &'a mut String,
+    first: bool,
 }
 
-impl<W: Write> Fields<'_, W> {
-    fn text(&mut self, s: &str) -> Result<(), csv::Error> {
-        self.w.write_field(without_non_finite(s, "").as_ref())
+/// `s` as one CSV field (the csv crate's `QuoteStyle::Necessary` with its defaults).
+fn push_csv_text(line: &mut Vec<u8>, s: &[u8]) {
+    if s.iter().any(|&b| matches!(b, b',' | b'"' | b'\r' | b'\n')) {
+        line.push(b'"');
+        for &b in s {
+            if b == b'"' {
+                line.push(b'"');
+            }
+            line.push(b);
+        }
+        line.push(b'"');
+    } else {
+        line.extend_from_slice(s);
+    }
+}
+
+impl Fields<'_> {
+    fn sep(&mut self) {
+        if !self.first {
+            self.line.push(b',');
+        }
+        self.first = false;
     }
 
-    fn num(&mut self, v: Option<f64>, digits: usize) -> Result<(), csv::Error> {
-        self.buf.clear();
+    fn text(&mut self, s: &str) {
+        self.sep();
+        push_csv_text(self.line, without_non_finite(s, "").as_bytes());
+    }
+
+    fn num(&mut self, v: Option<f64>, digits: usize) {
+        self.sep();
         if let Some(x) = v.filter(|x| x.is_finite()) {
-            super::decimal::push_fixed(self.buf, x, digits);
+            // digits, a point and a sign: never quoted
+            super::decimal::push_fixed(self.line, x, digits);
         }
-        self.w.write_field(&self.buf)
     }
 
     /// The text in the buffer as a text cell.
-    fn buffered_text(&mut self) -> Result<(), csv::Error> {
-        self.w
-            .write_field(without_non_finite(self.buf, "").as_ref())
+    fn buffered_text(&mut self) {
+        self.sep();
+        push_csv_text(self.line, without_non_finite(self.buf, "").as_bytes());
     }
 
-    fn end(&mut self) -> Result<(), csv::Error> {
-        self.w.write_record(None::<&[u8]>)
+    fn end(&mut self) {
+        self.line.push(b'\n');
     }
 }
 
@@ -106,9 +134,13 @@ pub fn write_estimates_header(out: impl Write, ps: &[f64]) -> Result<(), csv::Er
 /// Estimate rows written one at a time below a header from [`write_estimates_header`]
 /// (several writers may fill separate buffers that are then joined in order).
 pub struct EstimateRows<W: Write> {
-    w: csv::Writer<W>,
+    out: W,
+    line: Vec<u8>,
     buf: String,
 }
+
+/// Rows are handed to the writer in blocks of about this many bytes.
+const BLOCK: usize = 64 * 1024;
 
 /// What the estimate columns hold, from an [`Estimate`] or from [`Numbers`].
 struct Values<'a> {
@@ -122,24 +154,33 @@ impl<W: Write> EstimateRows<W> {
     /// Rows into `out`.
     pub fn new(out: W) -> Self {
         EstimateRows {
-            w: csv::WriterBuilder::new()
-                .buffer_capacity(64 * 1024)
-                .from_writer(out),
+            out,
+            line: Vec::with_capacity(BLOCK + 4096),
             buf: String::with_capacity(64),
         }
     }
 
-    fn fields(&mut self) -> Fields<'_, W> {
+    fn fields(&mut self) -> Fields<'_> {
         Fields {
-            w: &mut self.w,
+            line: &mut self.line,
             buf: &mut self.buf,
+            first: true,
         }
+    }
+
+    /// The row is complete: hand a full block to the writer.
+    fn done(&mut self) -> Result<(), csv::Error> {
+        if self.line.len() >= BLOCK {
+            self.out.write_all(&self.line)?;
+            self.line.clear();
+        }
+        Ok(())
     }
 
     /// One row of `ebullio estimate`, `n_ps` boiling points at pressure wide.
     pub fn row(&mut self, r: &EstimateRow, n_ps: usize) -> Result<(), csv::Error> {
         let mut f = self.fields();
-        f.text(r.compound.as_deref().unwrap_or_default())?;
+        f.text(r.compound.as_deref().unwrap_or_default());
         match &r.estimate {
             Some(e) => {
                 f.estimate(
@@ -173,16 +214,17 @@ impl<W: Write> EstimateRows<W> {
                             let _ = write!(buf, "{sep}{k}={v}");
                         }
                     },
-                )?;
+                );
             }
-            None => f.no_estimate(r.smiles_given.as_deref().unwrap_or_default())?,
+            None => f.no_estimate(r.smiles_given.as_deref().unwrap_or_default()),
         }
         for k in 0..n_ps {
-            f.num(r.at.get(k).and_then(|a| a.t_k), 2)?;
+            f.num(r.at.get(k).and_then(|a| a.t_k), 2);
         }
-        f.num(r.anchored.as_ref().map(|a| a.tb_k), 2)?;
-        f.text(&r.error)?;
-        f.end()
+        f.num(r.anchored.as_ref().map(|a| a.tb_k), 2);
+        f.text(&r.error);
+        f.end();
+        self.done()
     }
 
     /// The row [`EstimateRows::row`] writes for an estimate without anchoring, from its
@@ -195,7 +237,7 @@ impl<W: Write> EstimateRows<W> {
         at: &[AtPressure],
     ) -> Result<(), csv::Error> {
         let mut f = self.fields();
-        f.text(compound)?;
+        f.text(compound);
         let hw = n.half_width_k;
         f.estimate(
             &Values {
@@ -232,13 +274,14 @@ impl<W: Write> EstimateRows<W> {
                     let _ = write!(buf, "{v}");
                 }
             },
-        )?;
+        );
         for a in at {
-            f.num(a.t_k, 2)?;
+            f.num(a.t_k, 2);
         }
-        f.num(None, 2)?;
-        f.text("")?;
-        f.end()
+        f.num(None, 2);
+        f.text("");
+        f.end();
+        self.done()
     }
 
     /// The row [`EstimateRows::row`] writes for a structure without an estimate.
@@ -250,57 +293,94 @@ impl<W: Write> EstimateRows<W> {
         error: &str,
     ) -> Result<(), csv::Error> {
         let mut f = self.fields();
-        f.text(compound)?;
-        f.no_estimate(smiles_given)?;
+        f.text(compound);
+        f.no_estimate(smiles_given);
         for _ in 0..n_ps + 1 {
-            f.num(None, 2)?;
+            f.num(None, 2);
         }
-        f.text(error)?;
-        f.end()
+        f.text(error);
+        f.end();
+        self.done()
     }
 
     /// Write out what is buffered.
     pub fn flush(&mut self) -> Result<(), csv::Error> {
-        self.w.flush()?;
+        self.out.write_all(&self.line)?;
+        self.line.clear();
+        self.out.flush()?;
         Ok(())
     }
 
     /// The underlying writer, everything written out.
-    pub fn into_inner(self) -> Result<W, csv::Error> {
-        self.w
-            .into_inner()
-            .map_err(|e| csv::Error::from(std::io::Error::other(e.error().to_string())))
+    pub fn into_inner(mut self) -> Result<W, csv::Error> {
+        self.flush()?;
+        Ok(self.out)
     }
 }
 
-impl<W: Write> Fields<'_, W> {
+impl Fields<'_> {
     fn estimate(
         &mut self,
         v: &Values,
         formula: impl FnOnce(&mut String),
         groups: impl FnOnce(&mut String),
-    ) -> Result<(), csv::Error> {
-        self.text(v.smiles)?;
+    ) {
+        self.text(v.smiles);
         self.buf.clear();
         formula(self.buf);
-        self.buffered_text()?;
+        self.buffered_text();
         for x in v.tb {
-            self.num(x, 2)?;
+            self.num(x, 2);
         }
-        self.text(v.variant)?;
+        self.text(v.variant);
         for (x, digits) in v.props.into_iter().zip([2, 2, 3, 1, 2, 2, 3, 3, 4]) {
-            self.num(x, digits)?;
+            self.num(x, digits);
         }
         self.buf.clear();
         groups(self.buf);
-        self.buffered_text()
+        self.buffered_text();
     }
 
-    fn no_estimate(&mut self, smiles_given: &str) -> Result<(), csv::Error> {
-        self.text(smiles_given)?;
+    fn no_estimate(&mut self, smiles_given: &str) {
+        self.text(smiles_given);
         for _ in 0..18 {
-            self.text("")?;
+            self.text("");
         }
-        Ok(())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::push_csv_text;
+
+    #[test]
+    fn csv_text_matches_the_csv_crate() {
+        let fields = [
+            "",
+            "CCO",
+            "a,b",
+            "say \"hi\"",
+            "line\nbreak",
+            "cr\rhere",
+            "\"",
+            ",",
+            "é,ü",
+            "x\r\n",
+            "#comment",
+            " spaced ",
+            "tab\there",
+            "N#N",
+        ];
+        let mut want = csv::Writer::from_writer(Vec::new());
+        let mut got = Vec::new();
+        for f in fields {
+            want.write_record([f, "z"]).unwrap();
+            push_csv_text(&mut got, f.as_bytes());
+            got.extend_from_slice(b",z\n");
+        }
+        assert_eq!(
+            String::from_utf8(got).unwrap(),
+            String::from_utf8(want.into_inner().unwrap()).unwrap()
+        );
     }
 }

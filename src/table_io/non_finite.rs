@@ -13,7 +13,12 @@ use std::borrow::Cow;
 /// assert!(matches!(without_non_finite("1.5,info", ""), std::borrow::Cow::Borrowed(_)));
 /// ```
 pub fn without_non_finite<'a>(text: &'a str, blank: &str) -> Cow<'a, str> {
-    if !words(text).any(|(_, w)| is_non_finite(w)) {
+    // every such word holds an `n` followed by `a` or `f` (any case): most text has none
+    let maybe = text
+        .as_bytes()
+        .windows(2)
+        .any(|w| w[0] | 0x20 == b'n' && matches!(w[1] | 0x20, b'a' | b'f'));
+    if !maybe || !words(text).any(|(_, w)| is_non_finite(w)) {
         return Cow::Borrowed(text);
     }
     let bytes = text.as_bytes();
