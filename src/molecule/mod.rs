@@ -117,6 +117,8 @@ pub struct Molecule {
     adj: Adjacency,
     components: usize,
     smiles: String,
+    /// Per atom: heavy degree and total hydrogens (computed once the hydrogens are known).
+    tally: Vec<(u32, u32)>,
 }
 
 /// Largest molecule read (atoms), to keep time and memory bounded on any input.
@@ -139,6 +141,7 @@ pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
         bonds: raw.bonds,
         components: raw.components,
         smiles: s.trim().to_string(),
+        tally: Vec::new(),
     };
     rings::mark_ring_bonds(&mut m);
     // Bonds left aromatic by default between two aromatic atoms but outside any
@@ -170,7 +173,37 @@ pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
         input: s.to_string(),
     })?;
     aromatic::perceive(&mut m);
+    m.tally = (0..m.atoms.len())
+        .map(|i| {
+            let (mut heavy, mut h) = (0u32, m.atoms[i].hydrogens as u32);
+            for &(j, _) in &m.adj[i] {
+                if m.atoms[j].element == Element::H {
+                    h += 1;
+                } else {
+                    heavy += 1;
+                }
+            }
+            (heavy, h)
+        })
+        .collect();
     Ok(m)
+}
+
+/// Appends `n` in decimal (what `write!(out, "{n}")` gives, without the formatter).
+pub fn push_count(out: &mut String, mut n: u32) {
+    let mut buf = [0u8; 10];
+    let mut i = buf.len();
+    loop {
+        i -= 1;
+        buf[i] = b'0' + (n % 10) as u8;
+        n /= 10;
+        if n == 0 {
+            break;
+        }
+    }
+    for &b in &buf[i..] {
+        out.push(b as char);
+    }
 }
 
 /// Every atom's (neighbour, bond index) list in one flat array (two allocations per
@@ -249,20 +282,12 @@ impl Molecule {
 
     /// Total hydrogens on atom `i`: its own count plus bonded `[H]` atoms.
     pub fn total_hydrogens(&self, i: usize) -> u32 {
-        let own = self.atoms.get(i).map_or(0, |a| a.hydrogens as u32);
-        own + self
-            .neighbours(i)
-            .iter()
-            .filter(|&&(j, _)| self.atoms[j].element == Element::H)
-            .count() as u32
+        self.tally.get(i).map_or(0, |t| t.1)
     }
 
     /// Heavy-atom neighbours of atom `i` (its heavy degree).
     pub fn heavy_degree(&self, i: usize) -> usize {
-        self.neighbours(i)
-            .iter()
-            .filter(|&&(j, _)| self.is_heavy(j))
-            .count()
+        self.tally.get(i).map_or(0, |t| t.0 as usize)
     }
 
     /// Indices of heavy atoms with their total hydrogen counts, in input order.
@@ -336,7 +361,7 @@ impl Molecule {
         let mut push = |sym: &str, n: u32| {
             out.push_str(sym);
             if n > 1 {
-                let _ = write!(out, "{n}");
+                push_count(out, n);
             }
         };
         let has_c = counts[6] > 0;
@@ -393,5 +418,43 @@ impl Molecule {
     /// A valid SMILES for this molecule (the canonical one).
     pub fn write_smiles(&self) -> String {
         canon::canonical_smiles(self)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{parse_smiles, push_count};
+
+    #[test]
+    fn push_count_writes_what_the_formatter_writes() {
+        for n in (0..100_000).chain([u32::MAX - 1, u32::MAX]) {
+            let mut s = String::from("x");
+            push_count(&mut s, n);
+            assert_eq!(s, format!("x{n}"));
+        }
+    }
+
+    #[test]
+    fn cached_degrees_and_hydrogens_count_bracket_hydrogens() {
+        // [H]C([H])([H])O: the methyl's hydrogens are atoms, the O has one implicit H
+        let m = parse_smiles("[H]C([H])([H])O").unwrap();
+        let c = m
+            .atoms()
+            .iter()
+            .position(|a| a.element.symbol() == "C")
+            .unwrap();
+        let o = m
+            .atoms()
+            .iter()
+            .position(|a| a.element.symbol() == "O")
+            .unwrap();
+        assert_eq!((m.heavy_degree(c), m.total_hydrogens(c)), (1, 3));
+        assert_eq!((m.heavy_degree(o), m.total_hydrogens(o)), (1, 1));
+        // a chain (no ring) and a ring: ring flags only on the ring
+        let chain = parse_smiles("CCOC(C)=O").unwrap();
+        assert!(chain.atoms().iter().all(|a| !a.in_ring));
+        let ring = parse_smiles("C1CCCCC1C").unwrap();
+        assert_eq!(ring.atoms().iter().filter(|a| a.in_ring).count(), 6);
+        assert_eq!(ring.bonds().iter().filter(|b| b.in_ring).count(), 6);
     }
 }

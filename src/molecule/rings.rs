@@ -10,6 +10,10 @@ use std::collections::VecDeque;
 /// Mark `in_ring` on every bond that is not a bridge and on the atoms of those bonds.
 pub(super) fn mark_ring_bonds(m: &mut Molecule) {
     let n = m.atoms.len();
+    // A forest (bonds = atoms − pieces, every piece counted at least once) has no ring.
+    if m.bonds.len() + m.components <= n {
+        return;
+    }
     let mut disc = vec![usize::MAX; n];
     let mut low = vec![0usize; n];
     let mut time = 0usize;
@@ -19,7 +23,8 @@ pub(super) fn mark_ring_bonds(m: &mut Molecule) {
             continue;
         }
         // Stack of (atom, bond used to enter it, next neighbour index).
-        let mut stack: Vec<(usize, usize, usize)> = vec![(root, usize::MAX, 0)];
+        let mut stack: Vec<(usize, usize, usize)> = Vec::with_capacity(n);
+        stack.push((root, usize::MAX, 0));
         disc[root] = time;
         low[root] = time;
         time += 1;

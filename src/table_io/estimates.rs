@@ -271,7 +271,7 @@ impl<W: Write> EstimateRows<W> {
                     }
                     buf.push_str(terms::IDS[i]);
                     buf.push('=');
-                    let _ = write!(buf, "{v}");
+                    crate::molecule::push_count(buf, v);
                 }
             },
         );
