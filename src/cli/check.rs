@@ -224,7 +224,7 @@ fn streamed(
 ) -> anyhow::Result<Outcome> {
     use ebullio::screen::Severity;
     use ebullio::table_io::check_stream::{screen_file, StreamError, StreamOptions};
-    use ebullio::table_io::property_table::{check_columns, is_parquet, BatchWriter};
+    use ebullio::table_io::property_table::{is_parquet, BatchWriter};
     use std::io::Write;
 
     let scratch = super::common::ScratchDir::new("check")?;
@@ -260,8 +260,9 @@ fn streamed(
                 args.worst,
                 &mut started,
                 &mut |table, report, _| {
-                    let cols = check_columns(report).map_err(|e| e.to_string())?;
-                    writer.write(&table.frame, cols).map_err(|e| e.to_string())
+                    writer
+                        .write_checked(&table.frame, report)
+                        .map_err(|e| e.to_string())
                 },
             )?;
             writer

@@ -1065,8 +1065,35 @@ pub fn check_columns(report: &crate::screen::ScreenReport) -> PolarsResult<Vec<C
         .unwrap_or_default())
 }
 
+/// One text field of a CSV row as polars' writer (quote style "necessary")
+/// writes a present text: `""` when empty, quoted when it holds a comma, a
+/// quote or a line break, quotes doubled.
+fn csv_field(buf: &mut Vec<u8>, s: &[u8]) {
+    if s.is_empty() {
+        buf.extend_from_slice(b"\"\"");
+        return;
+    }
+    let quote = memchr::memchr3(b',', b'\n', b'\r', s).is_some();
+    let has_quote = memchr::memchr(b'"', s).is_some();
+    if !(quote || has_quote) {
+        buf.extend_from_slice(s);
+        return;
+    }
+    buf.push(b'"');
+    let mut start = 0;
+    for q in memchr::memchr_iter(b'"', s) {
+        buf.extend_from_slice(&s[start..=q]);
+        buf.push(b'"');
+        start = q + 1;
+    }
+    buf.extend_from_slice(&s[start..]);
+    buf.push(b'"');
+}
+
 enum Sink<'w> {
     Start(&'w mut dyn std::io::Write),
+    /// CSV of text columns, written here row by row (header written).
+    Text(&'w mut dyn std::io::Write),
     Csv(polars_io::csv::write::BatchedWriter<&'w mut dyn std::io::Write>),
     Parquet(Box<polars_io::parquet::write::BatchedWriter<&'w mut dyn std::io::Write>>),
     Gone,
@@ -1130,6 +1157,105 @@ impl<'w> BatchWriter<'w> {
         r.map_err(|e| self.werr(e))
     }
 
+    /// Write the next screened batch: the table's columns and the `flags`,
+    /// `severity` and `diagnosis` of `report` ([`check_columns`]). A CSV
+    /// whose columns are all text (every CSV read, since it is read as text)
+    /// is written here, each row's texts straight into the output, as
+    /// polars' CSV writer writes it: a field is quoted when it holds the
+    /// separator, a quote or a line break (quotes doubled), an empty text is
+    /// `""`, a missing one empty. Anything else goes through [`BatchWriter::write`].
+    pub fn write_checked(
+        &mut self,
+        frame: &DataFrame,
+        report: &crate::screen::ScreenReport,
+    ) -> Result<(), TableError> {
+        let text = !self.parquet
+            && frame
+                .columns()
+                .iter()
+                .all(|c| c.dtype() == &DataType::String);
+        let start = matches!(self.sink, Sink::Start(_));
+        if !(text && (start || matches!(self.sink, Sink::Text(_)))) {
+            let cols = check_columns(report).map_err(|e| self.werr(e))?;
+            return self.write(frame, cols);
+        }
+        const ADDED: [&str; 3] = ["flags", "severity", "diagnosis"];
+        let mut buf: Vec<u8> = Vec::with_capacity(1 << 20);
+        if start {
+            let mut names: Vec<&str> = frame
+                .get_column_names()
+                .into_iter()
+                .map(|x| x.as_str())
+                .collect();
+            for a in ADDED {
+                if names.contains(&a) {
+                    return Err(columns_err(
+                        &self.path,
+                        ReadErrorKind::AmbiguousColumn,
+                        format!("the input already has a column named '{a}'; rename it so the check columns can be added"),
+                    ));
+                }
+            }
+            names.extend(ADDED);
+            let opts = polars_io::csv::write::SerializeOptions::default();
+            buf = polars_io::csv::write::csv_header(&names, &opts).map_err(|e| self.werr(e))?;
+            if let Sink::Start(w) = std::mem::replace(&mut self.sink, Sink::Gone) {
+                self.sink = Sink::Text(w);
+            }
+        }
+        let Sink::Text(w) = &mut self.sink else {
+            return Ok(());
+        };
+        let cols: Vec<&StringChunked> = frame
+            .columns()
+            .iter()
+            .map(|c| c.str())
+            .collect::<PolarsResult<_>>()
+            .map_err(|e| {
+                ReadError::file(
+                    &self.path,
+                    ReadErrorKind::Io,
+                    format!("cannot write the table: {e}"),
+                )
+            })?;
+        let mut cells: Vec<_> = cols.iter().map(|c| c.iter()).collect();
+        let mut text = String::new();
+        let io = |e: std::io::Error, path: &Path| {
+            ReadError::file(
+                path,
+                ReadErrorKind::Io,
+                format!("cannot write the table: {e}"),
+            )
+        };
+        for i in 0..frame.height() {
+            for cell in cells.iter_mut() {
+                // a missing text is written as nothing
+                if let Some(v) = cell.next().flatten() {
+                    csv_field(&mut buf, v.as_bytes());
+                }
+                buf.push(b',');
+            }
+            text.clear();
+            report.write_flags(i, &mut text);
+            csv_field(&mut buf, text.as_bytes());
+            buf.push(b',');
+            csv_field(
+                &mut buf,
+                report.severity(i).map_or("", |s| s.as_str()).as_bytes(),
+            );
+            buf.push(b',');
+            text.clear();
+            report.write_diagnosis(i, &mut text);
+            csv_field(&mut buf, text.as_bytes());
+            buf.push(b'\n');
+            if buf.len() >= 1 << 20 {
+                w.write_all(&buf).map_err(|e| io(e, &self.path))?;
+                buf.clear();
+            }
+        }
+        w.write_all(&buf).map_err(|e| io(e, &self.path))
+    }
+
     /// End the file (Parquet's footer).
     pub fn finish(mut self) -> Result<(), TableError> {
         let r = match &mut self.sink {
@@ -1144,6 +1270,55 @@ impl<'w> BatchWriter<'w> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    // The rows written here are polars' CSV, byte for byte: empty and missing
+    // texts, commas, quotes and line breaks in the table and in the messages.
+    #[test]
+    fn checked_csv_is_the_polars_csv() {
+        use crate::screen::{CheckCode, Finding, ScreenReport};
+        let frame = df! {
+            "compound" => [Some("a,b"), Some(""), None, Some("say \"x\""), Some("two\nlines")],
+            "Tb/K" => [Some("1"), None, Some("3\r"), Some(""), Some("5")],
+        }
+        .unwrap();
+        let findings = vec![
+            vec![],
+            vec![Finding::new(
+                CheckCode::SmilesUnreadable,
+                "The SMILES 'C\"' cannot, be read.",
+            )],
+            vec![
+                Finding::new(CheckCode::TbAntoineMismatch, "plain"),
+                Finding::new(CheckCode::SlipDigit, "also plain"),
+            ],
+            vec![],
+            vec![Finding::new(CheckCode::DuplicateDisagrees, "x\ny")],
+        ];
+        let report = ScreenReport::new(findings, vec![2, 3, 4, 5, 6]);
+        let path = Path::new("t.csv");
+        let mut want = Vec::new();
+        write_table(
+            &frame,
+            {
+                let [f, s, d] = report.columns();
+                vec![("flags", f), ("severity", s), ("diagnosis", d)]
+            },
+            false,
+            &mut want,
+            path,
+        )
+        .unwrap();
+        let mut got = Vec::new();
+        let mut w = BatchWriter::new(&mut got, false, path);
+        w.write_checked(&frame, &report).unwrap();
+        w.write_checked(&frame.slice(0, 0), &ScreenReport::new(vec![], vec![]))
+            .unwrap();
+        w.finish().unwrap();
+        assert_eq!(
+            String::from_utf8(got).unwrap(),
+            String::from_utf8(want).unwrap()
+        );
+    }
 
     #[test]
     fn headings_are_recognised_with_units() {
