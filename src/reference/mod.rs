@@ -178,9 +178,65 @@ pub struct Library {
     /// Every formula among the compounds' structures, made on first use.
     formulas: OnceLock<std::collections::HashSet<String>>,
     /// Per index key: its character mask, length in characters, the key and its
-    /// compound, in one flat list made on the first name suggestion (scanned per
-    /// unknown name).
-    name_masks: OnceLock<Vec<(u64, usize, String, usize)>>,
+    /// compound, made on the first name suggestion (scanned per unknown name).
+    name_masks: OnceLock<NameMasks>,
+}
+
+/// Character masks and lengths of every name key, side by side for a fast scan, and the
+/// names that pass the cheap filters per query (mask, length), remembered.
+#[derive(Debug, Default)]
+struct NameMasks {
+    masks: Vec<u64>,
+    lens: Vec<usize>,
+    names: Vec<(String, usize)>,
+    passing: std::sync::Mutex<std::collections::HashMap<(u64, usize), std::sync::Arc<[u32]>>>,
+}
+
+impl Clone for NameMasks {
+    fn clone(&self) -> Self {
+        NameMasks {
+            masks: self.masks.clone(),
+            lens: self.lens.clone(),
+            names: self.names.clone(),
+            passing: Default::default(), // a cache: the copy makes its own
+        }
+    }
+}
+
+impl NameMasks {
+    /// Lower bounds on the edit distance from a query: the difference in length, and the
+    /// characters either name has that the other lacks (one edit each).
+    fn near(&self, j: usize, mq: u64, len_q: usize, limit: usize) -> bool {
+        let mk = self.masks[j];
+        let missing = (mq & !mk).count_ones().max((mk & !mq).count_ones()) as usize;
+        self.lens[j].abs_diff(len_q) <= limit && missing <= limit
+    }
+
+    /// The names a query with this mask and length can contain, be contained in, or be
+    /// within `limit` edits of by the bounds above; a superset of the suggestions.
+    fn candidates(&self, mq: u64, len_q: usize, limit: usize) -> std::sync::Arc<[u32]> {
+        // A panicked holder leaves a valid cache.
+        let lock = || self.passing.lock().unwrap_or_else(|p| p.into_inner());
+        if let Some(c) = lock().get(&(mq, len_q)) {
+            return c.clone();
+        }
+        let list: std::sync::Arc<[u32]> = (0..self.masks.len())
+            .filter(|&j| {
+                let (mk, len_k) = (self.masks[j], self.lens[j]);
+                // Containment needs the shorter name's characters inside the longer's.
+                let may_contain = len_q >= 3
+                    && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
+                may_contain || self.near(j, mq, len_q, limit)
+            })
+            .map(|j| j as u32)
+            .collect();
+        let mut cache = lock();
+        if cache.len() >= 4096 {
+            cache.clear(); // bounded: a batch of arbitrary names cannot grow it without end
+        }
+        cache.insert((mq, len_q), list.clone());
+        list
+    }
 }
 
 /// Which characters occur in `s`, folded onto 64 bits: a character of one string whose
@@ -385,38 +441,41 @@ impl Library {
         let limit = (len_q / 3).clamp(1, 3);
         let mq = char_mask(&kq);
         let names = self.name_masks.get_or_init(|| {
-            self.index
-                .iter()
-                .map(|(k, &i)| (char_mask(k), k.chars().count(), k.clone(), i))
-                .collect()
+            let mut m = NameMasks::default();
+            for (k, &i) in &self.index {
+                m.masks.push(char_mask(k));
+                m.lens.push(k.chars().count());
+                m.names.push((k.clone(), i));
+            }
+            m
         });
-        let mut scored: Vec<(usize, &str, usize)> = names
-            .iter()
-            .filter_map(|(mk, len_k, k, i)| {
-                let (mk, len_k, i) = (*mk, *len_k, *i);
-                // Containment needs the shorter name's characters inside the longer's.
-                let may_contain = len_q >= 3
-                    && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
-                let contains = may_contain && (k.contains(&kq) || kq.contains(k.as_str()));
-                // Lower bounds on the distance: the difference in length, and the
-                // characters either name has that the other lacks (one edit each). A
-                // name beyond the limit that does not contain the query is not a
-                // suggestion, and its distance need not be computed (once per unknown
-                // name in a batch).
-                if !contains {
-                    let missing = (mq & !mk).count_ones().max((mk & !mq).count_ones()) as usize;
-                    if len_k.abs_diff(len_q) > limit || missing > limit {
-                        return None;
-                    }
+        // Which names can be near the query depends only on its character mask and length:
+        // the pass over every name runs once per (mask, length) and is remembered, so a batch
+        // of unknown names with few distinct character sets scans the library a few times.
+        let candidates = names.candidates(mq, len_q, limit);
+        let mut scored: Vec<(usize, &str, usize)> = Vec::new();
+        for &j in candidates.iter() {
+            let j = j as usize;
+            let (mk, len_k) = (names.masks[j], names.lens[j]);
+            let (k, i) = (&names.names[j].0, names.names[j].1);
+            let may_contain = len_q >= 3
+                && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
+            let contains = may_contain && (k.contains(&kq) || kq.contains(k.as_str()));
+            if !contains && !names.near(j, mq, len_q, limit) {
+                continue;
+            }
+            let d = if contains {
+                edit_distance(&kq, k)
+            } else {
+                match edit_distance_within(&kq, k, limit) {
+                    Some(d) => d,
+                    None => continue,
                 }
-                let d = if contains {
-                    edit_distance(&kq, k)
-                } else {
-                    edit_distance_within(&kq, k, limit)?
-                };
-                (d <= limit || contains).then_some((d, k.as_str(), i))
-            })
-            .collect();
+            };
+            if d <= limit || contains {
+                scored.push((d, k.as_str(), i));
+            }
+        }
         scored.sort_by(|a, b| a.0.cmp(&b.0).then(a.1.cmp(b.1)));
         let mut out: Vec<String> = Vec::new();
         for (_, k, i) in scored {

@@ -8,7 +8,7 @@
 
 use super::error::{display_name, Locus, ReadError, ReadErrorKind};
 use super::headings::{classify, split_heading, Role};
-use super::measured::{number, raw_table, ReadOptions};
+use super::measured::{number, raw_headers, raw_table, ReadOptions};
 use super::source::read_bytes;
 use crate::mixture::fit::{BinaryData, BinaryPoint, DataKind};
 use crate::units::{Pressure, PressureUnit, Temperature, TemperatureUnit};
@@ -63,8 +63,7 @@ fn composition_role(h: &str) -> Option<(Comp, bool)> {
 /// Whether a table's header names a liquid or vapor composition column (`x1`, `y1`, `w1`):
 /// then `ebullio fit` reads it as binary VLE data.
 pub fn looks_binary(path: &Path, bytes: &[u8], opts: &ReadOptions) -> bool {
-    raw_table(path, bytes, opts)
-        .is_ok_and(|r| r.headers.iter().any(|h| composition_role(h).is_some()))
+    raw_headers(path, bytes, opts).is_ok_and(|h| h.iter().any(|h| composition_role(h).is_some()))
 }
 
 /// Read binary VLE data from a file.
@@ -247,9 +246,9 @@ pub fn read_binary_bytes(
         ));
     }
     let mut points = Vec::with_capacity(raw.rows.len());
-    for (line, cells) in &raw.rows {
-        let line = *line;
-        let cell = |i: usize| cells.get(i).map(String::as_str).unwrap_or("");
+    for row in &raw.rows {
+        let line = row.line;
+        let cell = |i: usize| row.cell(i);
         let err = |kind, i: usize, msg: String| {
             ReadError::file(path, kind, msg)
                 .at_line(line, locus)
@@ -338,7 +337,7 @@ pub fn read_binary_bytes(
     let data = BinaryData { kind, points };
     let distinct = data.distinct_inner_compositions();
     if distinct < 3 {
-        let first = raw.rows.first().map_or(1, |r| r.0);
+        let first = raw.rows.first().map_or(1, |r| r.line);
         return Err(ReadError::file(
             path,
             ReadErrorKind::BinaryData,

@@ -81,9 +81,48 @@ use std::collections::HashMap;
 /// A table as text cells, whatever the file format: what the validator reads.
 pub(crate) struct RawTable {
     pub(crate) headers: Vec<String>,
-    /// (line or row number, cells)
-    pub(crate) rows: Vec<(u64, Vec<String>)>,
+    pub(crate) rows: Vec<RawRow>,
     pub(crate) locus: Locus,
+}
+
+/// One data row as read: its line (CSV) or row number (Parquet) and its cells, kept in one
+/// record buffer (two allocations a row rather than one per cell) and trimmed on access.
+pub(crate) struct RawRow {
+    pub(crate) line: u64,
+    cells: csv::StringRecord,
+}
+
+impl RawRow {
+    pub(crate) fn new(line: u64, cells: csv::StringRecord) -> RawRow {
+        RawRow { line, cells }
+    }
+    /// Cell `i`, trimmed; "" past the row's end.
+    pub(crate) fn cell(&self, i: usize) -> &str {
+        self.cells.get(i).map_or("", str::trim)
+    }
+    fn cells(&self) -> impl Iterator<Item = &str> {
+        self.cells.iter().map(str::trim)
+    }
+}
+
+/// A row compared and hashed by its trimmed cells: the repeated-row warning.
+struct SameCells<'a>(&'a RawRow);
+
+impl PartialEq for SameCells<'_> {
+    fn eq(&self, other: &Self) -> bool {
+        self.0.cells.len() == other.0.cells.len() && self.0.cells().eq(other.0.cells())
+    }
+}
+
+impl Eq for SameCells<'_> {}
+
+impl std::hash::Hash for SameCells<'_> {
+    fn hash<H: std::hash::Hasher>(&self, h: &mut H) {
+        for c in self.0.cells() {
+            h.write(c.as_bytes());
+            h.write_u8(0xff);
+        }
+    }
 }
 
 /// Any measured table as text cells (CSV or Parquet): shared with the binary reader.
@@ -129,6 +168,30 @@ pub fn read_measured_bytes(
 }
 
 fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, ReadError> {
+    csv_rows(path, bytes, opts, false)
+}
+
+/// The headings of a table alone (CSV: the first line that is not blank or a comment,
+/// without reading further; Parquet: read whole).
+pub(crate) fn raw_headers(
+    path: &Path,
+    bytes: &[u8],
+    opts: &ReadOptions,
+) -> Result<Vec<String>, ReadError> {
+    match detect_format(path, bytes) {
+        TableFormat::Parquet => parquet_raw(path, bytes).map(|r| r.headers),
+        TableFormat::Csv => csv_rows(path, bytes, opts, true).map(|r| r.headers),
+    }
+}
+
+/// Read CSV cells, trimmed, skipping blank and comment lines; with `headers_only`, stop after
+/// the header. One record buffer is reused, and a cell is copied once (trimmed) into its row.
+fn csv_rows(
+    path: &Path,
+    bytes: &[u8],
+    opts: &ReadOptions,
+    headers_only: bool,
+) -> Result<RawTable, ReadError> {
     let text = decode_text(path, bytes)?;
     if text.trim().is_empty() {
         return Err(ReadError::file(
@@ -151,34 +214,48 @@ fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, Re
         .has_headers(false)
         .flexible(true)
         .delimiter(delim)
-        .trim(csv::Trim::All)
         .from_reader(text.as_bytes());
     let mut headers: Option<Vec<String>> = None;
     let mut rows = Vec::new();
-    for rec in rdr.records() {
-        let rec = rec.map_err(|e| {
-            let line = e.position().map(|p| p.line()).unwrap_or(0);
-            ReadError::file(path, ReadErrorKind::CsvSyntax, format!("broken CSV: {e}"))
-                .at_line(line.max(1), Locus::Line)
-        })?;
+    let mut rec = csv::StringRecord::new();
+    loop {
+        match rdr.read_record(&mut rec) {
+            Ok(true) => {}
+            Ok(false) => break,
+            Err(e) => {
+                let line = e.position().map(|p| p.line()).unwrap_or(0);
+                return Err(ReadError::file(
+                    path,
+                    ReadErrorKind::CsvSyntax,
+                    format!("broken CSV: {e}"),
+                )
+                .at_line(line.max(1), Locus::Line));
+            }
+        }
         let line = rec.position().map(|p| p.line()).unwrap_or(0);
-        let cells: Vec<String> = rec.iter().map(str::to_string).collect();
         // Skip blank lines and comment lines starting with '#'.
-        if cells.iter().all(|c| c.is_empty()) || cells.first().is_some_and(|c| c.starts_with('#')) {
+        if rec.iter().all(|c| c.trim().is_empty())
+            || rec.get(0).is_some_and(|c| c.trim().starts_with('#'))
+        {
             continue;
         }
         match &headers {
-            None => headers = Some(cells),
+            None => {
+                headers = Some(rec.iter().map(|c| c.trim().to_string()).collect());
+                if headers_only {
+                    break;
+                }
+            }
             Some(h) => {
-                if cells.len() != h.len() {
-                    return Err(ReadError::ragged(path, line, cells.len(), h.len()));
+                if rec.len() != h.len() {
+                    return Err(ReadError::ragged(path, line, rec.len(), h.len()));
                 }
                 let cells = if opts.decimal_comma {
-                    cells.into_iter().map(|c| c.replace(',', ".")).collect()
+                    rec.iter().map(|c| c.trim().replace(',', ".")).collect()
                 } else {
-                    cells
+                    rec.clone()
                 };
-                rows.push((line, cells));
+                rows.push(RawRow::new(line, cells));
             }
         }
     }
@@ -194,7 +271,10 @@ fn csv_raw(path: &Path, bytes: &[u8], opts: &ReadOptions) -> Result<RawTable, Re
 fn parquet_raw(path: &Path, bytes: &[u8]) -> Result<RawTable, ReadError> {
     super::parquet::read_as_text(path, bytes).map(|(headers, rows)| RawTable {
         headers,
-        rows,
+        rows: rows
+            .into_iter()
+            .map(|(n, cells)| RawRow::new(n, csv::StringRecord::from(cells)))
+            .collect(),
         locus: Locus::Row,
     })
 }
@@ -412,11 +492,13 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
     };
     // Rows are borrowed as keys (no copy per row) and the maps sized once: on a batch of
     // 10,000 compounds the copies and rehashes cost as much as the fits.
-    let mut set_index: HashMap<&str, usize> = HashMap::new();
-    let mut seen_rows: HashMap<&[String], u64> = HashMap::with_capacity(raw.rows.len());
-    for (line, cells) in &raw.rows {
-        let line = *line;
-        let cell = |i: usize| cells.get(i).map(String::as_str).unwrap_or("");
+    // foldhash, seeded per process like the standard hasher, at a fraction of SipHash's cost.
+    let mut set_index: HashMap<&str, usize, foldhash::quality::RandomState> = HashMap::default();
+    let mut seen_rows: HashMap<SameCells, u64, foldhash::quality::RandomState> =
+        HashMap::with_capacity_and_hasher(raw.rows.len(), Default::default());
+    for row in &raw.rows {
+        let line = row.line;
+        let cell = |i: usize| row.cell(i);
         let tv = number(path, line, locus, ti, heading(ti), cell(ti))?;
         let t = Temperature::new(tv, t_unit).map_err(|e| {
             ReadError::file(path, ReadErrorKind::BelowAbsoluteZero, e.to_string())
@@ -459,17 +541,21 @@ fn validate(path: &Path, raw: RawTable, opts: &ReadOptions) -> Result<MeasuredDa
         let u_t_k = uncertainty(ut_unit.map(|(i, u)| (i, u.kelvin_per_degree())))?;
         let u_p_pa = uncertainty(up_unit.map(|(i, u)| (i, u.pa_per_unit())))?;
 
-        if let Some(first) = seen_rows.get(cells.as_slice()) {
-            data.warnings.push(ReadWarning {
-                file: display_name(path),
-                line,
-                code: "repeated-row".into(),
-                message: format!(
-                    "this row repeats line {first} exactly; both are kept (remove one if it was pasted twice)"
-                ),
-            });
-        } else {
-            seen_rows.insert(cells.as_slice(), line);
+        match seen_rows.entry(SameCells(row)) {
+            std::collections::hash_map::Entry::Occupied(first) => {
+                let first = *first.get();
+                data.warnings.push(ReadWarning {
+                    file: display_name(path),
+                    line,
+                    code: "repeated-row".into(),
+                    message: format!(
+                        "this row repeats line {first} exactly; both are kept (remove one if it was pasted twice)"
+                    ),
+                });
+            }
+            std::collections::hash_map::Entry::Vacant(v) => {
+                v.insert(line);
+            }
         }
 
         let key = cols.compound.map(cell).unwrap_or("");
