@@ -6,7 +6,8 @@ use anyhow::Context;
 use ebullio::fit::FitOptions;
 use ebullio::report::text::fit as fit_text;
 use ebullio::table_io::{
-    fit_batch, none_fitted, read_measured_bytes, FitCheckOptions, FitRow, ReadOptions,
+    fit_batch, fit_batch_map, none_fitted, none_fitted_by, read_measured_bytes, FitCheckOptions,
+    FitRow, ReadOptions,
 };
 use ebullio::units::{PressureUnit, TemperatureUnit};
 use std::io::IsTerminal;
@@ -215,12 +216,35 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
             tb_k: args.ref_tb_tolerance_k,
         },
     };
-    let rows = fit_batch(&data, &r.fit, &check, &super::hints::fit_error, &|| {
+    let step = || {
         if let Some(b) = &bar {
             b.inc(1);
         }
         super::common::batch_step();
-    });
+    };
+    if args.out.format() == Format::Csv && args.plot.is_none() && args.report.is_none() {
+        // Only the rows' text is needed: each report becomes its row where it was fitted.
+        let lines = fit_batch_map(&data, &r.fit, &check, &super::hints::fit_error, &step, &|row| {
+            let error = match &row {
+                FitRow::Failed { error, .. } => Some(error.clone()),
+                FitRow::Ok(_) => None,
+            };
+            (error, fit_text::csv_line(&row))
+        });
+        if let Some(b) = bar {
+            b.finish_and_clear();
+        }
+        if let Some(why) = none_fitted_by(&data.source, lines.iter().map(|(e, _)| e.as_deref())) {
+            return Err(InputError(why).into());
+        }
+        let mut text = fit_text::csv(&[])?;
+        for (_, line) in lines {
+            text.push_str(&line?);
+        }
+        args.out.emit(&text, &[args.data.as_path()])?;
+        return Ok(Outcome::Success);
+    }
+    let rows = fit_batch(&data, &r.fit, &check, &super::hints::fit_error, &step);
     if let Some(b) = bar {
         b.finish_and_clear();
     }

@@ -68,6 +68,20 @@ pub fn fit_batch(
     describe: &(dyn Fn(&FitError) -> String + Sync),
     step: &(dyn Fn() + Sync),
 ) -> Vec<FitRow> {
+    fit_batch_map(data, opts, check, describe, step, &|row| row)
+}
+
+/// [`fit_batch`], with each row handed to `keep` on the worker that fitted it, in input
+/// order: a batch that only writes rows (CSV) keeps their text and drops each report
+/// where it was made, rather than holding every report until the end.
+pub fn fit_batch_map<T: Send>(
+    data: &MeasuredData,
+    opts: &FitOptions,
+    check: &FitCheckOptions,
+    describe: &(dyn Fn(&FitError) -> String + Sync),
+    step: &(dyn Fn() + Sync),
+    keep: &(dyn Fn(FitRow) -> T + Sync),
+) -> Vec<T> {
     let lib = Library::bundled();
     data.sets
         .par_iter()
@@ -103,7 +117,7 @@ pub fn fit_batch(
                 },
             };
             step();
-            row
+            keep(row)
         })
         .collect()
 }
@@ -111,21 +125,30 @@ pub fn fit_batch(
 /// When no compound could be fitted, the error to give (no output is written then):
 /// the first compound's reason, naming `source`.
 pub fn none_fitted(source: &str, rows: &[FitRow]) -> Option<String> {
-    if rows.iter().any(|r| r.report().is_some()) {
-        return None;
-    }
-    let why = rows
-        .iter()
-        .find_map(|r| match r {
+    none_fitted_by(
+        source,
+        rows.iter().map(|r| match r {
             FitRow::Failed { error, .. } => Some(error.as_str()),
             FitRow::Ok(_) => None,
-        })
-        .unwrap_or("no fit");
-    Some(if rows.len() > 1 {
-        format!(
-            "{source}: none of the {} compounds could be fitted; the first: {why}",
-            rows.len()
-        )
+        }),
+    )
+}
+
+/// [`none_fitted`] from each row's error (`None` for a fitted row), for a batch that kept
+/// only its rows' text ([`fit_batch_map`]).
+pub fn none_fitted_by<'a>(
+    source: &str,
+    errors: impl ExactSizeIterator<Item = Option<&'a str>>,
+) -> Option<String> {
+    let n = errors.len();
+    let mut first = None;
+    for e in errors {
+        let why = e?; // a fitted row: something to write
+        first.get_or_insert(why);
+    }
+    let why = first.unwrap_or("no fit");
+    Some(if n > 1 {
+        format!("{source}: none of the {n} compounds could be fitted; the first: {why}")
     } else {
         format!("{source}: {why}")
     })

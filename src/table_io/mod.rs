@@ -33,7 +33,9 @@ pub mod text_table;
 pub use atomic::{write_atomic, write_atomic_with, OutputError};
 pub use error::{Locus, ReadError, ReadErrorKind};
 pub use estimates::{estimates_csv, write_estimates_csv};
-pub use fit_batch::{fit_batch, none_fitted, FitCheckOptions, FitRow};
+pub use fit_batch::{
+    fit_batch, fit_batch_map, none_fitted, none_fitted_by, FitCheckOptions, FitRow,
+};
 pub use fit_file::{is_binary_fit, pick_fit, read_binary_fit, read_fit_reports};
 pub use json::json_text;
 pub use measured::{

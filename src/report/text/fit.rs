@@ -1,71 +1,93 @@
 //! The `fit` command's terminal table and CSV.
 
-use super::{cell, sig, t_symbol, Csv};
+use super::{sig, t_symbol, Csv};
 use crate::fit::PredictionKind;
 use crate::units::{PressureUnit, TemperatureUnit};
 
 pub use crate::table_io::FitRow;
 
+/// The columns of [`csv`].
+pub const CSV_HEADINGS: [&str; 18] = [
+    "compound",
+    "model",
+    "convention",
+    "A",
+    "B",
+    "C",
+    "D",
+    "se_A",
+    "se_B",
+    "se_C",
+    "se_D",
+    "n_points",
+    "rms_rel_dev_pct",
+    "tb_k",
+    "tb_ci95_low_k",
+    "tb_ci95_high_k",
+    "flags",
+    "error",
+];
+
 /// The fits as CSV, one row per compound (a failed fit: its compound and error).
 pub fn csv(rows: &[FitRow]) -> Result<String, csv::Error> {
-    let mut w = Csv::new([
-        "compound",
-        "model",
-        "convention",
-        "A",
-        "B",
-        "C",
-        "D",
-        "se_A",
-        "se_B",
-        "se_C",
-        "se_D",
-        "n_points",
-        "rms_rel_dev_pct",
-        "tb_k",
-        "tb_ci95_low_k",
-        "tb_ci95_high_k",
-        "flags",
-        "error",
-    ]);
-    let f = cell;
+    let mut out = Csv::new(CSV_HEADINGS).finish()?;
     for r in rows {
-        match r {
-            FitRow::Ok(rep) => {
-                let p = |i: usize| f(rep.parameters.get(i).map(|p| p.value));
-                let s = |i: usize| f(rep.parameters.get(i).map(|p| p.std_error));
-                let tb = rep.normal_boiling_point_k.as_ref();
-                let codes: Vec<&str> = rep.flags.iter().map(|x| x.code.as_str()).collect();
-                w.row([
-                    rep.compound.clone().unwrap_or_default(),
-                    rep.model.to_string(),
-                    rep.convention.to_string(),
-                    p(0),
-                    p(1),
-                    p(2),
-                    p(3),
-                    s(0),
-                    s(1),
-                    s(2),
-                    s(3),
-                    rep.n_points.to_string(),
-                    f(Some(rep.rms_rel_dev_pct)),
-                    f(tb.map(|t| t.value)),
-                    f(tb.map(|t| t.ci95_low)),
-                    f(tb.map(|t| t.ci95_high)),
-                    codes.join(";"),
-                    String::new(),
-                ]);
+        out.push_str(&csv_line(r)?);
+    }
+    Ok(out)
+}
+
+/// One row of [`csv`] with its line end: what a batch writes as each fit is done. Cells are
+/// written one by one into the row, so a row costs a few allocations, not one per cell.
+pub fn csv_line(r: &FitRow) -> Result<String, csv::Error> {
+    let mut w = csv::WriterBuilder::new()
+        .buffer_capacity(512)
+        .from_writer(Vec::with_capacity(256));
+    let mut cellbuf = String::with_capacity(32);
+    let mut num = |w: &mut csv::Writer<Vec<u8>>, v: Option<f64>| {
+        cellbuf.clear();
+        super::push_cell(&mut cellbuf, v);
+        w.write_field(&cellbuf)
+    };
+    match r {
+        FitRow::Ok(rep) => {
+            w.write_field(rep.compound.as_deref().unwrap_or_default())?;
+            w.write_field(rep.model.to_string())?;
+            w.write_field(rep.convention.to_string())?;
+            for i in 0..4 {
+                num(&mut w, rep.parameters.get(i).map(|p| p.value))?;
             }
-            FitRow::Failed { compound, error } => {
-                let mut rec = vec![compound.clone().unwrap_or_default()];
-                rec.extend(std::iter::repeat_n(String::new(), 16));
-                rec.push(error.clone());
-                w.row(rec);
+            for i in 0..4 {
+                num(&mut w, rep.parameters.get(i).map(|p| p.std_error))?;
             }
+            w.write_field(rep.n_points.to_string())?;
+            num(&mut w, Some(rep.rms_rel_dev_pct))?;
+            let tb = rep.normal_boiling_point_k.as_ref();
+            num(&mut w, tb.map(|t| t.value))?;
+            num(&mut w, tb.map(|t| t.ci95_low))?;
+            num(&mut w, tb.map(|t| t.ci95_high))?;
+            let mut codes = String::new();
+            for (i, f) in rep.flags.iter().enumerate() {
+                if i > 0 {
+                    codes.push(';');
+                }
+                codes.push_str(f.code.as_str());
+            }
+            w.write_field(&codes)?;
+            w.write_field("")?;
+        }
+        FitRow::Failed { compound, error } => {
+            w.write_field(compound.as_deref().unwrap_or_default())?;
+            for _ in 0..16 {
+                w.write_field("")?;
+            }
+            w.write_field(error)?;
         }
     }
-    w.finish()
+    w.write_record(None::<&[u8]>)?;
+    let bytes = w.into_inner().map_err(|e| csv::Error::from(e.into_error()))?;
+    // Every cell came from a &str, so the row is UTF-8.
+    Ok(String::from_utf8(bytes).unwrap_or_default())
 }
 
 /// The readable report of one fit, in the chosen display units.
