@@ -461,7 +461,7 @@ impl Library {
             let may_contain = len_q >= 3
                 && ((len_k >= len_q && mq & !mk == 0) || (len_k <= len_q && mk & !mq == 0));
             let contains = may_contain && (k.contains(&kq) || kq.contains(k.as_str()));
-            if !contains && !names.near(j, mq, len_q, limit) {
+            if !contains && (!names.near(j, mq, len_q, limit) || bag_distance(&kq, k) > limit) {
                 continue;
             }
             let d = if contains {
@@ -569,6 +569,23 @@ pub fn edit_distance(a: &str, b: &str) -> usize {
 /// [`edit_distance`] when it is at most `limit`, else `None`: the rows stop as soon as
 /// every entry exceeds the limit (the distance never falls along the rows), so an
 /// unrelated name costs a few rows; short names stay on the stack.
+/// A lower bound on the edit distance, far cheaper than it: the characters of either string
+/// left over when the two are matched as multisets (each needs at least one edit).
+/// Characters are folded onto 64 counters, which can only lower the bound.
+fn bag_distance(a: &str, b: &str) -> usize {
+    let mut count = [0i32; 64];
+    for c in a.chars() {
+        count[c as usize % 64] += 1;
+    }
+    for c in b.chars() {
+        count[c as usize % 64] -= 1;
+    }
+    let (more_a, more_b) = count.iter().fold((0, 0), |(p, n), &c| {
+        (p + c.max(0) as usize, n + (-c).max(0) as usize)
+    });
+    more_a.max(more_b)
+}
+
 fn edit_distance_within(a: &str, b: &str, limit: usize) -> Option<usize> {
     const STACK: usize = 64;
     let (mut bs, mut pv, mut cv) = ([' '; STACK], [0usize; STACK + 1], [0usize; STACK + 1]);

@@ -64,6 +64,46 @@ pub fn tidy(x: f64) -> f64 {
     if !x.is_finite() || x == 0.0 {
         return x;
     }
+    if let Some(e) = decimal_exponent(x.abs()) {
+        // 10^|k| ≤ 10^21 is exact, as 10f64.powi(|k|) below is: the same arithmetic.
+        let k = TIDY_DIGITS - 1 - e;
+        return if k >= 0 {
+            let s = POW10[k as usize];
+            (x * s).round() / s
+        } else {
+            let s = POW10[(-k) as usize];
+            (x / s).round() * s
+        };
+    }
+    tidy_by_log(x)
+}
+
+/// 10^0 … 10^22, each exact in a double.
+const POW10: [f64; 23] = [
+    1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16,
+    1e17, 1e18, 1e19, 1e20, 1e21, 1e22,
+];
+
+/// ⌊log10 a⌋ for 1e-10 ≤ a < 1e21 by comparison with exact powers of ten, where it
+/// certainly equals `a.log10().floor()`: `None` within a relative 1e-12 of a power of ten
+/// (where a rounded logarithm could land on either side) or outside that range.
+fn decimal_exponent(a: f64) -> Option<i32> {
+    if !(1e-10..1e21).contains(&a) {
+        return None;
+    }
+    // Scale into [1, 1e21) without rounding the comparison: a·10^10 only for a < 1.
+    let (b, shift) = if a < 1.0 { (a * 1e10, -10) } else { (a, 0) };
+    let i = POW10.partition_point(|&p| p <= b); // POW10[i-1] ≤ b < POW10[i]
+    let (lo, hi) = (POW10[i.checked_sub(1)?], *POW10.get(i)?);
+    let margin = 1e-12;
+    if b < lo * (1.0 + margin) || b > hi * (1.0 - margin) {
+        return None;
+    }
+    Some(i as i32 - 1 + shift)
+}
+
+/// [`tidy`] by the logarithm: the rule itself, used where the table does not reach.
+fn tidy_by_log(x: f64) -> f64 {
     let e = x.abs().log10().floor() as i32;
     let k = TIDY_DIGITS - 1 - e;
     if k >= 0 {
@@ -164,6 +204,39 @@ impl UnitError {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use proptest::prelude::*;
+
+    // The table path of `tidy` gives what the logarithm gives, bit for bit: at and next to
+    // every power of ten it reaches, and anywhere (property below).
+    #[test]
+    fn tidy_table_path_is_the_rule() {
+        for k in -12..23 {
+            let p = 10f64.powi(k);
+            let mut x = p;
+            let mut y = p;
+            for _ in 0..40 {
+                x = f64::from_bits(x.to_bits() + 1);
+                y = f64::from_bits(y.to_bits() - 1);
+                for v in [p, x, y, -x, -y, p * (1.0 + 1e-12), p * (1.0 - 1e-12), p * 1.5] {
+                    assert_eq!(tidy(v).to_bits(), tidy_by_log(v).to_bits(), "{v:e}");
+                }
+            }
+        }
+    }
+
+    proptest! {
+        #[test]
+        fn tidy_matches_the_logarithm(m in 1.0f64..10.0, e in -14i32..24, neg in any::<bool>()) {
+            let x = if neg { -m } else { m } * 10f64.powi(e);
+            prop_assert_eq!(tidy(x).to_bits(), tidy_by_log(x).to_bits());
+        }
+
+        #[test]
+        fn tidy_matches_the_logarithm_on_any_bits(bits in any::<u64>()) {
+            let x = f64::from_bits(bits);
+            prop_assert_eq!(tidy(x).to_bits(), tidy_by_log(x).to_bits());
+        }
+    }
 
     // Conversion factors from NIST Special Publication 811 (2008), Appendix B.
     #[test]
