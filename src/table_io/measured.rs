@@ -81,36 +81,103 @@ use std::collections::HashMap;
 /// A table as text cells, whatever the file format: what the validator reads.
 pub(crate) struct RawTable {
     pub(crate) headers: Vec<String>,
-    pub(crate) rows: Vec<RawRow>,
+    pub(crate) rows: RawRows,
     pub(crate) locus: Locus,
 }
 
-/// One data row as read: its line (CSV) or row number (Parquet) and its cells, kept in one
-/// record buffer (two allocations a row rather than one per cell) and trimmed on access.
-pub(crate) struct RawRow {
-    pub(crate) line: u64,
-    cells: csv::StringRecord,
+/// The data rows as read, their trimmed cells end to end in one text: a table of any
+/// length costs a few growing buffers, not an allocation per row or cell.
+#[derive(Default)]
+pub(crate) struct RawRows {
+    text: String,
+    /// End of each cell in `text`.
+    ends: Vec<usize>,
+    /// Per row: its line (CSV) or row number (Parquet), its first cell and cell count.
+    spans: Vec<(u64, usize, usize)>,
 }
 
-impl RawRow {
-    pub(crate) fn new(line: u64, cells: csv::StringRecord) -> RawRow {
-        RawRow { line, cells }
+impl RawRows {
+    fn push<'c>(&mut self, line: u64, cells: impl Iterator<Item = &'c str>) {
+        let first = self.ends.len();
+        for c in cells {
+            self.text.push_str(c.trim());
+            self.ends.push(self.text.len());
+        }
+        self.spans.push((line, first, self.ends.len() - first));
     }
+    pub(crate) fn len(&self) -> usize {
+        self.spans.len()
+    }
+    pub(crate) fn is_empty(&self) -> bool {
+        self.spans.is_empty()
+    }
+    pub(crate) fn first(&self) -> Option<RawRow<'_>> {
+        self.get(0)
+    }
+    fn get(&self, i: usize) -> Option<RawRow<'_>> {
+        let &(line, first, n) = self.spans.get(i)?;
+        Some(RawRow {
+            line,
+            rows: self,
+            first,
+            n,
+        })
+    }
+}
+
+impl<'a> IntoIterator for &'a RawRows {
+    type Item = RawRow<'a>;
+    type IntoIter = RawRowIter<'a>;
+    fn into_iter(self) -> RawRowIter<'a> {
+        RawRowIter { rows: self, i: 0 }
+    }
+}
+
+/// The rows of a [`RawRows`], in order.
+pub(crate) struct RawRowIter<'a> {
+    rows: &'a RawRows,
+    i: usize,
+}
+
+impl<'a> Iterator for RawRowIter<'a> {
+    type Item = RawRow<'a>;
+    fn next(&mut self) -> Option<RawRow<'a>> {
+        let r = self.rows.get(self.i)?;
+        self.i += 1;
+        Some(r)
+    }
+}
+
+/// One data row: its line (CSV) or row number (Parquet) and its trimmed cells.
+#[derive(Clone, Copy)]
+pub(crate) struct RawRow<'a> {
+    pub(crate) line: u64,
+    rows: &'a RawRows,
+    first: usize,
+    n: usize,
+}
+
+impl<'a> RawRow<'a> {
     /// Cell `i`, trimmed; "" past the row's end.
-    pub(crate) fn cell(&self, i: usize) -> &str {
-        self.cells.get(i).map_or("", str::trim)
+    pub(crate) fn cell(&self, i: usize) -> &'a str {
+        if i >= self.n {
+            return "";
+        }
+        let k = self.first + i;
+        let start = if k == 0 { 0 } else { self.rows.ends[k - 1] };
+        &self.rows.text[start..self.rows.ends[k]]
     }
-    fn cells(&self) -> impl Iterator<Item = &str> {
-        self.cells.iter().map(str::trim)
+    fn cells(&self) -> impl Iterator<Item = &'a str> + '_ {
+        (0..self.n).map(|i| self.cell(i))
     }
 }
 
 /// A row compared and hashed by its trimmed cells: the repeated-row warning.
-struct SameCells<'a>(&'a RawRow);
+struct SameCells<'a>(RawRow<'a>);
 
 impl PartialEq for SameCells<'_> {
     fn eq(&self, other: &Self) -> bool {
-        self.0.cells.len() == other.0.cells.len() && self.0.cells().eq(other.0.cells())
+        self.0.n == other.0.n && self.0.cells().eq(other.0.cells())
     }
 }
 
@@ -216,7 +283,7 @@ fn csv_rows(
         .delimiter(delim)
         .from_reader(text.as_bytes());
     let mut headers: Option<Vec<String>> = None;
-    let mut rows = Vec::new();
+    let mut rows = RawRows::default();
     let mut rec = csv::StringRecord::new();
     loop {
         match rdr.read_record(&mut rec) {
@@ -250,12 +317,12 @@ fn csv_rows(
                 if rec.len() != h.len() {
                     return Err(ReadError::ragged(path, line, rec.len(), h.len()));
                 }
-                let cells = if opts.decimal_comma {
-                    rec.iter().map(|c| c.trim().replace(',', ".")).collect()
+                if opts.decimal_comma {
+                    let cells: Vec<String> = rec.iter().map(|c| c.trim().replace(',', ".")).collect();
+                    rows.push(line, cells.iter().map(String::as_str));
                 } else {
-                    rec.clone()
-                };
-                rows.push(RawRow::new(line, cells));
+                    rows.push(line, rec.iter());
+                }
             }
         }
     }
@@ -271,10 +338,13 @@ fn csv_rows(
 fn parquet_raw(path: &Path, bytes: &[u8]) -> Result<RawTable, ReadError> {
     super::parquet::read_as_text(path, bytes).map(|(headers, rows)| RawTable {
         headers,
-        rows: rows
-            .into_iter()
-            .map(|(n, cells)| RawRow::new(n, csv::StringRecord::from(cells)))
-            .collect(),
+        rows: {
+            let mut raw = RawRows::default();
+            for (n, cells) in &rows {
+                raw.push(*n, cells.iter().map(String::as_str));
+            }
+            raw
+        },
         locus: Locus::Row,
     })
 }
