@@ -224,13 +224,20 @@ pub fn run(args: Args) -> anyhow::Result<Outcome> {
     };
     if args.out.format() == Format::Csv && args.plot.is_none() && args.report.is_none() {
         // Only the rows' text is needed: each report becomes its row where it was fitted.
-        let lines = fit_batch_map(&data, &r.fit, &check, &super::hints::fit_error, &step, &|row| {
-            let error = match &row {
-                FitRow::Failed { error, .. } => Some(error.clone()),
-                FitRow::Ok(_) => None,
-            };
-            (error, fit_text::csv_line(&row))
-        });
+        let lines = fit_batch_map(
+            &data,
+            &r.fit,
+            &check,
+            &super::hints::fit_error,
+            &step,
+            &|row| {
+                let error = match &row {
+                    FitRow::Failed { error, .. } => Some(error.clone()),
+                    FitRow::Ok(_) => None,
+                };
+                (error, fit_text::csv_line(&row))
+            },
+        );
         if let Some(b) = bar {
             b.finish_and_clear();
         }

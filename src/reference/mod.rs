@@ -182,6 +182,9 @@ pub struct Library {
     name_masks: OnceLock<NameMasks>,
 }
 
+/// Per query (character mask, length in characters): the names that pass the cheap filters.
+type PassingNames = std::collections::HashMap<(u64, usize), std::sync::Arc<[u32]>>;
+
 /// Character masks and lengths of every name key, side by side for a fast scan, and the
 /// names that pass the cheap filters per query (mask, length), remembered.
 #[derive(Debug, Default)]
@@ -189,7 +192,7 @@ struct NameMasks {
     masks: Vec<u64>,
     lens: Vec<usize>,
     names: Vec<(String, usize)>,
-    passing: std::sync::Mutex<std::collections::HashMap<(u64, usize), std::sync::Arc<[u32]>>>,
+    passing: std::sync::Mutex<PassingNames>,
 }
 
 impl Clone for NameMasks {

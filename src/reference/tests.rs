@@ -202,7 +202,10 @@ fn bounded_edit_distance_matches_the_full_one() {
     for a in words {
         for b in words {
             let d = super::edit_distance(a, b);
-            assert!(super::bag_distance(a, b) <= d, "bag distance of {a} {b} above {d}");
+            assert!(
+                super::bag_distance(a, b) <= d,
+                "bag distance of {a} {b} above {d}"
+            );
             for limit in 0..5 {
                 assert_eq!(
                     super::edit_distance_within(a, b, limit),

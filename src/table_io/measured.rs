@@ -318,7 +318,8 @@ fn csv_rows(
                     return Err(ReadError::ragged(path, line, rec.len(), h.len()));
                 }
                 if opts.decimal_comma {
-                    let cells: Vec<String> = rec.iter().map(|c| c.trim().replace(',', ".")).collect();
+                    let cells: Vec<String> =
+                        rec.iter().map(|c| c.trim().replace(',', ".")).collect();
                     rows.push(line, cells.iter().map(String::as_str));
                 } else {
                     rows.push(line, rec.iter());

@@ -217,7 +217,16 @@ mod tests {
             for _ in 0..40 {
                 x = f64::from_bits(x.to_bits() + 1);
                 y = f64::from_bits(y.to_bits() - 1);
-                for v in [p, x, y, -x, -y, p * (1.0 + 1e-12), p * (1.0 - 1e-12), p * 1.5] {
+                for v in [
+                    p,
+                    x,
+                    y,
+                    -x,
+                    -y,
+                    p * (1.0 + 1e-12),
+                    p * (1.0 - 1e-12),
+                    p * 1.5,
+                ] {
                     assert_eq!(tidy(v).to_bits(), tidy_by_log(v).to_bits(), "{v:e}");
                 }
             }

@@ -85,7 +85,9 @@ pub fn csv_line(r: &FitRow) -> Result<String, csv::Error> {
         }
     }
     w.write_record(None::<&[u8]>)?;
-    let bytes = w.into_inner().map_err(|e| csv::Error::from(e.into_error()))?;
+    let bytes = w
+        .into_inner()
+        .map_err(|e| csv::Error::from(e.into_error()))?;
     // Every cell came from a &str, so the row is UTF-8.
     Ok(String::from_utf8(bytes).unwrap_or_default())
 }
