@@ -349,8 +349,10 @@ fn numbers(r: &Raw) -> Numbers {
         variants[slot(TbVariant::SteinBrown)] = Some(stein_brown::corrected_tb_k(j));
     }
     let mut shipped = None;
+    let (extended, published) = (r.terms.present(), r.terms.published().present());
+    let new_groups = r.terms.new_groups();
     for (k, m) in tb_model::indexed_models().iter().enumerate() {
-        let p = m.predict(&r.terms);
+        let p = m.predict_present(&extended, &published, new_groups);
         if p.tb_k.is_finite() {
             variants[slot(m.model.variant)] = Some(p.tb_k);
             if m.model.variant == cal.variant {
@@ -365,16 +367,11 @@ fn numbers(r: &Raw) -> Numbers {
             tb_model::indexed_models()[*k].model.variant,
             p.outside,
         ),
-        None => {
-            let approximated = (terms::N_JOBACK..terms::FIRST_CORRECTION)
-                .filter(|&i| r.terms.get(i) > 0)
-                .fold(0u64, |m, i| m | 1 << i);
-            (
-                joback::tb_k(r.sums.tb.unwrap_or(0.0)),
-                TbVariant::Joback,
-                approximated,
-            )
-        }
+        None => (
+            joback::tb_k(r.sums.tb.unwrap_or(0.0)),
+            TbVariant::Joback,
+            new_groups,
+        ),
     };
     let factor = interval::comfort_factor(outside != 0, r.polar);
     let hw = cal.q90_k(r.class) * factor;

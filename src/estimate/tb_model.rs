@@ -16,7 +16,7 @@
 
 use super::groups::GroupCounts;
 use super::stein_brown;
-use super::terms::{self, TermCounts, N_JOBACK, N_TERMS};
+use super::terms::{self, Present, TermCounts, N_TERMS};
 use std::collections::BTreeMap;
 use std::sync::OnceLock;
 
@@ -287,16 +287,32 @@ impl IndexedModel {
 
     /// [`FittedModel::predict`] by index: the same sum in the same order.
     pub fn predict(&self, extended_terms: &TermCounts) -> IndexedPrediction {
+        self.predict_present(
+            &extended_terms.present(),
+            &extended_terms.published().present(),
+            extended_terms.new_groups(),
+        )
+    }
+
+    /// [`IndexedModel::predict`] from the terms present listed once for every model:
+    /// `extended` ([`TermCounts::present`]), `published` (of [`TermCounts::published`]) and
+    /// the bit set of new groups ([`TermCounts::new_groups`]).
+    pub fn predict_present(
+        &self,
+        extended: &Present,
+        published: &Present,
+        new_groups: u64,
+    ) -> IndexedPrediction {
         let variant = self.model.variant;
         let form = variant.form().unwrap_or(Form::Log);
         let terms = if variant.extended() {
-            *extended_terms
+            extended
         } else {
-            extended_terms.published()
+            published
         };
         let mut s = 0.0;
         let mut outside = 0u64;
-        for (i, n) in terms.iter_sorted() {
+        for (i, n) in terms.iter() {
             if self.state[i] > 0 {
                 s += n as f64 * self.value[i];
             }
@@ -305,11 +321,7 @@ impl IndexedModel {
             }
         }
         if !variant.extended() {
-            for i in N_JOBACK..terms::FIRST_CORRECTION {
-                if extended_terms.get(i) > 0 {
-                    outside |= 1 << i;
-                }
-            }
+            outside |= new_groups;
         }
         IndexedPrediction {
             tb_k: form.tb(s),
@@ -398,4 +410,63 @@ pub fn models() -> &'static [FittedModel] {
 /// The committed model of one variant.
 pub fn model(v: TbVariant) -> Option<&'static FittedModel> {
     models().iter().find(|m| m.variant == v)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{indexed_models, models};
+    use crate::estimate::tb_features::{feature_counts, features};
+    use crate::molecule::parse_smiles;
+
+    /// The indexed prediction is the map prediction: the same boiling point to the bit
+    /// and the same outside terms in the same order, on structures with new groups,
+    /// corrections and terms without a fitted value.
+    #[test]
+    fn indexed_prediction_is_the_map_prediction() {
+        let mut outside_seen = 0;
+        for smi in [
+            "CCO",
+            "CS(C)=O",
+            "CS(=O)(=O)N",
+            "CN1CCCC1",
+            "Cn1cccc1",
+            "c1ccc2[nH]ccc2c1",
+            "CN(C)C=O",
+            "O=C1CCCN1",
+            "NC(=O)N",
+            "COC(=O)N",
+            "FC(F)(F)c1ccccc1Cl",
+            "C1CC(=O)OC1",
+            "c1ccsc1",
+            "CC(=O)OCC[N+](=O)[O-]",
+            "ClC(Cl)Cl",
+            "O=S1(=O)CCCC1",
+        ] {
+            let m = parse_smiles(smi).unwrap();
+            let by_map = features(&m).unwrap();
+            let by_index = feature_counts(&m).unwrap();
+            assert_eq!(by_index.terms.to_map(), by_map.terms, "{smi}");
+            for (fm, im) in models().iter().zip(indexed_models()) {
+                let want = fm.predict(&by_map.terms);
+                let got = im.predict(&by_index.terms);
+                assert_eq!(
+                    got.tb_k.to_bits(),
+                    want.tb_k.to_bits(),
+                    "{smi} {:?}",
+                    fm.variant
+                );
+                assert_eq!(
+                    im.outside_ids(got.outside),
+                    want.outside,
+                    "{smi} {:?}",
+                    fm.variant
+                );
+                outside_seen += want.outside.len();
+            }
+        }
+        assert!(
+            outside_seen > 0,
+            "no structure had a term outside the calibration"
+        );
+    }
 }

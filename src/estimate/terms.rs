@@ -224,6 +224,28 @@ impl TermCounts {
             .filter(|&(_, n)| n > 0)
     }
 
+    /// The terms present, in [`SORTED`] order, listed once for several passes.
+    pub fn present(&self) -> Present {
+        let mut p = Present {
+            idx: [0; N_TERMS],
+            n: [0; N_TERMS],
+            len: 0,
+        };
+        for (i, n) in self.iter_sorted() {
+            p.idx[p.len] = i as u8;
+            p.n[p.len] = n;
+            p.len += 1;
+        }
+        p
+    }
+
+    /// Bit set of the new groups present.
+    pub fn new_groups(&self) -> u64 {
+        (N_JOBACK..FIRST_CORRECTION)
+            .filter(|&i| self.0[i] > 0)
+            .fold(0, |m, i| m | 1 << i)
+    }
+
     /// The map view: id → count for every term present.
     pub fn to_map(&self) -> GroupCounts {
         self.iter_sorted()
@@ -249,6 +271,24 @@ impl TermCounts {
             out.0[nearest_published(i)] += n;
         }
         out
+    }
+}
+
+/// The terms present with their counts, ids in alphabetical order ([`TermCounts::present`]).
+#[derive(Debug, Clone, Copy)]
+pub struct Present {
+    idx: [u8; N_TERMS],
+    n: [u32; N_TERMS],
+    len: usize,
+}
+
+impl Present {
+    /// (index, count) of each term present, ids in alphabetical order.
+    pub fn iter(&self) -> impl Iterator<Item = (usize, u32)> + '_ {
+        self.idx[..self.len]
+            .iter()
+            .zip(&self.n[..self.len])
+            .map(|(&i, &n)| (i as usize, n))
     }
 }
 

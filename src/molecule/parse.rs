@@ -67,6 +67,7 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
         bonds: Vec::with_capacity(s.len().min(MAX_ATOMS)),
         rings: (0..100).map(|_| None).collect(),
     };
+    let ascii = input.is_ascii();
     let mut components = 0usize;
     let mut prev: Option<usize> = None;
     let mut stack: Vec<(Option<usize>, usize)> = Vec::new();
@@ -183,7 +184,12 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
                     position: 0,
                     ..atom
                 });
-                r.atoms[idx].position = input[..start + offset].chars().count() + 1;
+                // characters before the atom: bytes when the input is ASCII (the usual case)
+                r.atoms[idx].position = if ascii {
+                    start + offset + 1
+                } else {
+                    input[..start + offset].chars().count() + 1
+                };
                 match prev {
                     Some(p) => {
                         let order = pending.take().map(|x| x.0.order());

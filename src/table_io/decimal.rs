@@ -25,10 +25,11 @@ const TIE_MARGIN: f64 = 1.0 / 256.0;
 pub fn push_fixed(out: &mut Vec<u8>, x: f64, digits: usize) {
     if let Some(scaled) = POW10.get(digits).map(|p| x.abs() * p) {
         if scaled < FAST_LIMIT {
-            let floor = scaled.floor();
-            let frac = scaled - floor;
+            // scaled is not negative: truncation is the floor
+            let whole = scaled as u64;
+            let frac = scaled - whole as f64;
             if (frac - 0.5).abs() > TIE_MARGIN {
-                let n = floor as u64 + u64::from(frac > 0.5);
+                let n = whole + u64::from(frac > 0.5);
                 push_scaled(out, x.is_sign_negative(), n, digits);
                 return;
             }
