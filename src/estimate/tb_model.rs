@@ -16,7 +16,7 @@
 
 use super::groups::GroupCounts;
 use super::stein_brown;
-use super::terms::{self, Present, TermCounts, N_TERMS};
+use super::terms::{self, Present, N_TERMS};
 use std::collections::BTreeMap;
 use std::sync::OnceLock;
 
@@ -286,7 +286,8 @@ impl IndexedModel {
     }
 
     /// [`FittedModel::predict`] by index: the same sum in the same order.
-    pub fn predict(&self, extended_terms: &TermCounts) -> IndexedPrediction {
+    #[cfg(test)]
+    pub fn predict(&self, extended_terms: &terms::TermCounts) -> IndexedPrediction {
         self.predict_present(
             &extended_terms.present(),
             &extended_terms.published().present(),
