@@ -66,6 +66,13 @@ pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
         let b = &m.bonds[k];
         b.order == BondOrder::Aromatic && need[b.a] && need[b.b]
     };
+    // Usually forced moves and first choices find a matching at once; only when they do not
+    // does the full search run. Any perfect matching gives every atom the same sum of bond
+    // orders, so the hydrogens and the aromaticity that follow do not depend on which.
+    if let Some(partner) = greedy_matching(m, &need) {
+        set_orders(m, &partner);
+        return Ok(());
+    }
     let mut partner: Vec<usize> = vec![usize::MAX; n];
     // Stack of saved states for backtracking: (partner snapshot, atom, next option).
     let mut stack: Vec<(Vec<usize>, usize, usize)> = Vec::new();
@@ -130,12 +137,83 @@ pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
             stack.pop();
         }
     }
+    set_orders(m, &partner);
+    Ok(())
+}
+
+fn set_orders(m: &mut Molecule, partner: &[usize]) {
     for b in &mut m.bonds {
         if b.order == BondOrder::Aromatic {
             b.kekule_order = if partner[b.a] == b.b { 2 } else { 1 };
         }
     }
-    Ok(())
+}
+
+/// A perfect matching of the atoms in `need` over their candidate bonds by forced moves
+/// (an atom with one free candidate takes it) and, when none is forced, the lowest free
+/// atom's first free candidate; `None` at a dead end (the full search then decides).
+fn greedy_matching(m: &Molecule, need: &[bool]) -> Option<Vec<usize>> {
+    let n = m.atoms.len();
+    let free_cands = |i: usize, partner: &[usize]| {
+        m.adj[i]
+            .iter()
+            .filter(|&&(j, k)| {
+                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
+            })
+            .count()
+    };
+    let first_free = |i: usize, partner: &[usize]| {
+        m.adj[i]
+            .iter()
+            .find(|&&(j, k)| {
+                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
+            })
+            .map(|&(j, _)| j)
+    };
+    let mut partner = vec![usize::MAX; n];
+    // free candidates left to each atom that needs a π bond
+    let mut avail = vec![0u32; n];
+    let mut forced = Vec::new();
+    for i in (0..n).filter(|&i| need[i]) {
+        avail[i] = free_cands(i, &partner) as u32;
+        match avail[i] {
+            0 => return None,
+            1 => forced.push(i),
+            _ => {}
+        }
+    }
+    let mut next_free = 0;
+    loop {
+        let (i, j) = if let Some(i) = forced.pop() {
+            if partner[i] != usize::MAX {
+                continue;
+            }
+            (i, first_free(i, &partner)?)
+        } else {
+            while next_free < n && (!need[next_free] || partner[next_free] != usize::MAX) {
+                next_free += 1;
+            }
+            if next_free == n {
+                return Some(partner);
+            }
+            let i = next_free;
+            (i, first_free(i, &partner)?)
+        };
+        partner[i] = j;
+        partner[j] = i;
+        for x in [i, j] {
+            for &(y, k) in &m.adj[x] {
+                if m.bonds[k].order == BondOrder::Aromatic && need[y] && partner[y] == usize::MAX {
+                    avail[y] -= 1;
+                    match avail[y] {
+                        0 => return None,
+                        1 => forced.push(y),
+                        _ => {}
+                    }
+                }
+            }
+        }
+    }
 }
 
 /// Fill in implicit hydrogens of organic-subset atoms from their Kekulé bond orders.
@@ -166,4 +244,45 @@ pub(super) fn implicit_hydrogens(m: &mut Molecule) -> Result<(), (K, usize)> {
         }
     }
     Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{greedy_matching, needs_pi};
+    use crate::molecule::parse_smiles;
+
+    /// Where the quick matching answers, it is a perfect matching over candidate bonds, and
+    /// the hydrogens that follow are the textbook ones (benzene CH, pyrrole NH, azulene CH).
+    #[test]
+    fn greedy_matching_is_a_perfect_matching() {
+        for (smi, hydrogens) in [
+            ("c1ccccc1", 6),
+            ("c1ccc2ccccc2c1", 8),
+            ("c1ccc2cccc2cc1", 8),
+            ("c1cc[nH]c1", 5),
+            ("c1ccc2[nH]ccc2c1", 7),
+            ("c1ncc2nc[nH]c2n1", 4),
+            ("c1cc2ccc3cccc4ccc(c1)c2c34", 10),
+            ("O=c1cccc[nH]1", 5),
+            ("Cc1ccc(cc1)-c1ccccc1", 12),
+        ] {
+            let m = parse_smiles(smi).unwrap();
+            let h: u32 = (0..m.atoms.len()).map(|i| m.total_hydrogens(i)).sum();
+            assert_eq!(h, hydrogens, "{smi}");
+            // the quick matching on the parsed molecule's aromatic atoms
+            let need: Vec<bool> = (0..m.atoms.len())
+                .map(|i| m.atoms[i].aromatic && needs_pi(&m, i))
+                .collect();
+            if let Some(p) = greedy_matching(&m, &need) {
+                for i in (0..m.atoms.len()).filter(|&i| need[i]) {
+                    let j = p[i];
+                    assert!(j != usize::MAX && p[j] == i && need[j], "{smi}: atom {i}");
+                    assert!(
+                        m.adj[i].iter().any(|&(w, _)| w == j),
+                        "{smi}: {i}-{j} not bonded"
+                    );
+                }
+            }
+        }
+    }
 }
