@@ -6,7 +6,7 @@ use crate::units::{PressureUnit, TemperatureUnit};
 
 pub use crate::table_io::FitRow;
 
-/// The columns of [`csv`].
+/// The columns of [`csv()`].
 pub const CSV_HEADINGS: [&str; 18] = [
     "compound",
     "model",
@@ -37,7 +37,7 @@ pub fn csv(rows: &[FitRow]) -> Result<String, csv::Error> {
     Ok(out)
 }
 
-/// One row of [`csv`] with its line end: what a batch writes as each fit is done. Cells are
+/// One row of [`csv()`] with its line end: what a batch writes as each fit is done. Cells are
 /// written one by one into the row, so a row costs a few allocations, not one per cell.
 pub fn csv_line(r: &FitRow) -> Result<String, csv::Error> {
     let mut w = csv::WriterBuilder::new()
