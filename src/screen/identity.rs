@@ -5,7 +5,7 @@ use crate::reference::cas::{validate, CasError};
 
 /// Check a CAS number; returns the normalised number when it is valid.
 pub fn check_cas<'a>(cas: &'a str, out: &mut Vec<Finding>) -> Option<&'a str> {
-    let t = cas.trim();
+    let t = super::trimmed(cas);
     if t.is_empty() {
         return None;
     }

@@ -49,7 +49,7 @@ pub mod structure;
 pub use bundled::BundledReference;
 pub use finding::{CheckCode, Finding, Severity};
 pub use report::{ScreenReport, Summary, SummaryBuilder, WorstRow};
-pub use row::{row_label, AntoineCell, RowInput};
+pub use row::{row_label, trimmed, AntoineCell, RowInput};
 pub use sources::{
     Chain, Identity, JobackEstimator, NoReference, NoStructure, ReferenceEntry, ReferenceLookup,
     StructureEstimator, StructureOutcome, TableReference,
@@ -181,7 +181,7 @@ fn estimate_all<'r>(
     let mut distinct: FastMap<&'r str, ()> = FastMap::default();
     for i in 0..rows.n_rows() {
         if let Some(s) = rows.smiles(i) {
-            let s = s.trim();
+            let s = trimmed(s);
             if !s.is_empty() {
                 distinct.insert(s, ());
             }
@@ -243,7 +243,7 @@ fn check_row<'r, E: Estimates + ?Sized>(
 
     let mut residual = f64::NAN;
     let mut structure_key = None;
-    if let Some(s) = row.smiles.map(str::trim).filter(|s| !s.is_empty()) {
+    if let Some(s) = row.smiles.map(trimmed).filter(|s| !s.is_empty()) {
         if let Some(o) = estimates.outcome(s) {
             structure_key = o.structure_key();
             if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {

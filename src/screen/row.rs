@@ -92,3 +92,20 @@ pub fn row_label(row: &RowInput<'_>) -> String {
         _ => format!("line {}", row.line),
     }
 }
+
+/// `s.trim()`, answered at once for the usual cell that starts and ends with
+/// a visible ASCII character (the same result: `char::is_whitespace` holds
+/// for no such character).
+///
+/// ```
+/// use ebullio::screen::trimmed;
+/// assert_eq!(trimmed("  CCO\t"), "CCO");
+/// assert_eq!(trimmed("CCO"), "CCO");
+/// assert_eq!(trimmed("\u{a0}x\u{2003}"), "x");
+/// ```
+pub fn trimmed(s: &str) -> &str {
+    match (s.as_bytes().first(), s.as_bytes().last()) {
+        (Some(&a), Some(&b)) if (0x21..0x7f).contains(&a) && (0x21..0x7f).contains(&b) => s,
+        _ => s.trim(),
+    }
+}

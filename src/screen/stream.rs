@@ -41,7 +41,7 @@ impl EstimateCache {
     pub fn fill(&mut self, rows: &dyn Rows, estimator: &dyn StructureEstimator) {
         let mut distinct: FastMap<&str, ()> = FastMap::default();
         for i in 0..rows.n_rows() {
-            if let Some(s) = rows.smiles(i).map(str::trim).filter(|s| !s.is_empty()) {
+            if let Some(s) = rows.smiles(i).map(super::trimmed).filter(|s| !s.is_empty()) {
                 if !self.map.contains_key(s) {
                     distinct.insert(s, ());
                 }
@@ -53,7 +53,7 @@ impl EstimateCache {
         if self.map.len() + distinct.len() > self.limit {
             self.map.clear();
             for i in 0..rows.n_rows() {
-                if let Some(s) = rows.smiles(i).map(str::trim).filter(|s| !s.is_empty()) {
+                if let Some(s) = rows.smiles(i).map(super::trimmed).filter(|s| !s.is_empty()) {
                     distinct.insert(s, ());
                 }
             }
@@ -109,7 +109,7 @@ pub fn batch_facts<'r>(rows: &'r dyn Rows, estimates: &'r EstimateCache) -> Vec<
             let tb = row.tb_k.or(implied);
             let outcome = row
                 .smiles
-                .map(str::trim)
+                .map(super::trimmed)
                 .filter(|s| !s.is_empty())
                 .and_then(|s| estimates.outcome(s));
             let residual = match (outcome, tb) {
@@ -118,7 +118,7 @@ pub fn batch_facts<'r>(rows: &'r dyn Rows, estimates: &'r EstimateCache) -> Vec<
             };
             let cas = row
                 .cas
-                .map(str::trim)
+                .map(super::trimmed)
                 .filter(|c| !c.is_empty() && crate::reference::cas::validate(c).is_ok());
             RowFacts {
                 line: row.line,
