@@ -9,7 +9,7 @@
 //! a second finding naming the slip ([`super::slip`]).
 
 use super::finding::{CheckCode, Finding};
-use super::number_text::{OneDecimal as D1, Shortest};
+use super::number_text::Message;
 use super::slip::diagnose;
 use crate::units::TemperatureUnit;
 use crate::vapor::AntoineConstants;
@@ -32,13 +32,17 @@ pub fn check_implied_vs_listed(
     }
     out.push(Finding::new(
         CheckCode::TbAntoineMismatch,
-        format!(
-            "The Antoine constants imply a normal boiling point of {} K; the listed {} K disagrees by {} K (tolerance {} K).",
-            D1(implied_tb_k),
-            D1(listed_tb_k),
-            D1(d.abs()),
-            Shortest(tol_k)
-        ),
+        Message::with_capacity(128)
+            .text("The Antoine constants imply a normal boiling point of ")
+            .d1(implied_tb_k)
+            .text(" K; the listed ")
+            .d1(listed_tb_k)
+            .text(" K disagrees by ")
+            .d1(d.abs())
+            .text(" K (tolerance ")
+            .shortest(tol_k)
+            .text(" K).")
+            .done(),
     ));
     if let Some(slip) = diagnose(k, listed_tb_k, tb_unit, tol_k) {
         out.push(Finding::new(slip.code, slip.message));

@@ -6,7 +6,7 @@
 //! another joins both.
 
 use super::finding::{CheckCode, Finding};
-use super::number_text::OneDecimal as D1;
+use super::number_text::Message;
 use super::sources::{fast_hash, with_name_key, FastMap};
 use rayon::prelude::*;
 
@@ -220,13 +220,17 @@ pub fn disagreement(v: f64, lo: (f64, usize), hi: (f64, usize), tol_k: f64) -> O
     (d > tol_k).then(|| {
         Finding::new(
             CheckCode::DuplicateDisagrees,
-            format!(
-                "The same compound is also on line {} with a boiling point {} K different ({} K there, {} K here).",
-                far.1,
-                D1(d),
-                D1(far.0),
-                D1(v)
-            ),
+            Message::with_capacity(120)
+                .text("The same compound is also on line ")
+                .int(far.1)
+                .text(" with a boiling point ")
+                .d1(d)
+                .text(" K different (")
+                .d1(far.0)
+                .text(" K there, ")
+                .d1(v)
+                .text(" K here).")
+                .done(),
         )
     })
 }

@@ -57,6 +57,78 @@ fn digits(mut n: u64, buf: &mut [u8; 24]) -> usize {
     }
 }
 
+/// Appends the decimal digits of `n`.
+pub fn push_uint(out: &mut String, n: u64) {
+    let mut buf = [0u8; 24];
+    let s = digits(n, &mut buf);
+    for &c in &buf[s..] {
+        out.push(char::from(c));
+    }
+}
+
+/// Appends `x` as `{x:.1}` writes it (`{x:+.1}` when `plus`).
+pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
+    let Some(t) = tenths(x) else {
+        use fmt::Write as _;
+        let _ = if plus {
+            write!(out, "{x:+.1}")
+        } else {
+            write!(out, "{x:.1}")
+        };
+        return;
+    };
+    if x.is_sign_negative() {
+        out.push('-');
+    } else if plus {
+        out.push('+');
+    }
+    push_uint(out, t / 10);
+    out.push('.');
+    out.push(char::from(b'0' + (t % 10) as u8));
+}
+
+/// A message built piece by piece into one string of the right size, without
+/// the general formatter: text, numbers with one decimal, whole numbers.
+#[derive(Debug, Default)]
+pub struct Message(String);
+
+impl Message {
+    /// An empty message with room for `capacity` bytes.
+    pub fn with_capacity(capacity: usize) -> Self {
+        Message(String::with_capacity(capacity))
+    }
+    /// Text as it is.
+    pub fn text(mut self, s: &str) -> Self {
+        self.0.push_str(s);
+        self
+    }
+    /// `x` as `{x:.1}`.
+    pub fn d1(mut self, x: f64) -> Self {
+        push_one_decimal(&mut self.0, x, false);
+        self
+    }
+    /// `x` as `{x:+.1}`.
+    pub fn d1_signed(mut self, x: f64) -> Self {
+        push_one_decimal(&mut self.0, x, true);
+        self
+    }
+    /// A whole number.
+    pub fn int(mut self, n: usize) -> Self {
+        push_uint(&mut self.0, n as u64);
+        self
+    }
+    /// `x` as `{x}`.
+    pub fn shortest(mut self, x: f64) -> Self {
+        use fmt::Write as _;
+        let _ = write!(self.0, "{}", Shortest(x));
+        self
+    }
+    /// The message.
+    pub fn done(self) -> String {
+        self.0
+    }
+}
+
 impl fmt::Display for OneDecimal {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         let x = self.0;
@@ -113,6 +185,8 @@ mod tests {
 
     fn same(x: f64) {
         assert_eq!(format!("{}", OneDecimal(x)), format!("{x:.1}"), "{x:e}");
+        let m = Message::default().d1(x).text(" ").d1_signed(x).done();
+        assert_eq!(m, format!("{x:.1} {x:+.1}"), "{x:e}");
         assert_eq!(format!("{:+}", OneDecimal(x)), format!("{x:+.1}"), "{x:e}");
         assert_eq!(format!("{}", Shortest(x)), format!("{x}"), "{x:e}");
     }
@@ -153,6 +227,9 @@ mod tests {
             -2.5,
         ] {
             same(x);
+        }
+        for n in [0, 7, 10, 12_345, u32::MAX as usize, usize::MAX] {
+            assert_eq!(Message::default().int(n).done(), n.to_string());
         }
         // a seeded walk over magnitudes and digits (xorshift, no crate)
         let mut s: u64 = 0x9E37_79B9_7F4A_7C15;

@@ -8,7 +8,7 @@
 //! Outliers*, ASQC Quality Press (1993) (from memory).
 
 use super::finding::{CheckCode, Finding};
-use super::number_text::OneDecimal as D1;
+use super::number_text::Message;
 
 /// |z| above which a residual is an outlier.
 pub const Z_LIMIT: f64 = 3.5;
@@ -64,13 +64,17 @@ pub fn outlier(residual: f64, med: f64, mad: f64) -> Option<Finding> {
     (z.abs() > Z_LIMIT).then(|| {
         Finding::new(
             CheckCode::StructureOutlier,
-            format!(
-                "Against the structure estimate this row's residual of {:+} K is an outlier in the table (robust z = {}; median {:+} K, MAD {} K).",
-                D1(residual),
-                D1(z),
-                D1(med),
-                D1(mad)
-            ),
+            Message::with_capacity(140)
+                .text("Against the structure estimate this row's residual of ")
+                .d1_signed(residual)
+                .text(" K is an outlier in the table (robust z = ")
+                .d1(z)
+                .text("; median ")
+                .d1_signed(med)
+                .text(" K, MAD ")
+                .d1(mad)
+                .text(" K).")
+                .done(),
         )
     })
 }

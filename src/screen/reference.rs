@@ -1,7 +1,7 @@
 //! Boiling point against the reference table (bundled or user-supplied).
 
 use super::finding::{CheckCode, Finding};
-use super::number_text::OneDecimal as D1;
+use super::number_text::Message;
 use super::sources::{Identity, ReferenceLookup};
 
 /// Compare `tb_k` (listed, or implied when `listed` is false) with the
@@ -22,14 +22,21 @@ pub fn check_reference(
         let which = if listed { "listed" } else { "implied" };
         out.push(Finding::new(
             CheckCode::ReferenceMismatch,
-            format!(
-                "The {which} boiling point {} K differs by {} K from the reference value {} K for {} ({}).",
-                D1(tb_k),
-                D1(d.abs()),
-                D1(entry.tb_k),
-                entry.name,
-                entry.source
-            ),
+            Message::with_capacity(96 + entry.name.len() + entry.source.len())
+                .text("The ")
+                .text(which)
+                .text(" boiling point ")
+                .d1(tb_k)
+                .text(" K differs by ")
+                .d1(d.abs())
+                .text(" K from the reference value ")
+                .d1(entry.tb_k)
+                .text(" K for ")
+                .text(&entry.name)
+                .text(" (")
+                .text(&entry.source)
+                .text(").")
+                .done(),
         ));
     }
 }

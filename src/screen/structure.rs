@@ -5,7 +5,7 @@
 //! so it is flagged as a warning, not an error: the method can be wrong too.
 
 use super::finding::{CheckCode, Finding};
-use super::number_text::{OneDecimal as D1, Shortest};
+use super::number_text::Message;
 use super::sources::StructureOutcome;
 
 /// Multiple of the typical error beyond which a row is flagged.
@@ -41,14 +41,21 @@ pub fn check_structure(
                 let which = if listed { "listed" } else { "implied" };
                 out.push(Finding::new(
                     CheckCode::TbStructureMismatch,
-                    format!(
-                        "The {which} boiling point {} K is {} K from the structure estimate {} K, more than {} times the method's typical error of {} K.",
-                        D1(tb),
-                        D1(d.abs()),
-                        D1(*est),
-                        Shortest(STRUCTURE_SIGMAS),
-                        D1(*typical_error_k)
-                    ),
+                    Message::with_capacity(160)
+                        .text("The ")
+                        .text(which)
+                        .text(" boiling point ")
+                        .d1(tb)
+                        .text(" K is ")
+                        .d1(d.abs())
+                        .text(" K from the structure estimate ")
+                        .d1(*est)
+                        .text(" K, more than ")
+                        .shortest(STRUCTURE_SIGMAS)
+                        .text(" times the method's typical error of ")
+                        .d1(*typical_error_k)
+                        .text(" K.")
+                        .done(),
                 ));
             }
             Some(d)
