@@ -225,7 +225,7 @@ pub fn diagnose(
     // C or the listed Tb. Many variants exist, so these rank after any
     // plausible one-change label slip, and are only tried when none exists.
     if best.iter().map(|c| c.rank.0).min().is_none_or(|m| m > 1) {
-        digit_slips(k, listed_tb_k, tb_unit, tol_k, &mut best);
+        digit_slips(k, listed_tb_k, tb_unit, tol_k, &mut best, true);
     }
     choose(best, k, tb_unit)
 }
@@ -528,8 +528,15 @@ fn digits_value(d: &[u8], point: usize, buf: &mut String) -> Option<f64> {
 
 /// Every value one typing slip away from `x` as written, in the order
 /// generated (a value may come more than once), each told to `f`. None for a
-/// number longer than [`MAX_TYPED_DIGITS`].
-fn each_digit_variant(x: f64, mut f: impl FnMut(f64, DigitSlip)) {
+/// number longer than [`MAX_TYPED_DIGITS`]. The ten digits that may be
+/// inserted at one place give values in order (0 lowest in magnitude, 9
+/// highest): when `may_fit(value with 0, value with 9)` says no value between
+/// the two can be wanted, those ten are skipped.
+fn each_digit_variant(
+    x: f64,
+    may_fit: impl Fn(f64, f64) -> bool,
+    mut f: impl FnMut(f64, DigitSlip),
+) {
     let s = written(x);
     if !x.is_finite() || s.contains('e') {
         return;
@@ -570,8 +577,20 @@ fn each_digit_variant(x: f64, mut f: impl FnMut(f64, DigitSlip)) {
         }
         d.insert(i, c);
     }
+    let mut end = String::new();
     for i in 0..=digits.len() {
         let p = if i <= point { point + 1 } else { point };
+        let mut at = |c: u8| {
+            d.insert(i, c);
+            let v = digits_value(&d, p, &mut end);
+            d.remove(i);
+            v.map(|v| sign * v)
+        };
+        if let (Some(lo), Some(hi)) = (at(b'0'), at(b'9')) {
+            if !may_fit(lo, hi) {
+                continue;
+            }
+        }
         for c in b'0'..=b'9' {
             d.insert(i, c);
             if !(i == 0 && c == b'0') {
@@ -604,7 +623,7 @@ fn first_of_each<T>(v: &mut Vec<T>, value: impl Fn(&T) -> f64) {
 /// `x` itself excluded. None for a number longer than 17 digits (`MAX_TYPED_DIGITS`).
 pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
     let mut out: Vec<(f64, DigitSlip)> = Vec::new();
-    each_digit_variant(x, |v, kind| out.push((v, kind)));
+    each_digit_variant(x, |_, _| true, |v, kind| out.push((v, kind)));
     // each value once, with the first slip that gives it, in the order found
     first_of_each(&mut out, |x| x.0);
     out
@@ -614,9 +633,13 @@ pub fn digit_variants(x: f64) -> Vec<(f64, DigitSlip)> {
 /// boiling point): [`digit_variants`] filtered, without keeping the others
 /// (whether a value fits depends on the value alone, so filtering before
 /// keeping the first of each value gives the same list).
-fn fitting_variants(x: f64, fits: impl Fn(f64) -> Option<f64>) -> Vec<(f64, DigitSlip, f64)> {
+fn fitting_variants(
+    x: f64,
+    may_fit: impl Fn(f64, f64) -> bool,
+    fits: impl Fn(f64) -> Option<f64>,
+) -> Vec<(f64, DigitSlip, f64)> {
     let mut out = Vec::new();
-    each_digit_variant(x, |v, kind| {
+    each_digit_variant(x, may_fit, |v, kind| {
         if let Some(t) = fits(v) {
             out.push((v, kind, t));
         }
@@ -625,12 +648,15 @@ fn fitting_variants(x: f64, fits: impl Fn(f64) -> Option<f64>) -> Vec<(f64, Digi
     out
 }
 
+/// The typing-slip candidates of a row; `prune` skips the values that
+/// cannot fit (the same candidates, found with less work).
 fn digit_slips(
     k: &AntoineConstants,
     listed_tb_k: f64,
     tb_unit: TemperatureUnit,
     tol_k: f64,
     best: &mut Vec<Cand>,
+    prune: bool,
 ) {
     // the convention is kept, so every variant's implied Tb solves for one log-pressure
     let y = k.log_p_in_convention(ATM_PA);
@@ -653,7 +679,17 @@ fn digit_slips(
             let t = with(v).t_at_log_p(y)?;
             ((t - listed_tb_k).abs() <= tol_k).then_some(t)
         };
-        for (v, kind, t) in fitting_variants(typed, fits) {
+        // The implied Tb is monotone in A (where A exceeds y), B (where
+        // positive) and C, in floating point too: when both ends of a range
+        // of values give a Tb off by more than the tolerance on the same
+        // side, nothing between them fits.
+        let may_fit = |lo: f64, hi: f64| match (with(lo).t_at_log_p(y), with(hi).t_at_log_p(y)) {
+            (Some(a), Some(b)) if prune => {
+                !same_side_beyond(a - listed_tb_k, b - listed_tb_k, tol_k)
+            }
+            _ => true,
+        };
+        for (v, kind, t) in fitting_variants(typed, may_fit, fits) {
             let n0 = best.len();
             offer(
                 best,
@@ -686,7 +722,11 @@ fn digit_slips(
         let r = (as_k - t_impl).abs();
         (r.is_finite() && r <= tol_k).then_some(as_k)
     };
-    for (v, kind, as_k) in fitting_variants(number, fits) {
+    let may_fit = |lo: f64, hi: f64| {
+        let (a, b) = (tb_unit.to_kelvin(lo), tb_unit.to_kelvin(hi));
+        !(prune && same_side_beyond(a - t_impl, b - t_impl, tol_k))
+    };
+    for (v, kind, as_k) in fitting_variants(number, may_fit, fits) {
         let n0 = best.len();
         offer(
             best,
@@ -703,6 +743,11 @@ fn digit_slips(
         );
         mark(best, n0, "Tb");
     }
+}
+
+/// Whether two differences both exceed `tol` on the same side (false with a NaN).
+fn same_side_beyond(a: f64, b: f64, tol: f64) -> bool {
+    (a > tol && b > tol) || (a < -tol && b < -tol)
 }
 
 /// Record what a typing-slip candidate changed, if `offer` kept it.
@@ -900,6 +945,56 @@ mod tests {
             "{}",
             s.message
         );
+    }
+
+    // Skipping the values that cannot fit finds the same candidates as
+    // trying every one: seeded rows near their typing slips, every unit.
+    #[test]
+    fn pruned_digit_search_finds_the_same_candidates() {
+        let mut s: u64 = 0x1234_5678_9ABC_DEF1;
+        let mut next = || {
+            s ^= s << 13;
+            s ^= s >> 7;
+            s ^= s << 17;
+            (s >> 11) as f64 / (1u64 << 53) as f64
+        };
+        let convs = [
+            "ln,kPa,degC",
+            "log10,mmHg,degC",
+            "log10,bar,K",
+            "ln,Pa,degF",
+        ];
+        let mut found = 0;
+        for i in 0..3000 {
+            let conv = convs[i % convs.len()].parse().unwrap();
+            let round = |x: f64, d: i32| (x * 10f64.powi(d)).round() / 10f64.powi(d);
+            let k = AntoineConstants::new(
+                round(5.0 + 12.0 * next(), 4),
+                round(800.0 + 4000.0 * next(), 2),
+                round(-60.0 + 300.0 * next(), 3),
+                conv,
+            );
+            let Some(t) = implied(&k) else { continue };
+            // the listed Tb as typed, sometimes with a digit slip of its own
+            let tb_unit = if i % 3 == 0 {
+                TemperatureUnit::Celsius
+            } else {
+                TemperatureUnit::Kelvin
+            };
+            let mut typed = round(tb_unit.from_kelvin(t), 2);
+            if i % 2 == 0 {
+                typed = digit_variants(typed)[(next() * 20.0) as usize].0;
+            }
+            let listed = tb_unit.to_kelvin(typed) + (next() - 0.5) * 3.0;
+            for tol in [0.5, 1.0, 3.0] {
+                let (mut a, mut b) = (vec![], vec![]);
+                digit_slips(&k, listed, tb_unit, tol, &mut a, true);
+                digit_slips(&k, listed, tb_unit, tol, &mut b, false);
+                assert_eq!(format!("{a:?}"), format!("{b:?}"), "{k:?} {listed} {tol}");
+                found += a.len();
+            }
+        }
+        assert!(found > 1000, "{found}");
     }
 
     // The arithmetic path gives exactly what parsing the written digits gives.
