@@ -7,8 +7,9 @@ use ebullio::estimate::anchor::MeasuredPoint;
 use ebullio::estimate::batch::at_pressures;
 use ebullio::estimate::batch::EstimateRow as Row;
 use ebullio::estimate::{
-    estimate_groups, estimate_numbers, estimate_smiles, parse_groups, EstimateError,
+    estimate_groups, estimate_numbers_into, estimate_smiles, parse_groups, EstimateError,
 };
+use ebullio::molecule::Molecule;
 use ebullio::table_io::estimates::EstimateRows;
 use ebullio::table_io::read_text_table_with;
 use ebullio::units::parse_temperature;
@@ -263,8 +264,10 @@ fn stream_csv(
             .par_chunks(CHUNK)
             .map(|chunk| {
                 let mut w = EstimateRows::new(Vec::with_capacity(200 * chunk.len()));
+                // one molecule's storage for the chunk's structures
+                let mut m = Molecule::empty();
                 for j in chunk {
-                    write_job(&mut w, j, ps, measured)?;
+                    write_job(&mut w, &mut m, j, ps, measured)?;
                     if let Some(b) = bar {
                         b.inc(1);
                     }
@@ -284,6 +287,7 @@ fn stream_csv(
 /// One job's row, as `Row::new` and `write_estimates_csv` would give it.
 fn write_job(
     w: &mut EstimateRows<Vec<u8>>,
+    m: &mut Molecule,
     j: &Job,
     ps: &[f64],
     measured: &[MeasuredPoint],
@@ -306,11 +310,11 @@ fn write_job(
         );
         return w.row(&r, ps.len());
     }
-    match estimate_numbers(s) {
-        Ok((n, m)) => {
+    match estimate_numbers_into(s, m) {
+        Ok(n) => {
             let curve = n.curve();
             let at = at_pressures(curve.as_ref().map(|c| c as &dyn Curve), ps);
-            w.numbers_row(compound, &m, &n, &at)
+            w.numbers_row(compound, m, &n, &at)
         }
         Err(e) => w.error_row(compound, s, ps.len(), &e.to_string()),
     }

@@ -177,15 +177,40 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
     Ok(c.to_map())
 }
 
+/// Per-atom marks of the assignment, kept between molecules (only their storage).
+#[derive(Default)]
+struct Work {
+    used: Vec<bool>,
+    s_oxo: Vec<usize>,
+}
+
+thread_local! {
+    static WORK: std::cell::Cell<Work> = std::cell::Cell::new(Work::default());
+}
+
 /// [`assign_groups`] (`extended` false) or [`assign_tb_groups`] (true) into `out`, by index.
 pub(crate) fn assign_counts(
     m: &Molecule,
     extended: bool,
     out: &mut TermCounts,
 ) -> Result<(), EstimateError> {
+    let mut w = WORK.take();
+    let done = assign_with(m, extended, out, &mut w);
+    WORK.set(w);
+    done
+}
+
+fn assign_with(
+    m: &Molecule,
+    extended: bool,
+    out: &mut TermCounts,
+    w: &mut Work,
+) -> Result<(), EstimateError> {
     let atoms = m.atoms();
     let n = atoms.len();
-    let mut used = vec![false; n];
+    let used = &mut w.used;
+    used.clear();
+    used.resize(n, false);
     let mut add = |id: usize| out.add(id);
     let el = |i: usize| atoms[i].element;
     // Terminal oxygen double-bonded (or nitro O-) to atom i.
@@ -308,7 +333,9 @@ pub(crate) fn assign_counts(
         }
     }
     // 3b. Sulfur oxo groups (project's extension only): each terminal =O on S.
-    let mut s_oxo = vec![0usize; n];
+    let s_oxo = &mut w.s_oxo;
+    s_oxo.clear();
+    s_oxo.resize(n, 0);
     if extended {
         for i in 0..n {
             if el(i) != Element::S || atoms[i].charge != 0 {

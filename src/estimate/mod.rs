@@ -47,7 +47,7 @@ pub use interval::{calibration, Calibration, Comfort, TbVariant};
 pub use lee_kesler::LeeKeslerCurve;
 pub use tb_features::{Family, IntervalClass};
 
-use crate::molecule::{parse_smiles, Molecule, SmilesError};
+use crate::molecule::{parse_smiles, parse_smiles_into, Molecule, SmilesError};
 use terms::TermCounts;
 
 /// Why a structure could not be estimated.
@@ -424,9 +424,18 @@ fn numbers(r: &Raw) -> Numbers {
 /// The numbers of the estimate of `s` (what [`estimate_smiles`] gives, without its
 /// texts), and the molecule they came from (for its formula).
 pub fn estimate_numbers(s: &str) -> Result<(Numbers, Molecule), EstimateError> {
-    let m = parse_smiles(s)?;
-    let r = raw_from_molecule(&m)?;
-    Ok((numbers(&r), m))
+    let mut m = Molecule::empty();
+    let n = estimate_numbers_into(s, &mut m)?;
+    Ok((n, m))
+}
+
+/// [`estimate_numbers`] with the structure read into `m` (its storage reused: a batch
+/// keeps one molecule for all its structures). The numbers and errors are the same;
+/// after an error `m` holds nothing meaningful.
+pub fn estimate_numbers_into(s: &str, m: &mut Molecule) -> Result<Numbers, EstimateError> {
+    parse_smiles_into(s, m)?;
+    let r = raw_from_molecule(m)?;
+    Ok(numbers(&r))
 }
 
 fn finish(r: Raw, smiles: Option<String>, formula: Option<String>) -> Estimate {

@@ -236,6 +236,11 @@ pub(crate) struct FeatureCounts {
     pub polar: u32,
 }
 
+thread_local! {
+    /// Amide nitrogens of the molecule at hand (storage kept between molecules).
+    static AMIDE_N: std::cell::Cell<Vec<bool>> = const { std::cell::Cell::new(Vec::new()) };
+}
+
 pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateError> {
     // Group contributions describe organic compounds: H2, N2, Cl2 and the like would get
     // the bare intercept (about 198 K), far from the truth, so they are refused.
@@ -256,7 +261,9 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
             && m.heavy_degree(j) == 1
             && atoms[j].charge == 0
     };
-    let mut amide_n = vec![false; atoms.len()];
+    let mut amide_n = AMIDE_N.take();
+    amide_n.clear();
+    amide_n.resize(atoms.len(), false);
     let mut polar = 0u32;
     for i in 0..atoms.len() {
         let a = &atoms[i];
@@ -378,6 +385,7 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
     ] {
         polar += terms.get(id);
     }
+    AMIDE_N.set(amide_n);
     let has = |e: Element| m.has_element(e);
     let family = Family::from_classes(
         has(Element::F) || has(Element::CL) || has(Element::BR) || has(Element::I),

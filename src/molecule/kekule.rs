@@ -54,13 +54,32 @@ fn needs_pi(m: &Molecule, i: usize) -> bool {
 /// Give aromatic bonds Kekulé orders. Errors carry the 1-based position of an
 /// atom that could not get its double bond.
 pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
-    let n = m.atoms.len();
     if !m.atoms.iter().any(|a| a.aromatic) {
         return Ok(());
     }
-    let need: Vec<bool> = (0..n)
-        .map(|i| m.atoms[i].aromatic && needs_pi(m, i))
-        .collect();
+    let mut w = WORK.take();
+    let done = kekulize_with(m, &mut w);
+    WORK.set(w);
+    done
+}
+
+/// The work lists of the quick matching, kept between molecules (only their storage).
+#[derive(Default)]
+struct Work {
+    need: Vec<bool>,
+    greedy: Greedy,
+}
+
+thread_local! {
+    static WORK: std::cell::Cell<Work> = std::cell::Cell::new(Work::default());
+}
+
+fn kekulize_with(m: &mut Molecule, w: &mut Work) -> Result<(), (K, usize)> {
+    let n = m.atoms.len();
+    w.need.clear();
+    w.need
+        .extend((0..n).map(|i| m.atoms[i].aromatic && needs_pi(m, i)));
+    let need = &w.need[..];
     // Candidate edges: aromatic bonds between two atoms that both need a π bond.
     let cand = |m: &Molecule, k: usize| {
         let b = &m.bonds[k];
@@ -69,8 +88,8 @@ pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
     // Usually forced moves and first choices find a matching at once; only when they do not
     // does the full search run. Any perfect matching gives every atom the same sum of bond
     // orders, so the hydrogens and the aromaticity that follow do not depend on which.
-    if let Some(partner) = greedy_matching(m, &need) {
-        set_orders(m, &partner);
+    if greedy_matching(m, need, &mut w.greedy) {
+        set_orders(m, &w.greedy.partner);
         return Ok(());
     }
     let mut partner: Vec<usize> = vec![usize::MAX; n];
@@ -151,8 +170,21 @@ fn set_orders(m: &mut Molecule, partner: &[usize]) {
 
 /// A perfect matching of the atoms in `need` over their candidate bonds by forced moves
 /// (an atom with one free candidate takes it) and, when none is forced, the lowest free
-/// atom's first free candidate; `None` at a dead end (the full search then decides).
-fn greedy_matching(m: &Molecule, need: &[bool]) -> Option<Vec<usize>> {
+/// atom's first free candidate, into `w.partner`; false at a dead end (the full search
+/// then decides).
+fn greedy_matching(m: &Molecule, need: &[bool], w: &mut Greedy) -> bool {
+    greedy_partners(m, need, w).is_some()
+}
+
+/// The quick matching's partners, free-candidate counts and forced atoms.
+#[derive(Default)]
+struct Greedy {
+    partner: Vec<usize>,
+    avail: Vec<u32>,
+    forced: Vec<usize>,
+}
+
+fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
     let n = m.atoms.len();
     let free_cands = |i: usize, partner: &[usize]| {
         m.adj[i]
@@ -170,12 +202,15 @@ fn greedy_matching(m: &Molecule, need: &[bool]) -> Option<Vec<usize>> {
             })
             .map(|&(j, _)| j)
     };
-    let mut partner = vec![usize::MAX; n];
+    let (partner, avail, forced) = (&mut w.partner, &mut w.avail, &mut w.forced);
+    partner.clear();
+    partner.resize(n, usize::MAX);
     // free candidates left to each atom that needs a π bond
-    let mut avail = vec![0u32; n];
-    let mut forced = Vec::new();
+    avail.clear();
+    avail.resize(n, 0);
+    forced.clear();
     for i in (0..n).filter(|&i| need[i]) {
-        avail[i] = free_cands(i, &partner) as u32;
+        avail[i] = free_cands(i, partner) as u32;
         match avail[i] {
             0 => return None,
             1 => forced.push(i),
@@ -188,16 +223,16 @@ fn greedy_matching(m: &Molecule, need: &[bool]) -> Option<Vec<usize>> {
             if partner[i] != usize::MAX {
                 continue;
             }
-            (i, first_free(i, &partner)?)
+            (i, first_free(i, partner)?)
         } else {
             while next_free < n && (!need[next_free] || partner[next_free] != usize::MAX) {
                 next_free += 1;
             }
             if next_free == n {
-                return Some(partner);
+                return Some(());
             }
             let i = next_free;
-            (i, first_free(i, &partner)?)
+            (i, first_free(i, partner)?)
         };
         partner[i] = j;
         partner[j] = i;
@@ -248,7 +283,7 @@ pub(super) fn implicit_hydrogens(m: &mut Molecule) -> Result<(), (K, usize)> {
 
 #[cfg(test)]
 mod tests {
-    use super::{greedy_matching, needs_pi};
+    use super::{greedy_matching, needs_pi, Greedy};
     use crate::molecule::parse_smiles;
 
     /// Where the quick matching answers, it is a perfect matching over candidate bonds, and
@@ -273,7 +308,9 @@ mod tests {
             let need: Vec<bool> = (0..m.atoms.len())
                 .map(|i| m.atoms[i].aromatic && needs_pi(&m, i))
                 .collect();
-            if let Some(p) = greedy_matching(&m, &need) {
+            let mut w = Greedy::default();
+            if greedy_matching(&m, &need, &mut w) {
+                let p = &w.partner;
                 for i in (0..m.atoms.len()).filter(|&i| need[i]) {
                     let j = p[i];
                     assert!(j != usize::MAX && p[j] == i && need[j], "{smi}: atom {i}");

@@ -134,16 +134,32 @@ pub const MAX_ATOMS: usize = 100_000;
 /// assert!(parse_smiles("CCO.Cl").unwrap().components() == 2);
 /// ```
 pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
-    let raw = parse::read(s)?;
-    let mut m = Molecule {
-        adj: adjacency(raw.atoms.len(), &raw.bonds),
-        atoms: raw.atoms,
-        bonds: raw.bonds,
-        components: raw.components,
-        smiles: s.trim().to_string(),
-        tally: Vec::new(),
-    };
-    rings::mark_ring_bonds(&mut m);
+    let mut m = Molecule::empty();
+    parse_smiles_into(s, &mut m)?;
+    Ok(m)
+}
+
+/// [`parse_smiles`] into `m`, reusing its storage (a batch reads every structure into
+/// one molecule and allocates only when a structure is larger than all before it).
+/// On success `m` is exactly what [`parse_smiles`] gives; on error its contents are
+/// unspecified (but it can be read into again), and the error is the same.
+///
+/// ```
+/// use ebullio::molecule::{parse_smiles, parse_smiles_into, Molecule};
+/// let mut m = Molecule::empty();
+/// for s in ["CCO", "c1ccccc1O", "CC(C)=O"] {
+///     parse_smiles_into(s, &mut m).unwrap();
+///     assert_eq!(m, parse_smiles(s).unwrap());
+/// }
+/// assert!(parse_smiles_into("C1CC", &mut m).is_err());
+/// ```
+pub fn parse_smiles_into(s: &str, m: &mut Molecule) -> Result<(), SmilesError> {
+    m.components = parse::read(s, &mut m.atoms, &mut m.bonds)?;
+    m.adj.fill(m.atoms.len(), &m.bonds);
+    m.smiles.clear();
+    m.smiles.push_str(s.trim());
+    m.tally.clear();
+    rings::mark_ring_bonds(m);
     // Bonds left aromatic by default between two aromatic atoms but outside any
     // ring (biphenyl written c1ccccc1c1ccccc1) are single bonds.
     for b in &mut m.bonds {
@@ -152,41 +168,36 @@ pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
             b.kekule_order = 1;
         }
     }
-    for (i, a) in m.atoms.iter().enumerate() {
-        if a.aromatic && !a.in_ring {
-            return Err(SmilesError {
-                kind: SmilesErrorKind::AromaticOutsideRing(a.element.symbol().to_lowercase()),
-                position: a.position,
-                input: s.to_string(),
-            });
-        }
-        let _ = i;
+    if let Some(a) = m.atoms.iter().find(|a| a.aromatic && !a.in_ring) {
+        return Err(SmilesError {
+            kind: SmilesErrorKind::AromaticOutsideRing(a.element.symbol().to_lowercase()),
+            position: a.position,
+            input: s.to_string(),
+        });
     }
-    kekule::kekulize(&mut m).map_err(|(kind, pos)| SmilesError {
+    kekule::kekulize(m).map_err(|(kind, pos)| SmilesError {
         kind,
         position: pos,
         input: s.to_string(),
     })?;
-    kekule::implicit_hydrogens(&mut m).map_err(|(kind, pos)| SmilesError {
+    kekule::implicit_hydrogens(m).map_err(|(kind, pos)| SmilesError {
         kind,
         position: pos,
         input: s.to_string(),
     })?;
-    aromatic::perceive(&mut m);
-    m.tally = (0..m.atoms.len())
-        .map(|i| {
-            let (mut heavy, mut h) = (0u32, m.atoms[i].hydrogens as u32);
-            for &(j, _) in &m.adj[i] {
-                if m.atoms[j].element == Element::H {
-                    h += 1;
-                } else {
-                    heavy += 1;
-                }
+    aromatic::perceive(m);
+    for i in 0..m.atoms.len() {
+        let (mut heavy, mut h) = (0u32, m.atoms[i].hydrogens as u32);
+        for &(j, _) in &m.adj[i] {
+            if m.atoms[j].element == Element::H {
+                h += 1;
+            } else {
+                heavy += 1;
             }
-            (heavy, h)
-        })
-        .collect();
-    Ok(m)
+        }
+        m.tally.push((heavy, h));
+    }
+    Ok(())
 }
 
 /// Appends `n` in decimal (what `write!(out, "{n}")` gives, without the formatter).
@@ -229,27 +240,57 @@ impl std::ops::Index<usize> for Adjacency {
     }
 }
 
-fn adjacency(n: usize, bonds: &[Bond]) -> Adjacency {
-    let mut start = vec![0usize; n + 1];
-    for b in bonds {
-        start[b.a + 1] += 1;
-        start[b.b + 1] += 1;
+impl Adjacency {
+    /// The lists of `n` atoms joined by `bonds`, in the storage already held.
+    fn fill(&mut self, n: usize, bonds: &[Bond]) {
+        let start = &mut self.start;
+        start.clear();
+        start.resize(n + 1, 0);
+        for b in bonds {
+            start[b.a + 1] += 1;
+            start[b.b + 1] += 1;
+        }
+        for i in 0..n {
+            start[i + 1] += start[i];
+        }
+        self.nb.clear();
+        self.nb.resize(2 * bonds.len(), (0, 0));
+        // start[i] serves as atom i's fill cursor, then moves back by one list
+        for (k, b) in bonds.iter().enumerate() {
+            self.nb[start[b.a]] = (b.b, k);
+            start[b.a] += 1;
+            self.nb[start[b.b]] = (b.a, k);
+            start[b.b] += 1;
+        }
+        for i in (1..=n).rev() {
+            start[i] = start[i - 1];
+        }
+        start[0] = 0;
     }
-    for i in 0..n {
-        start[i + 1] += start[i];
+}
+
+impl Default for Molecule {
+    fn default() -> Self {
+        Molecule::empty()
     }
-    let mut fill = start.clone();
-    let mut nb = vec![(0usize, 0usize); 2 * bonds.len()];
-    for (k, b) in bonds.iter().enumerate() {
-        nb[fill[b.a]] = (b.b, k);
-        fill[b.a] += 1;
-        nb[fill[b.b]] = (b.a, k);
-        fill[b.b] += 1;
-    }
-    Adjacency { start, nb }
 }
 
 impl Molecule {
+    /// A molecule with no atoms, to read into with [`parse_smiles_into`].
+    pub fn empty() -> Molecule {
+        Molecule {
+            atoms: Vec::new(),
+            bonds: Vec::new(),
+            adj: Adjacency {
+                start: vec![0],
+                nb: Vec::new(),
+            },
+            components: 0,
+            smiles: String::new(),
+            tally: Vec::new(),
+        }
+    }
+
     /// All atoms, hydrogens written as `[H]` atoms included, in input order.
     pub fn atoms(&self) -> &[Atom] {
         &self.atoms

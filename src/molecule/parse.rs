@@ -5,13 +5,6 @@
 use super::error::{SmilesError, SmilesErrorKind as K};
 use super::{Atom, Bond, BondOrder, Element, MAX_ATOMS};
 
-/// The graph as written, before rings, Kekulé form and implicit hydrogens.
-pub(super) struct Raw {
-    pub atoms: Vec<Atom>,
-    pub bonds: Vec<Bond>,
-    pub components: usize,
-}
-
 /// Bond symbol read before an atom or ring digit.
 #[derive(Clone, Copy, PartialEq, Eq, Debug)]
 enum Sym {
@@ -46,12 +39,21 @@ struct Reader<'a> {
     s: &'a str,
     b: &'a [u8],
     i: usize,
-    atoms: Vec<Atom>,
-    bonds: Vec<Bond>,
-    rings: Vec<Option<OpenRing>>,
+    atoms: &'a mut Vec<Atom>,
+    bonds: &'a mut Vec<Bond>,
+    rings: [Option<OpenRing>; 100],
 }
 
-pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
+/// Reads the graph as written (before rings, Kekulé form and implicit hydrogens) into
+/// `atoms` and `bonds` (cleared first, their capacity kept for the next molecule);
+/// returns the number of components.
+pub(super) fn read(
+    input: &str,
+    atoms: &mut Vec<Atom>,
+    bonds: &mut Vec<Bond>,
+) -> Result<usize, SmilesError> {
+    atoms.clear();
+    bonds.clear();
     let s = input.trim();
     let offset = input.len() - input.trim_start().len();
     let err = |k: K, byte: usize| SmilesError::at(k, input, byte + offset);
@@ -62,15 +64,39 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
         s,
         b: s.as_bytes(),
         i: 0,
-        // at most one atom per character and one bond per atom or ring digit
-        atoms: Vec::with_capacity(s.len().min(MAX_ATOMS)),
-        bonds: Vec::with_capacity(s.len().min(MAX_ATOMS)),
-        rings: (0..100).map(|_| None).collect(),
+        atoms,
+        bonds,
+        rings: [const { None }; 100],
     };
+    // at most one atom per character and one bond per atom or ring digit
+    let most = s.len().min(MAX_ATOMS);
+    r.atoms.reserve(most);
+    r.bonds.reserve(most);
+    // open branches: (atom before the branch, byte of its '('), reused between molecules
+    let mut stack = BRANCHES.take();
+    stack.clear();
+    let result = read_graph(&mut r, &mut stack, input, offset);
+    BRANCHES.set(stack);
+    result
+}
+
+thread_local! {
+    static BRANCHES: std::cell::Cell<Vec<(Option<usize>, usize)>> =
+        const { std::cell::Cell::new(Vec::new()) };
+}
+
+fn read_graph(
+    r: &mut Reader,
+    stack: &mut Vec<(Option<usize>, usize)>,
+    input: &str,
+    offset: usize,
+) -> Result<usize, SmilesError> {
+    let err = |k: K, byte: usize| SmilesError::at(k, input, byte + offset);
     let ascii = input.is_ascii();
     let mut components = 0usize;
     let mut prev: Option<usize> = None;
-    let mut stack: Vec<(Option<usize>, usize)> = Vec::new();
+    // ring numbers open now (the closing check scans the table only when some are)
+    let mut open_rings = 0usize;
     let mut pending: Option<(Sym, usize)> = None;
     // Whether the last thing read can be followed by a bond / ring digit.
     while r.i < r.b.len() {
@@ -145,6 +171,7 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
                 let sym = pending.take().map(|x| x.0);
                 match r.rings[n].take() {
                     None => {
+                        open_rings += 1;
                         r.rings[n] = Some(OpenRing {
                             atom: p,
                             sym,
@@ -152,6 +179,7 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
                         })
                     }
                     Some(open) => {
+                        open_rings -= 1;
                         let order = match (open.sym, sym) {
                             (Some(a), Some(b)) if a.order() != b.order() => {
                                 return Err(err(K::RingBondConflict(n as u32), start))
@@ -207,20 +235,18 @@ pub(super) fn read(input: &str) -> Result<Raw, SmilesError> {
     if let Some((_, open)) = stack.last() {
         return Err(err(K::UnbalancedParen, *open));
     }
-    if let Some((n, ring)) = r
-        .rings
-        .iter()
-        .enumerate()
-        .filter_map(|(n, x)| x.as_ref().map(|x| (n, x)))
-        .min_by_key(|(_, x)| x.byte)
-    {
-        return Err(err(K::UnclosedRing(n as u32), ring.byte));
+    if open_rings > 0 {
+        if let Some((n, ring)) = r
+            .rings
+            .iter()
+            .enumerate()
+            .filter_map(|(n, x)| x.as_ref().map(|x| (n, x)))
+            .min_by_key(|(_, x)| x.byte)
+        {
+            return Err(err(K::UnclosedRing(n as u32), ring.byte));
+        }
     }
-    Ok(Raw {
-        atoms: r.atoms,
-        bonds: r.bonds,
-        components,
-    })
+    Ok(components)
 }
 
 impl Reader<'_> {

@@ -7,6 +7,20 @@
 use super::Molecule;
 use std::collections::VecDeque;
 
+/// The depth-first search's arrays, kept between molecules (only their storage).
+#[derive(Default)]
+struct Work {
+    disc: Vec<usize>,
+    low: Vec<usize>,
+    is_bridge: Vec<bool>,
+    /// (atom, bond used to enter it, next neighbour index)
+    stack: Vec<(usize, usize, usize)>,
+}
+
+thread_local! {
+    static WORK: std::cell::Cell<Work> = std::cell::Cell::new(Work::default());
+}
+
 /// Mark `in_ring` on every bond that is not a bridge and on the atoms of those bonds.
 pub(super) fn mark_ring_bonds(m: &mut Molecule) {
     let n = m.atoms.len();
@@ -14,16 +28,37 @@ pub(super) fn mark_ring_bonds(m: &mut Molecule) {
     if m.bonds.len() + m.components <= n {
         return;
     }
-    let mut disc = vec![usize::MAX; n];
-    let mut low = vec![0usize; n];
+    let mut w = WORK.take();
+    bridges(m, &mut w);
+    for (b, &bridge) in m.bonds.iter_mut().zip(&w.is_bridge) {
+        b.in_ring = !bridge;
+    }
+    for k in 0..m.bonds.len() {
+        if m.bonds[k].in_ring {
+            let (a, b) = (m.bonds[k].a, m.bonds[k].b);
+            m.atoms[a].in_ring = true;
+            m.atoms[b].in_ring = true;
+        }
+    }
+    WORK.set(w);
+}
+
+/// Tarjan's bridges of `m` into `w.is_bridge`.
+fn bridges(m: &Molecule, w: &mut Work) {
+    let n = m.atoms.len();
+    let (disc, low, is_bridge, stack) = (&mut w.disc, &mut w.low, &mut w.is_bridge, &mut w.stack);
+    disc.clear();
+    disc.resize(n, usize::MAX);
+    low.clear();
+    low.resize(n, 0);
+    is_bridge.clear();
+    is_bridge.resize(m.bonds.len(), false);
     let mut time = 0usize;
-    let mut is_bridge = vec![false; m.bonds.len()];
     for root in 0..n {
         if disc[root] != usize::MAX {
             continue;
         }
-        // Stack of (atom, bond used to enter it, next neighbour index).
-        let mut stack: Vec<(usize, usize, usize)> = Vec::with_capacity(n);
+        stack.clear();
         stack.push((root, usize::MAX, 0));
         disc[root] = time;
         low[root] = time;
@@ -51,16 +86,6 @@ pub(super) fn mark_ring_bonds(m: &mut Molecule) {
                     }
                 }
             }
-        }
-    }
-    for (k, b) in m.bonds.iter_mut().enumerate() {
-        b.in_ring = !is_bridge[k];
-    }
-    for k in 0..m.bonds.len() {
-        if m.bonds[k].in_ring {
-            let (a, b) = (m.bonds[k].a, m.bonds[k].b);
-            m.atoms[a].in_ring = true;
-            m.atoms[b].in_ring = true;
         }
     }
 }
