@@ -177,6 +177,32 @@ fn assign(m: &Molecule, extended: bool) -> Result<GroupCounts, EstimateError> {
     Ok(c.to_map())
 }
 
+/// Terminal oxygens double-bonded (or nitro O-) to atom `i` by a bond of `order`.
+fn terminal_o(m: &Molecule, i: usize, order: BondOrder) -> impl Iterator<Item = usize> + '_ {
+    m.neighbours(i)
+        .iter()
+        .filter(move |&&(j, k)| {
+            m.atoms()[j].element == Element::O
+                && m.bonds()[k].order == order
+                && m.heavy_degree(j) == 1
+                && m.total_hydrogens(j) == 0
+        })
+        .map(|&(j, _)| j)
+}
+
+/// How many items `it` has, and its first two (what collecting and indexing would give).
+fn first_two(it: impl Iterator<Item = usize>) -> (usize, [usize; 2]) {
+    let mut first = [usize::MAX; 2];
+    let mut n = 0;
+    for j in it {
+        if n < 2 {
+            first[n] = j;
+        }
+        n += 1;
+    }
+    (n, first)
+}
+
 /// Per-atom marks of the assignment, kept between molecules (only their storage).
 #[derive(Default)]
 struct Work {
@@ -213,33 +239,18 @@ fn assign_with(
     used.resize(n, false);
     let mut add = |id: usize| out.add(id);
     let el = |i: usize| atoms[i].element;
-    // Terminal oxygen double-bonded (or nitro O-) to atom i.
-    let terminal_o = |i: usize, order: BondOrder| -> Vec<usize> {
-        m.neighbours(i)
-            .iter()
-            .filter(|&&(j, k)| {
-                el(j) == Element::O
-                    && m.bonds()[k].order == order
-                    && m.heavy_degree(j) == 1
-                    && m.total_hydrogens(j) == 0
-            })
-            .map(|&(j, _)| j)
-            .collect()
-    };
     // Charged atoms other than the nitro pattern are refused below.
     // 1. Nitro: N with two terminal O (N+ with =O and O-, or N(=O)=O).
     for i in 0..n {
         if el(i) != Element::N || used[i] {
             continue;
         }
-        let dbl = terminal_o(i, BondOrder::Double);
-        let sgl: Vec<usize> = terminal_o(i, BondOrder::Single)
-            .into_iter()
-            .filter(|&j| atoms[j].charge == -1)
-            .collect();
-        let pair = if atoms[i].charge == 1 && dbl.len() == 1 && sgl.len() == 1 {
+        let (n_dbl, dbl) = first_two(terminal_o(m, i, BondOrder::Double));
+        let (n_sgl, sgl) =
+            first_two(terminal_o(m, i, BondOrder::Single).filter(|&j| atoms[j].charge == -1));
+        let pair = if atoms[i].charge == 1 && n_dbl == 1 && n_sgl == 1 {
             Some((dbl[0], sgl[0]))
-        } else if atoms[i].charge == 0 && dbl.len() == 2 {
+        } else if atoms[i].charge == 0 && n_dbl == 2 {
             Some((dbl[0], dbl[1]))
         } else {
             None
@@ -279,7 +290,7 @@ fn assign_with(
         if el(i) != Element::C || used[i] || atoms[i].charge != 0 {
             continue;
         }
-        let Some(&o) = terminal_o(i, BondOrder::Double).iter().find(|&&o| !used[o]) else {
+        let Some(o) = terminal_o(m, i, BondOrder::Double).find(|&o| !used[o]) else {
             continue;
         };
         if atoms[o].charge != 0 {
@@ -287,28 +298,25 @@ fn assign_with(
         }
         let h = m.total_hydrogens(i);
         // Single-bonded oxygens on the carbonyl carbon.
-        let singles: Vec<usize> = m
-            .neighbours(i)
-            .iter()
-            .filter(|&&(j, k)| {
-                el(j) == Element::O
-                    && !used[j]
-                    && m.bonds()[k].order == BondOrder::Single
-                    && atoms[j].charge == 0
-            })
-            .map(|&(j, _)| j)
-            .collect();
-        if let Some(&oh) = singles
-            .iter()
-            .find(|&&j| m.total_hydrogens(j) == 1 && m.heavy_degree(j) == 1)
-        {
+        let singles = || {
+            m.neighbours(i)
+                .iter()
+                .filter(|&&(j, k)| {
+                    el(j) == Element::O
+                        && !used[j]
+                        && m.bonds()[k].order == BondOrder::Single
+                        && atoms[j].charge == 0
+                })
+                .map(|&(j, _)| j)
+        };
+        if let Some(oh) = singles().find(|&j| m.total_hydrogens(j) == 1 && m.heavy_degree(j) == 1) {
             used[i] = true;
             used[o] = true;
             used[oh] = true;
             add(t!("cooh"));
             continue;
         }
-        if let Some(&oe) = singles.iter().find(|&&j| m.heavy_degree(j) == 2) {
+        if let Some(oe) = singles().find(|&j| m.heavy_degree(j) == 2) {
             used[i] = true;
             used[o] = true;
             used[oe] = true;
@@ -341,7 +349,7 @@ fn assign_with(
             if el(i) != Element::S || atoms[i].charge != 0 {
                 continue;
             }
-            for o in terminal_o(i, BondOrder::Double) {
+            for o in terminal_o(m, i, BondOrder::Double) {
                 if !used[o] && atoms[o].charge == 0 {
                     used[o] = true;
                     s_oxo[i] += 1;

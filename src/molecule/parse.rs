@@ -30,6 +30,8 @@ impl Sym {
 }
 
 struct OpenRing {
+    /// The ring number.
+    n: usize,
     atom: usize,
     sym: Option<Sym>,
     byte: usize,
@@ -41,7 +43,8 @@ struct Reader<'a> {
     i: usize,
     atoms: &'a mut Vec<Atom>,
     bonds: &'a mut Vec<Bond>,
-    rings: [Option<OpenRing>; 100],
+    /// Ring numbers open now, in no particular order (few at a time).
+    rings: Vec<OpenRing>,
 }
 
 /// Reads the graph as written (before rings, Kekulé form and implicit hydrogens) into
@@ -66,23 +69,28 @@ pub(super) fn read(
         i: 0,
         atoms,
         bonds,
-        rings: [const { None }; 100],
+        rings: Vec::new(),
     };
     // at most one atom per character and one bond per atom or ring digit
     let most = s.len().min(MAX_ATOMS);
     r.atoms.reserve(most);
     r.bonds.reserve(most);
     // open branches: (atom before the branch, byte of its '('), reused between molecules
-    let mut stack = BRANCHES.take();
+    // and the open rings: their storage reused between molecules
+    let (mut stack, mut rings) = WORK.take();
     stack.clear();
+    rings.clear();
+    r.rings = rings;
     let result = read_graph(&mut r, &mut stack, input, offset);
-    BRANCHES.set(stack);
+    WORK.set((stack, std::mem::take(&mut r.rings)));
     result
 }
 
+type Branches = Vec<(Option<usize>, usize)>;
+
 thread_local! {
-    static BRANCHES: std::cell::Cell<Vec<(Option<usize>, usize)>> =
-        const { std::cell::Cell::new(Vec::new()) };
+    static WORK: std::cell::Cell<(Branches, Vec<OpenRing>)> =
+        const { std::cell::Cell::new((Vec::new(), Vec::new())) };
 }
 
 fn read_graph(
@@ -95,8 +103,6 @@ fn read_graph(
     let ascii = input.is_ascii();
     let mut components = 0usize;
     let mut prev: Option<usize> = None;
-    // ring numbers open now (the closing check scans the table only when some are)
-    let mut open_rings = 0usize;
     let mut pending: Option<(Sym, usize)> = None;
     // Whether the last thing read can be followed by a bond / ring digit.
     while r.i < r.b.len() {
@@ -169,17 +175,15 @@ fn read_graph(
                     (c - b'0') as usize
                 };
                 let sym = pending.take().map(|x| x.0);
-                match r.rings[n].take() {
-                    None => {
-                        open_rings += 1;
-                        r.rings[n] = Some(OpenRing {
-                            atom: p,
-                            sym,
-                            byte: start,
-                        })
-                    }
-                    Some(open) => {
-                        open_rings -= 1;
+                match r.rings.iter().position(|x| x.n == n) {
+                    None => r.rings.push(OpenRing {
+                        n,
+                        atom: p,
+                        sym,
+                        byte: start,
+                    }),
+                    Some(at) => {
+                        let open = r.rings.swap_remove(at);
                         let order = match (open.sym, sym) {
                             (Some(a), Some(b)) if a.order() != b.order() => {
                                 return Err(err(K::RingBondConflict(n as u32), start))
@@ -235,16 +239,8 @@ fn read_graph(
     if let Some((_, open)) = stack.last() {
         return Err(err(K::UnbalancedParen, *open));
     }
-    if open_rings > 0 {
-        if let Some((n, ring)) = r
-            .rings
-            .iter()
-            .enumerate()
-            .filter_map(|(n, x)| x.as_ref().map(|x| (n, x)))
-            .min_by_key(|(_, x)| x.byte)
-        {
-            return Err(err(K::UnclosedRing(n as u32), ring.byte));
-        }
+    if let Some(ring) = r.rings.iter().min_by_key(|x| x.byte) {
+        return Err(err(K::UnclosedRing(ring.n as u32), ring.byte));
     }
     Ok(components)
 }
