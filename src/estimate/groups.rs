@@ -437,7 +437,7 @@ fn assign_with(
                     _ => return Err(no_group(m, i, "nitrogen bonded in a way the table does not cover")),
                 }
             }
-            e if e == Element::S => match (double - s_oxo[i] as i32, h, deg - s_oxo[i] as usize) {
+            e if e == Element::S => match (double - s_oxo[i] as i32, h, deg - s_oxo[i]) {
                 (0, 1, 1) => t!("sh"),
                 (0, 0, 2) => if ring { t!("s_ring") } else { t!("s_chain") },
                 _ => return Err(no_group(m, i, "sulfur other than -SH or -S- (e.g. sulfoxide, sulfone) has no Joback group")),
