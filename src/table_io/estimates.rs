@@ -20,8 +20,9 @@ struct Fields<'a> {
     first: bool,
 }
 
-/// `s` as one CSV field (the csv crate's `QuoteStyle::Necessary` with its defaults).
-fn push_csv_text(line: &mut Vec<u8>, s: &[u8]) {
+/// `s` as one CSV field (the csv crate's `QuoteStyle::Necessary` with its defaults); also
+/// the fit batch's row writer.
+pub(crate) fn push_csv_text(line: &mut Vec<u8>, s: &[u8]) {
     if s.iter().any(|&b| matches!(b, b',' | b'"' | b'\r' | b'\n')) {
         line.push(b'"');
         for &b in s {

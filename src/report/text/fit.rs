@@ -37,59 +37,77 @@ pub fn csv(rows: &[FitRow]) -> Result<String, csv::Error> {
     Ok(out)
 }
 
-/// One row of [`csv()`] with its line end: what a batch writes as each fit is done. Cells are
-/// written one by one into the row, so a row costs a few allocations, not one per cell.
+/// One row of [`csv()`] with its line end: what a batch writes as each fit is done, built
+/// in one buffer (text quoted as the csv crate quotes it, numbers as [`super::cell`]
+/// writes them).
 pub fn csv_line(r: &FitRow) -> Result<String, csv::Error> {
-    let mut w = csv::WriterBuilder::new()
-        .buffer_capacity(512)
-        .from_writer(Vec::with_capacity(256));
-    let mut cellbuf = String::with_capacity(32);
-    let mut num = |w: &mut csv::Writer<Vec<u8>>, v: Option<f64>| {
-        cellbuf.clear();
-        super::push_cell(&mut cellbuf, v);
-        w.write_field(&cellbuf)
+    use crate::table_io::estimates::push_csv_text;
+    use std::fmt::Write as _;
+    let mut line: Vec<u8> = Vec::with_capacity(256);
+    let mut cell = String::with_capacity(48);
+    let mut first = true;
+    // One field from what `fill` writes into the cell buffer.
+    let mut field = |line: &mut Vec<u8>, fill: &mut dyn FnMut(&mut String)| {
+        if !first {
+            line.push(b',');
+        }
+        first = false;
+        cell.clear();
+        fill(&mut cell);
+        push_csv_text(line, cell.as_bytes());
     };
     match r {
         FitRow::Ok(rep) => {
-            w.write_field(rep.compound.as_deref().unwrap_or_default())?;
-            w.write_field(rep.model.to_string())?;
-            w.write_field(rep.convention.to_string())?;
+            field(&mut line, &mut |c| {
+                c.push_str(rep.compound.as_deref().unwrap_or_default())
+            });
+            field(&mut line, &mut |c| c.push_str(rep.model.as_str()));
+            field(&mut line, &mut |c| {
+                let _ = write!(c, "{}", rep.convention);
+            });
             for i in 0..4 {
-                num(&mut w, rep.parameters.get(i).map(|p| p.value))?;
+                let v = rep.parameters.get(i).map(|p| p.value);
+                field(&mut line, &mut |c| super::push_cell(c, v));
             }
             for i in 0..4 {
-                num(&mut w, rep.parameters.get(i).map(|p| p.std_error))?;
+                let v = rep.parameters.get(i).map(|p| p.std_error);
+                field(&mut line, &mut |c| super::push_cell(c, v));
             }
-            w.write_field(rep.n_points.to_string())?;
-            num(&mut w, Some(rep.rms_rel_dev_pct))?;
+            field(&mut line, &mut |c| {
+                let _ = write!(c, "{}", rep.n_points);
+            });
             let tb = rep.normal_boiling_point_k.as_ref();
-            num(&mut w, tb.map(|t| t.value))?;
-            num(&mut w, tb.map(|t| t.ci95_low))?;
-            num(&mut w, tb.map(|t| t.ci95_high))?;
-            let mut codes = String::new();
-            for (i, f) in rep.flags.iter().enumerate() {
-                if i > 0 {
-                    codes.push(';');
-                }
-                codes.push_str(f.code.as_str());
+            for v in [
+                Some(rep.rms_rel_dev_pct),
+                tb.map(|t| t.value),
+                tb.map(|t| t.ci95_low),
+                tb.map(|t| t.ci95_high),
+            ] {
+                field(&mut line, &mut |c| super::push_cell(c, v));
             }
-            w.write_field(&codes)?;
-            w.write_field("")?;
+            field(&mut line, &mut |c| {
+                for (i, f) in rep.flags.iter().enumerate() {
+                    if i > 0 {
+                        c.push(';');
+                    }
+                    c.push_str(f.code.as_str());
+                }
+            });
+            field(&mut line, &mut |_| {});
         }
         FitRow::Failed { compound, error } => {
-            w.write_field(compound.as_deref().unwrap_or_default())?;
+            field(&mut line, &mut |c| {
+                c.push_str(compound.as_deref().unwrap_or_default())
+            });
             for _ in 0..16 {
-                w.write_field("")?;
+                field(&mut line, &mut |_| {});
             }
-            w.write_field(error)?;
+            field(&mut line, &mut |c| c.push_str(error));
         }
     }
-    w.write_record(None::<&[u8]>)?;
-    let bytes = w
-        .into_inner()
-        .map_err(|e| csv::Error::from(e.into_error()))?;
-    // Every cell came from a &str, so the row is UTF-8.
-    Ok(String::from_utf8(bytes).unwrap_or_default())
+    line.push(b'\n');
+    // Every field came from a &str, so the row is UTF-8.
+    Ok(String::from_utf8(line).unwrap_or_default())
 }
 
 /// The readable report of one fit, in the chosen display units.
