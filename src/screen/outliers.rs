@@ -16,13 +16,17 @@ pub const Z_LIMIT: f64 = 3.5;
 /// Fewest residuals for which robust scores are computed.
 pub const MIN_ROWS: usize = 8;
 
+/// The median of `v` (at least one value; reordered here): the middle of the
+/// order statistics, selected rather than sorted (the same values).
 fn median(v: &mut [f64]) -> f64 {
     let n = v.len();
-    v.sort_unstable_by(f64::total_cmp);
+    let (below, mid, _) = v.select_nth_unstable_by(n / 2, f64::total_cmp);
+    let mid = *mid;
     if n % 2 == 1 {
-        v[n / 2]
+        mid
     } else {
-        0.5 * (v[n / 2 - 1] + v[n / 2])
+        let lower = below.iter().copied().max_by(f64::total_cmp).unwrap_or(mid);
+        0.5 * (lower + mid)
     }
 }
 
@@ -99,6 +103,30 @@ pub fn check_outliers(residuals: &[f64]) -> Vec<(usize, Finding)> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    // Selecting gives the sorted middle, odd and even counts, ties included.
+    #[test]
+    fn median_is_the_sorted_middle() {
+        let mut s: u64 = 0xDEAD_BEEF_CAFE_F00D;
+        for n in 1..200 {
+            let mut v: Vec<f64> = (0..n)
+                .map(|_| {
+                    s ^= s << 13;
+                    s ^= s >> 7;
+                    s ^= s << 17;
+                    ((s >> 40) % 50) as f64 - 20.0
+                })
+                .collect();
+            let mut sorted = v.clone();
+            sorted.sort_by(f64::total_cmp);
+            let want = if n % 2 == 1 {
+                sorted[n / 2]
+            } else {
+                0.5 * (sorted[n / 2 - 1] + sorted[n / 2])
+            };
+            assert_eq!(median(&mut v), want, "{n}");
+        }
+    }
 
     #[test]
     fn two_outliers_do_not_hide_each_other() {
