@@ -32,16 +32,17 @@ fn tenths(x: f64) -> Option<u64> {
     // a y exactly halfway between tenths leaves the side in doubt, and the
     // product's exact error (one fused multiply-add) settles it.
     let y = a * 10.0;
-    let whole = y.floor();
-    let frac = y - whole;
+    // truncation is the floor here (y ≥ 0), and y − floor is exact
+    let whole = y as u64;
+    let frac = y - whole as f64;
     if frac == 0.5 {
         let err = a.mul_add(10.0, -y);
         if err == 0.0 {
             return None;
         }
-        return Some(whole as u64 + u64::from(err > 0.0));
+        return Some(whole + u64::from(err > 0.0));
     }
-    Some(whole as u64 + u64::from(frac > 0.5))
+    Some(whole + u64::from(frac > 0.5))
 }
 
 /// Decimal digits of `n` at the end of `buf`; returns where they start.
@@ -77,14 +78,30 @@ pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
         };
         return;
     };
-    if x.is_sign_negative() {
-        out.push('-');
-    } else if plus {
-        out.push('+');
+    // written from the end: tenths, point, whole part, sign; then added at once
+    let mut buf = [0u8; 24];
+    let last = buf.len() - 1;
+    buf[last] = b'0' + (t % 10) as u8;
+    buf[last - 1] = b'.';
+    let mut i = last - 1;
+    let mut n = t / 10;
+    loop {
+        i -= 1;
+        buf[i] = b'0' + (n % 10) as u8;
+        n /= 10;
+        if n == 0 {
+            break;
+        }
     }
-    push_uint(out, t / 10);
-    out.push('.');
-    out.push(char::from(b'0' + (t % 10) as u8));
+    if x.is_sign_negative() {
+        i -= 1;
+        buf[i] = b'-';
+    } else if plus {
+        i -= 1;
+        buf[i] = b'+';
+    }
+    // only ASCII digits, '.', '-' and '+' were written
+    out.push_str(std::str::from_utf8(&buf[i..]).unwrap_or_default());
 }
 
 /// A message built piece by piece into one string of the right size, without

@@ -1111,9 +1111,13 @@ fn csv_field(buf: &mut Vec<u8>, s: &[u8]) {
         buf.extend_from_slice(b"\"\"");
         return;
     }
-    let quote = memchr::memchr3(b',', b'\n', b'\r', s).is_some();
-    let has_quote = memchr::memchr(b'"', s).is_some();
-    if !(quote || has_quote) {
+    // short fields (most cells) are scanned byte by byte, long ones (messages) by memchr
+    let plain = if s.len() < 48 {
+        !s.iter().any(|&b| matches!(b, b',' | b'\n' | b'\r' | b'"'))
+    } else {
+        memchr::memchr3(b',', b'\n', b'\r', s).is_none() && memchr::memchr(b'"', s).is_none()
+    };
+    if plain {
         buf.extend_from_slice(s);
         return;
     }
@@ -1385,7 +1389,16 @@ mod tests {
                 Finding::new(CheckCode::TbAntoineMismatch, "plain"),
                 Finding::new(CheckCode::SlipDigit, "also plain"),
             ],
-            vec![],
+            vec![
+                Finding::new(
+                    CheckCode::ReferenceMismatch,
+                    "A message longer than the short-field scan, with \"quotes\" inside it",
+                ),
+                Finding::new(
+                    CheckCode::TbStructureMismatch,
+                    "and a second long message that holds nothing to quote at all",
+                ),
+            ],
             vec![Finding::new(CheckCode::DuplicateDisagrees, "x\ny")],
         ];
         let report = ScreenReport::new(findings, vec![2, 3, 4, 5, 6]);
