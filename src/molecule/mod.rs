@@ -119,6 +119,8 @@ pub struct Molecule {
     smiles: String,
     /// Per atom: heavy degree and total hydrogens (computed once the hydrogens are known).
     tally: Vec<(u32, u32)>,
+    /// The spanning forest as written and the ring closures (for ring membership).
+    tree: parse::Tree,
 }
 
 /// Largest molecule read (atoms), to keep time and memory bounded on any input.
@@ -154,7 +156,7 @@ pub fn parse_smiles(s: &str) -> Result<Molecule, SmilesError> {
 /// assert!(parse_smiles_into("C1CC", &mut m).is_err());
 /// ```
 pub fn parse_smiles_into(s: &str, m: &mut Molecule) -> Result<(), SmilesError> {
-    m.components = parse::read(s, &mut m.atoms, &mut m.bonds)?;
+    m.components = parse::read(s, &mut m.atoms, &mut m.bonds, &mut m.tree)?;
     m.adj.fill(m.atoms.len(), &m.bonds);
     m.smiles.clear();
     m.smiles.push_str(s.trim());
@@ -288,6 +290,7 @@ impl Molecule {
             components: 0,
             smiles: String::new(),
             tally: Vec::new(),
+            tree: parse::Tree::default(),
         }
     }
 

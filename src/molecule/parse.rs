@@ -29,6 +29,19 @@ impl Sym {
     }
 }
 
+/// The graph as a spanning forest: every atom after the first of its component hangs
+/// from the atom written before it by the bond between them; each ring closure adds a
+/// bond (and a ring) to it.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub(super) struct Tree {
+    /// Per atom: (atom it hangs from, that bond), `usize::MAX` for a component's first.
+    pub up: Vec<(usize, usize)>,
+    /// Per atom: bonds to its component's first atom along the forest.
+    pub depth: Vec<u32>,
+    /// The ring-closure bonds, in input order.
+    pub closures: Vec<usize>,
+}
+
 struct OpenRing {
     /// The ring number.
     n: usize,
@@ -43,6 +56,7 @@ struct Reader<'a> {
     i: usize,
     atoms: &'a mut Vec<Atom>,
     bonds: &'a mut Vec<Bond>,
+    tree: &'a mut Tree,
     /// Ring numbers open now, in no particular order (few at a time).
     rings: Vec<OpenRing>,
 }
@@ -54,9 +68,13 @@ pub(super) fn read(
     input: &str,
     atoms: &mut Vec<Atom>,
     bonds: &mut Vec<Bond>,
+    tree: &mut Tree,
 ) -> Result<usize, SmilesError> {
     atoms.clear();
     bonds.clear();
+    tree.up.clear();
+    tree.depth.clear();
+    tree.closures.clear();
     let s = input.trim();
     let offset = input.len() - input.trim_start().len();
     let err = |k: K, byte: usize| SmilesError::at(k, input, byte + offset);
@@ -69,6 +87,7 @@ pub(super) fn read(
         i: 0,
         atoms,
         bonds,
+        tree,
         rings: Vec::new(),
     };
     // at most one atom per character and one bond per atom or ring digit
@@ -199,6 +218,7 @@ fn read_graph(
                             return Err(err(K::BadRingClosure(n as u32), start));
                         }
                         r.bond(open.atom, p, order);
+                        r.tree.closures.push(r.bonds.len() - 1);
                     }
                 }
             }
@@ -226,8 +246,14 @@ fn read_graph(
                     Some(p) => {
                         let order = pending.take().map(|x| x.0.order());
                         r.bond(p, idx, order);
+                        r.tree.up.push((p, r.bonds.len() - 1));
+                        r.tree.depth.push(r.tree.depth[p] + 1);
                     }
-                    None => components += 1,
+                    None => {
+                        components += 1;
+                        r.tree.up.push((usize::MAX, usize::MAX));
+                        r.tree.depth.push(0);
+                    }
                 }
                 prev = Some(idx);
             }
