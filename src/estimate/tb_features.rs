@@ -386,17 +386,25 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
         polar += terms.get(id);
     }
     AMIDE_N.set(amide_n);
-    let has = |e: Element| m.has_element(e);
-    let family = Family::from_classes(
-        has(Element::F) || has(Element::CL) || has(Element::BR) || has(Element::I),
-        has(Element::O),
-        has(Element::N),
-        has(Element::S),
-    );
+    // which of the family's elements occur, in one pass (what `m.has_element` tells):
+    // fluorine, another halogen, O, N, S
+    let mut has = [false; 5];
+    for a in atoms {
+        match a.element.number() {
+            9 => has[0] = true,
+            17 | 35 | 53 => has[1] = true,
+            8 => has[2] = true,
+            7 => has[3] = true,
+            16 => has[4] = true,
+            _ => {}
+        }
+    }
+    let family = Family::from_classes(has[0] || has[1], has[2], has[3], has[4]);
+    let fluorinated = has[0];
     Ok(FeatureCounts {
         terms,
         family,
-        class: IntervalClass::of(family, has(Element::F)),
+        class: IntervalClass::of(family, fluorinated),
         polar,
     })
 }

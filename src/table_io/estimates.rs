@@ -64,6 +64,22 @@ impl Fields<'_> {
         push_csv_text(self.line, without_non_finite(self.buf, "").as_bytes());
     }
 
+    /// The text in the buffer as a text cell, when it is a formula of a molecule with
+    /// carbon or a list of group ids with counts: letters, digits, `_ = ; + -` only, so
+    /// never quoted, and no word of it is `nan` or `inf` (a Hill formula's words start
+    /// with `C` or are a charge's digits; `group_ids_hold_no_non_finite_word` checks the
+    /// ids; debug builds check both). Written as it is, what [`Fields::buffered_text`]
+    /// would write.
+    fn plain_buffered_text(&mut self) {
+        debug_assert!(without_non_finite(self.buf, "") == self.buf.as_str());
+        debug_assert!(!self
+            .buf
+            .bytes()
+            .any(|b| matches!(b, b',' | b'"' | b'\r' | b'\n')));
+        self.sep();
+        self.line.extend_from_slice(self.buf.as_bytes());
+    }
+
     fn end(&mut self) {
         self.line.push(b'\n');
     }
@@ -208,6 +224,7 @@ impl<W: Write> EstimateRows<W> {
                             e.omega,
                         ],
                     },
+                    false,
                     |buf| buf.push_str(e.formula.as_deref().unwrap_or_default()),
                     |buf| {
                         for (i, (k, v)) in e.groups.iter().enumerate() {
@@ -264,6 +281,7 @@ impl<W: Write> EstimateRows<W> {
                     n.omega,
                 ],
             },
+            true,
             |buf| m.write_formula(buf),
             |buf| {
                 for (k, (i, v)) in n.groups.iter_sorted().enumerate() {
@@ -320,16 +338,23 @@ impl<W: Write> EstimateRows<W> {
 }
 
 impl Fields<'_> {
+    /// `plain`: the formula and groups texts are a molecule's (see
+    /// [`Fields::plain_buffered_text`]).
     fn estimate(
         &mut self,
         v: &Values,
+        plain: bool,
         formula: impl FnOnce(&mut String),
         groups: impl FnOnce(&mut String),
     ) {
         self.text(v.smiles);
         self.buf.clear();
         formula(self.buf);
-        self.buffered_text();
+        if plain {
+            self.plain_buffered_text();
+        } else {
+            self.buffered_text();
+        }
         for x in v.tb {
             self.num(x, 2);
         }
@@ -339,7 +364,11 @@ impl Fields<'_> {
         }
         self.buf.clear();
         groups(self.buf);
-        self.buffered_text();
+        if plain {
+            self.plain_buffered_text();
+        } else {
+            self.buffered_text();
+        }
     }
 
     fn no_estimate(&mut self, smiles_given: &str) {
@@ -353,6 +382,21 @@ impl Fields<'_> {
 #[cfg(test)]
 mod tests {
     use super::push_csv_text;
+
+    /// The groups cell is written without the non-finite pass (`plain_buffered_text`):
+    /// no group id may hold a word `nan`, `inf` or `infinity`, nor a character that
+    /// needs quoting.
+    #[test]
+    fn group_ids_hold_no_non_finite_word() {
+        for id in crate::estimate::terms::IDS {
+            let cell = format!("{id}=1;{id}=12");
+            assert_eq!(super::without_non_finite(&cell, ""), cell.as_str(), "{id}");
+            assert!(
+                id.bytes().all(|b| b.is_ascii_alphanumeric() || b == b'_'),
+                "{id}"
+            );
+        }
+    }
 
     #[test]
     fn csv_text_matches_the_csv_crate() {
