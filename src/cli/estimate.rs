@@ -312,7 +312,8 @@ fn write_job(
     }
     match estimate_numbers_into(s, m) {
         Ok(n) => {
-            let curve = n.curve();
+            // the curve only when there are pressures to take from it
+            let curve = if ps.is_empty() { None } else { n.curve() };
             let at = at_pressures(curve.as_ref().map(|c| c as &dyn Curve), ps);
             w.numbers_row(compound, m, &n, &at)
         }

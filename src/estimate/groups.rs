@@ -242,7 +242,8 @@ fn assign_with(
     // Charged atoms other than the nitro pattern are refused below.
     // 1. Nitro: N with two terminal O (N+ with =O and O-, or N(=O)=O).
     for i in 0..n {
-        if el(i) != Element::N || used[i] {
+        // a nitro N has three heavy neighbours (checked first: no other N is one)
+        if el(i) != Element::N || used[i] || m.heavy_degree(i) != 3 {
             continue;
         }
         let (n_dbl, dbl) = first_two(terminal_o(m, i, BondOrder::Double));
@@ -256,9 +257,6 @@ fn assign_with(
             None
         };
         if let Some((o1, o2)) = pair {
-            if m.heavy_degree(i) != 3 {
-                continue;
-            }
             used[i] = true;
             used[o1] = true;
             used[o2] = true;
@@ -267,7 +265,8 @@ fn assign_with(
     }
     // 2. Nitrile: C#N with a terminal N.
     for i in 0..n {
-        if el(i) != Element::C || used[i] {
+        // a nitrile C has two heavy neighbours (checked once per atom, not per neighbour)
+        if el(i) != Element::C || used[i] || m.heavy_degree(i) != 2 {
             continue;
         }
         for &(j, k) in m.neighbours(i) {
@@ -276,7 +275,6 @@ fn assign_with(
                 && m.bonds()[k].order == BondOrder::Triple
                 && m.heavy_degree(j) == 1
                 && atoms[j].charge == 0
-                && m.heavy_degree(i) == 2
             {
                 used[i] = true;
                 used[j] = true;

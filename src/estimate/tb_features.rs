@@ -275,9 +275,7 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
             e if e == Element::C => {
                 let hal = nb
                     .iter()
-                    .filter(|&&(j, _)| {
-                        [Element::F, Element::CL, Element::BR, Element::I].contains(&el(j))
-                    })
+                    .filter(|&&(j, _)| matches!(el(j).number(), 9 | 17 | 35 | 53))
                     .count();
                 if hal >= 2 && m.total_hydrogens(i) == 0 {
                     terms.add(t!("perhalo_c"));
