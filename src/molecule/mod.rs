@@ -478,6 +478,22 @@ mod tests {
         }
     }
 
+    /// A ring closure that would repeat a bond is refused, whether the bond is a chain
+    /// bond either way round or an earlier closure; closures that add a bond are read.
+    #[test]
+    fn ring_closures_that_repeat_a_bond_are_refused() {
+        for s in ["C1C1", "C(C1)1", "CC1(C)C1", "C12CC12", "C12CCC21"] {
+            let e = parse_smiles(s).unwrap_err();
+            assert!(
+                matches!(e.kind, crate::molecule::SmilesErrorKind::BadRingClosure(_)),
+                "{s}: {e}"
+            );
+        }
+        for s in ["C1CC1", "C12CC1C2", "C1.C1", "C(CC1)C1", "C1CC2CC1C2"] {
+            assert!(parse_smiles(s).is_ok(), "{s}");
+        }
+    }
+
     #[test]
     fn cached_degrees_and_hydrogens_count_bracket_hydrogens() {
         // [H]C([H])([H])O: the methyl's hydrogens are atoms, the O has one implicit H

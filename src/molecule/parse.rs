@@ -210,10 +210,16 @@ fn read_graph(
                             (Some(a), _) | (None, Some(a)) => Some(a.order()),
                             (None, None) => None,
                         };
+                        // a bond between the two already: one hangs from the other in the
+                        // forest, or an earlier closure joined them (every bond is one of these)
+                        let joined = |x: usize, y: usize| {
+                            let b = &r.bonds[x];
+                            (b.a == p && b.b == y) || (b.b == p && b.a == y)
+                        };
                         if open.atom == p
-                            || r.bonds.iter().any(|b| {
-                                (b.a == p && b.b == open.atom) || (b.b == p && b.a == open.atom)
-                            })
+                            || r.tree.up[p].0 == open.atom
+                            || r.tree.up[open.atom].0 == p
+                            || r.tree.closures.iter().any(|&k| joined(k, open.atom))
                         {
                             return Err(err(K::BadRingClosure(n as u32), start));
                         }
