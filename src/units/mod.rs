@@ -243,6 +243,8 @@ mod tests {
         #[test]
         fn tidy_matches_the_logarithm_on_any_bits(bits in any::<u64>()) {
             let x = f64::from_bits(bits);
+            // non-finite values and zero pass through `tidy` before either path
+            prop_assume!(x.is_finite() && x != 0.0);
             prop_assert_eq!(tidy(x).to_bits(), tidy_by_log(x).to_bits());
         }
     }

@@ -90,6 +90,14 @@ pub fn push_cell(out: &mut String, v: Option<f64>) {
 pub fn push_plain(out: &mut String, x: f64) {
     let mut buf = ryu::Buffer::new();
     let s = buf.format_finite(x);
+    // With 16 or 17 digits two shortest spellings can both read back as `x`, and `{}` may
+    // choose the other one: leave those to `{}` itself (after `tidy`, cells have at most
+    // 12 digits, where the shortest spelling is unique).
+    if s.bytes().filter(u8::is_ascii_digit).count() >= 16 {
+        use std::fmt::Write as _;
+        let _ = write!(out, "{x}");
+        return;
+    }
     let Some(e) = s.find('e') else {
         out.push_str(s.strip_suffix(".0").unwrap_or(s));
         return;
@@ -222,6 +230,8 @@ mod plain_tests {
             5e-324,
             2.2250738585072014e-308,
             383.097718552,
+            662198611100560.2, // two 16-digit spellings read back as this one
+            f64::from_bits(4828652789802605698),
         ] {
             assert_eq!(plain(x), format!("{x}"), "{x:e}");
         }
