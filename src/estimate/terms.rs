@@ -15,7 +15,14 @@ pub const N_TERMS: usize = 58;
 
 /// Every term id: the Joback groups in `reference-data/joback-groups.csv` order, then
 /// [`super::tb_features::NEW_GROUPS`], then [`super::tb_features::CORRECTIONS`].
-pub const IDS: [&str; N_TERMS] = [
+pub const IDS: [&str; N_TERMS] = join(
+    &JOBACK_IDS,
+    &super::tb_features::NEW_GROUPS,
+    &super::tb_features::CORRECTIONS,
+);
+
+/// The published Joback groups, in `reference-data/joback-groups.csv` order.
+const JOBACK_IDS: [&str; N_JOBACK] = [
     "ch3",
     "ch2_chain",
     "ch_chain",
@@ -57,26 +64,38 @@ pub const IDS: [&str; N_TERMS] = [
     "sh",
     "s_chain",
     "s_ring",
-    // this project's new first-order groups
-    "n_ring_tert",
-    "n_arom_sub",
-    "s_oxo",
-    // second-order corrections
-    "amide_primary",
-    "amide_secondary",
-    "amide_tertiary",
-    "amide_ring",
-    "carbamate",
-    "urea",
-    "sulfonamide",
-    "nh_aromatic",
-    "fused_aromatic",
-    "ester_ring",
-    "sulfoxide",
-    "perhalo_c",
-    "halo_ch",
-    "arom_o_s",
 ];
+
+const _: () = assert!(
+    N_JOBACK + super::tb_features::NEW_GROUPS.len() + super::tb_features::CORRECTIONS.len()
+        == N_TERMS
+);
+
+/// The three id lists end to end (each id is written once, where its kind is defined).
+const fn join(
+    a: &[&'static str],
+    b: &[&'static str],
+    c: &[&'static str],
+) -> [&'static str; N_TERMS] {
+    let mut out = [""; N_TERMS];
+    let mut n = 0;
+    let mut i = 0;
+    while i < a.len() {
+        out[n] = a[i];
+        (n, i) = (n + 1, i + 1);
+    }
+    let mut i = 0;
+    while i < b.len() {
+        out[n] = b[i];
+        (n, i) = (n + 1, i + 1);
+    }
+    let mut i = 0;
+    while i < c.len() {
+        out[n] = c[i];
+        (n, i) = (n + 1, i + 1);
+    }
+    out
+}
 
 /// First index of the corrections.
 pub const FIRST_CORRECTION: usize = N_JOBACK + 3;
