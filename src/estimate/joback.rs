@@ -47,11 +47,95 @@ pub fn sums(groups: &GroupCounts) -> GroupSums {
 
 /// [`sums`] over counts by index (the Joback groups among them, in the same order).
 pub fn sums_counts(c: &TermCounts) -> GroupSums {
-    let t = table();
-    sums_over(
-        c.iter_sorted()
-            .filter_map(|(i, n)| Some((t.get(i).filter(|_| i < N_JOBACK)?, n))),
-    )
+    // The same additions as `sums_over`, in the same order, over a dense table: a missing
+    // contribution is NaN, which stays NaN through the sum as `None` stays `None` there
+    // (the contributions are finite, so no sum turns NaN otherwise).
+    let d = dense();
+    let mut s = [0.0f64; 14];
+    let mut atoms = (0u32, 0u32);
+    for &i in SORTED_JOBACK.iter() {
+        let count = c.0[i as usize];
+        if count == 0 {
+            continue;
+        }
+        let n = count as f64;
+        let row = &d.values[i as usize];
+        for k in 0..14 {
+            s[k] += n * row[k];
+        }
+        let a = d.atoms[i as usize];
+        atoms.0 += count * a.0;
+        atoms.1 += count * a.1;
+    }
+    let v = |k: usize| Some(s[k]).filter(|x| !x.is_nan());
+    GroupSums {
+        tc: v(0),
+        pc: v(1),
+        vc: v(2),
+        tb: v(3),
+        tm: v(4),
+        hform: v(5),
+        gform: v(6),
+        cp: [v(7), v(8), v(9), v(10)],
+        hfus: v(11),
+        hvap: v(12),
+        atoms,
+    }
+}
+
+/// The Joback groups' term indices in [`crate::estimate::terms::SORTED`] order (the order
+/// `sums_over` adds a map's groups in).
+const SORTED_JOBACK: [u8; N_JOBACK] = {
+    let mut out = [0u8; N_JOBACK];
+    let (mut i, mut k) = (0, 0);
+    while i < crate::estimate::terms::SORTED.len() {
+        let t = crate::estimate::terms::SORTED[i];
+        if (t as usize) < N_JOBACK {
+            out[k] = t;
+            k += 1;
+        }
+        i += 1;
+    }
+    assert!(k == N_JOBACK);
+    out
+};
+
+/// The table's contributions by term index, NaN where none is published (order of
+/// [`GroupSums`]' fields: tc, pc, vc, tb, tm, hform, gform, cp a–d, hfus, hvap; one spare).
+struct Dense {
+    values: [[f64; 14]; N_JOBACK],
+    atoms: [(u32, u32); N_JOBACK],
+}
+
+fn dense() -> &'static Dense {
+    static D: std::sync::OnceLock<Dense> = std::sync::OnceLock::new();
+    D.get_or_init(|| {
+        let mut d = Dense {
+            values: [[0.0; 14]; N_JOBACK],
+            atoms: [(0, 0); N_JOBACK],
+        };
+        for (i, g) in table().iter().enumerate().take(N_JOBACK) {
+            let x = |v: Option<f64>| v.unwrap_or(f64::NAN);
+            d.values[i] = [
+                x(g.tc),
+                x(g.pc),
+                x(g.vc),
+                x(g.tb),
+                x(g.tm),
+                x(g.hform),
+                x(g.gform),
+                x(g.cp[0]),
+                x(g.cp[1]),
+                x(g.cp[2]),
+                x(g.cp[3]),
+                x(g.hfus),
+                x(g.hvap),
+                0.0,
+            ];
+            d.atoms[i] = g.atoms;
+        }
+        d
+    })
 }
 
 fn sums_over<'a>(groups: impl Iterator<Item = (&'a Group, u32)>) -> GroupSums {
@@ -177,6 +261,34 @@ mod tests {
         assert!((tb_k(s.tb.unwrap()) - 321.91).abs() < 1e-9);
         // C3H6O: three carbons and the oxygen are heavy atoms, six hydrogens.
         assert_eq!(s.atoms, (4, 6));
+    }
+
+    /// The dense sums by index equal the sums over the map, bit for bit, for every group
+    /// alone, with missing contributions (None), and for seeded mixtures of groups.
+    #[test]
+    fn sums_by_index_equal_sums_over_the_map() {
+        let ids: Vec<&str> = table().iter().map(|g| g.id.as_str()).collect();
+        let mut cases: Vec<GroupCounts> = ids.iter().map(|id| counts(&[(id, 3)])).collect();
+        let mut x: u64 = 0x9E37_79B9_7F4A_7C15;
+        for _ in 0..2000 {
+            let mut c = GroupCounts::new();
+            for _ in 0..6 {
+                x ^= x << 13;
+                x ^= x >> 7;
+                x ^= x << 17;
+                let id = ids[(x % ids.len() as u64) as usize];
+                *c.entry(id.to_string()).or_insert(0) += 1 + (x >> 40) as u32 % 5;
+            }
+            cases.push(c);
+        }
+        let mut with_none = 0;
+        for c in &cases {
+            let by_map = sums(c);
+            let by_index = sums_counts(&TermCounts::from_map(c).unwrap());
+            assert_eq!(format!("{by_map:?}"), format!("{by_index:?}"), "{c:?}");
+            with_none += usize::from(by_map.tb.is_none() || by_map.hfus.is_none());
+        }
+        assert!(with_none > 0);
     }
 
     // Every Joback property equation for acetone (2 × −CH3, 1 × >C=O non-ring), with the

@@ -291,8 +291,6 @@ pub struct Numbers {
     pub tb_joback_k: Option<f64>,
     /// Which variant `tb_k` is.
     pub tb_variant: TbVariant,
-    /// Every variant's boiling point, K, in [`TbVariant::ALL`] order.
-    pub tb_variants: [Option<f64>; 6],
     /// Bit set over term indices of the shipped model's terms outside the calibration.
     outside: u64,
     /// The shipped model (index into the committed models), if any.
@@ -340,24 +338,44 @@ impl Numbers {
     }
 }
 
-fn numbers(r: &Raw) -> Numbers {
-    let cal = calibration();
+/// Every variant's boiling point, K, in [`TbVariant::ALL`] order (what
+/// [`Estimate::tb_variants`] lists; the CSV path needs only the shipped one).
+fn variants(r: &Raw) -> [Option<f64>; 6] {
     let mut variants = [None; 6];
     let slot = |v: TbVariant| TbVariant::ALL.iter().position(|&x| x == v).unwrap_or(0);
     if let Some(j) = r.tb_joback_k {
         variants[slot(TbVariant::Joback)] = Some(j);
         variants[slot(TbVariant::SteinBrown)] = Some(stein_brown::corrected_tb_k(j));
     }
-    let mut shipped = None;
     let (extended, published) = (r.terms.present(), r.terms.published().present());
     let new_groups = r.terms.new_groups();
-    for (k, m) in tb_model::indexed_models().iter().enumerate() {
+    for m in tb_model::indexed_models() {
         let p = m.predict_present(&extended, &published, new_groups);
         if p.tb_k.is_finite() {
             variants[slot(m.model.variant)] = Some(p.tb_k);
-            if m.model.variant == cal.variant {
-                shipped = Some((k, p));
-            }
+        }
+    }
+    variants
+}
+
+fn numbers(r: &Raw) -> Numbers {
+    let cal = calibration();
+    let mut shipped = None;
+    let new_groups = r.terms.new_groups();
+    // only the shipped variant's model is evaluated (the others are for `variants`)
+    for (k, m) in tb_model::indexed_models().iter().enumerate() {
+        if m.model.variant != cal.variant {
+            continue;
+        }
+        // the model reads the extended or the published terms, by its variant
+        let terms = if m.model.variant.extended() {
+            r.terms.present()
+        } else {
+            r.terms.published().present()
+        };
+        let p = m.predict_present(&terms, &terms, new_groups);
+        if p.tb_k.is_finite() {
+            shipped = Some((k, p));
         }
     }
     // Without a committed model (or outside its domain) the published value ships.
@@ -404,7 +422,6 @@ fn numbers(r: &Raw) -> Numbers {
         half_width_k: hw,
         tb_joback_k: r.tb_joback_k,
         tb_variant: variant,
-        tb_variants: variants,
         outside,
         shipped: shipped.map(|(k, _)| k),
         tm_k: s.tm.map(joback::tm_k),
@@ -517,7 +534,7 @@ fn finish(r: Raw, smiles: Option<String>, formula: Option<String>) -> Estimate {
         tb_variant: n.tb_variant,
         tb_variants: TbVariant::ALL
             .iter()
-            .zip(n.tb_variants)
+            .zip(variants(&r))
             .filter_map(|(v, t)| Some((v.name(), t?)))
             .collect(),
         family: r.family,

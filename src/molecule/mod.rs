@@ -219,6 +219,16 @@ pub fn push_count(out: &mut String, mut n: u32) {
     }
 }
 
+/// A formula's charge suffix: nothing for 0, `+`, `-`, `+2`, `-3`, ...
+fn push_charge(out: &mut String, q: i32) {
+    if q != 0 {
+        out.push(if q > 0 { '+' } else { '-' });
+        if q.unsigned_abs() > 1 {
+            push_count(out, q.unsigned_abs());
+        }
+    }
+}
+
 /// Every atom's (neighbour, bond index) list in one flat array (two allocations per
 /// molecule instead of one per atom); `adj[i]` is atom `i`'s slice, in bond order.
 #[derive(Debug, Clone, PartialEq)]
@@ -400,7 +410,59 @@ impl Molecule {
 
     /// Appends [`Molecule::formula`] to `out` (no text of its own built).
     pub fn write_formula(&self, out: &mut String) {
-        use std::fmt::Write as _;
+        // The elements present and their counts in a short list (a molecule has few);
+        // more than it holds go the way of [`Molecule::write_formula_by_number`].
+        const MOST: usize = 12;
+        let mut els = [(Element::H, 0u32); MOST];
+        let (mut k, mut h, mut q) = (0, 0u32, 0i32);
+        for a in &self.atoms {
+            h += a.hydrogens as u32;
+            q += a.charge as i32;
+            if a.element == Element::H {
+                h += 1;
+                continue;
+            }
+            match els[..k].iter_mut().find(|e| e.0 == a.element) {
+                Some(e) => e.1 += 1,
+                None if k < MOST => {
+                    els[k] = (a.element, 1);
+                    k += 1;
+                }
+                None => return self.write_formula_by_number(out),
+            }
+        }
+        let mut push = |sym: &str, n: u32| {
+            out.push_str(sym);
+            if n > 1 {
+                push_count(out, n);
+            }
+        };
+        let carbon = els[..k].iter().position(|e| e.0 == Element::C);
+        if let Some(c) = carbon {
+            push("C", els[c].1);
+            if h > 0 {
+                push("H", h);
+            }
+            els.swap(c, k - 1);
+            k -= 1;
+        } else if h > 0 {
+            // without carbon, hydrogen takes its alphabetical place
+            if k == MOST {
+                return self.write_formula_by_number(out);
+            }
+            els[k] = (Element::H, h);
+            k += 1;
+        }
+        let rest = &mut els[..k];
+        rest.sort_unstable_by_key(|e| e.0.symbol());
+        for e in rest.iter() {
+            push(e.0.symbol(), e.1);
+        }
+        push_charge(out, q);
+    }
+
+    /// [`Molecule::write_formula`] from counts by atomic number (any number of elements).
+    fn write_formula_by_number(&self, out: &mut String) {
         let counts = self.counts_by_number();
         let mut push = |sym: &str, n: u32| {
             out.push_str(sym);
@@ -429,13 +491,7 @@ impl Molecule {
         for e in rest.iter() {
             push(e.symbol(), counts[e.number() as usize]);
         }
-        let q = self.net_charge();
-        if q != 0 {
-            out.push(if q > 0 { '+' } else { '-' });
-            if q.abs() > 1 {
-                let _ = write!(out, "{}", q.abs());
-            }
-        }
+        push_charge(out, self.net_charge());
     }
 
     /// Whether any atom is of element `e` (hydrogens on atoms count as H).
@@ -491,6 +547,42 @@ mod tests {
         }
         for s in ["C1CC1", "C12CC1C2", "C1.C1", "C(CC1)C1", "C1CC2CC1C2"] {
             assert!(parse_smiles(s).is_ok(), "{s}");
+        }
+    }
+
+    /// The short-list formula and the one from counts by atomic number agree, with and
+    /// without carbon, with hydrogen atoms, charges and more elements than the list holds.
+    #[test]
+    fn formula_from_the_short_list_matches_the_counts() {
+        for s in [
+            "CCO",
+            "C",
+            "[H][H]",
+            "[H]C([H])([H])O",
+            "O",
+            "N#N",
+            "ClCCl",
+            "CC(=O)[O-]",
+            "[NH4+]",
+            "[O-][O-]",
+            "[Fe+3]",
+            "[13CH4]",
+            "*C",
+            "BrC(Cl)(F)I",
+            "OS(=O)(=O)O",
+            "[Na+].[Cl-]",
+            "[Si](Cl)(Cl)(Br)I.[Li]F.[K]Br.[Na]P(=O)(O)O.[Se].[Ge].[B]",
+            "[Li][Be][B][Na][Mg][Al][Si][K][Ca][Sc][Ti][V][Cr][Mn]",
+            "C[Li][Be][B][Na][Mg][Al][Si][K][Ca][Sc][Ti][V][Cr][Mn]",
+            "[Li][Be][B][Na][Mg][Al][Si][K][Ca][Sc][Ti][V]",
+            "[Li][Be][B][Na][Mg][Al][Si][K][Ca][Sc][Ti][V][H]",
+            "c1ccccc1[N+](=O)[O-]",
+        ] {
+            let m = parse_smiles(s).unwrap();
+            let (mut fast, mut full) = (String::new(), String::new());
+            m.write_formula(&mut fast);
+            m.write_formula_by_number(&mut full);
+            assert_eq!(fast, full, "{s}");
         }
     }
 

@@ -43,16 +43,23 @@ fn push_scaled(out: &mut Vec<u8>, negative: bool, mut n: u64, digits: usize) {
     // at most 20 digits of n, a point and leading zeros up to digits + 1 figures
     let mut buf = [b'0'; 32];
     let mut i = buf.len();
-    let mut written = 0;
-    while n > 0 || written <= digits {
-        if written == digits && digits > 0 {
+    // the decimals (zeros where n has fewer figures), then the whole part (one figure at least)
+    if digits > 0 {
+        for _ in 0..digits {
             i -= 1;
-            buf[i] = b'.';
+            buf[i] = b'0' + (n % 10) as u8;
+            n /= 10;
         }
+        i -= 1;
+        buf[i] = b'.';
+    }
+    loop {
         i -= 1;
         buf[i] = b'0' + (n % 10) as u8;
         n /= 10;
-        written += 1;
+        if n == 0 {
+            break;
+        }
     }
     if negative {
         i -= 1;
