@@ -15,23 +15,24 @@ use super::{BondOrder, Molecule};
 /// Largest number of branch points tried before giving up on a Kekulé form.
 const BRANCH_BUDGET: usize = 20_000;
 
-/// Whether aromatic atom `i` needs one double bond inside its aromatic system.
+/// Whether aromatic atom `i` needs one double bond inside its aromatic system (what
+/// [`kekulize`] finds for every atom at once from the bond list).
+#[cfg(test)]
 fn needs_pi(m: &Molecule, i: usize) -> bool {
-    let a = &m.atoms[i];
     let mut sum = 0u32;
     for &(_, k) in &m.adj[i] {
-        let b = &m.bonds[k];
-        match b.order {
-            BondOrder::Aromatic => sum += 1,
-            o => {
-                if o != BondOrder::Single {
-                    // An exocyclic double bond (pyridone C=O) already gives the π bond.
-                    return false;
-                }
-                sum += 1
-            }
+        match m.bonds[k].order {
+            BondOrder::Aromatic | BondOrder::Single => sum += 1,
+            // An exocyclic double bond (pyridone C=O) already gives the π bond.
+            _ => return false,
         }
     }
+    needs_pi_with(&m.atoms[i], sum)
+}
+
+/// [`needs_pi`] for atom `a` with `single` single or aromatic bonds and no other bond.
+fn needs_pi_with(a: &super::Atom, single: u32) -> bool {
+    let sum = single;
     if !a.bracket {
         let lowest = a.element.organic_valences().first().copied().unwrap_or(0) as u32;
         return sum < lowest;
@@ -67,6 +68,8 @@ pub(super) fn kekulize(m: &mut Molecule) -> Result<(), (K, usize)> {
 #[derive(Default)]
 struct Work {
     need: Vec<bool>,
+    /// Per atom: single or aromatic bonds, and whether it has any other bond.
+    single: Vec<(u32, bool)>,
     greedy: Greedy,
 }
 
@@ -76,9 +79,21 @@ thread_local! {
 
 fn kekulize_with(m: &mut Molecule, w: &mut Work) -> Result<(), (K, usize)> {
     let n = m.atoms.len();
+    // what `needs_pi` finds atom by atom, from one pass over the bonds
+    w.single.clear();
+    w.single.resize(n, (0, false));
+    for b in &m.bonds {
+        for x in [b.a, b.b] {
+            match b.order {
+                BondOrder::Aromatic | BondOrder::Single => w.single[x].0 += 1,
+                _ => w.single[x].1 = true,
+            }
+        }
+    }
     w.need.clear();
-    w.need
-        .extend((0..n).map(|i| m.atoms[i].aromatic && needs_pi(m, i)));
+    w.need.extend(m.atoms.iter().zip(&w.single).map(|(a, &(single, other))| {
+        a.aromatic && !other && needs_pi_with(a, single)
+    }));
     let need = &w.need[..];
     // Candidate edges: aromatic bonds between two atoms that both need a π bond.
     let cand = |m: &Molecule, k: usize| {
@@ -176,41 +191,60 @@ fn greedy_matching(m: &Molecule, need: &[bool], w: &mut Greedy) -> bool {
     greedy_partners(m, need, w).is_some()
 }
 
-/// The quick matching's partners, free-candidate counts and forced atoms.
+/// The quick matching's partners, free-candidate counts and forced atoms, and each atom's
+/// candidate partners (aromatic bonds to another atom that needs a π bond).
 #[derive(Default)]
 struct Greedy {
     partner: Vec<usize>,
     avail: Vec<u32>,
     forced: Vec<usize>,
+    /// Atom `i`'s candidates are `cand[start[i]..start[i + 1]]`, in bond order (the
+    /// order of its neighbours).
+    start: Vec<u32>,
+    cand: Vec<u32>,
 }
 
 fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
     let n = m.atoms.len();
-    let free_cands = |i: usize, partner: &[usize]| {
-        m.adj[i]
-            .iter()
-            .filter(|&&(j, k)| {
-                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
-            })
-            .count()
-    };
-    let first_free = |i: usize, partner: &[usize]| {
-        m.adj[i]
-            .iter()
-            .find(|&&(j, k)| {
-                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
-            })
-            .map(|&(j, _)| j)
-    };
     let (partner, avail, forced) = (&mut w.partner, &mut w.avail, &mut w.forced);
+    let (start, cand) = (&mut w.start, &mut w.cand);
+    // the candidate lists, as `Adjacency::fill` lists neighbours
+    start.clear();
+    start.resize(n + 1, 0);
+    let is_cand = |b: &super::Bond| b.order == BondOrder::Aromatic && need[b.a] && need[b.b];
+    for b in m.bonds.iter().filter(|b| is_cand(b)) {
+        start[b.a + 1] += 1;
+        start[b.b + 1] += 1;
+    }
+    // free candidates left to each atom that needs a π bond (all free at first)
+    avail.clear();
+    avail.extend(start[1..].iter().copied());
+    for i in 0..n {
+        start[i + 1] += start[i];
+    }
+    cand.clear();
+    cand.resize(start[n] as usize, 0);
+    for b in m.bonds.iter().filter(|b| is_cand(b)) {
+        cand[start[b.a] as usize] = b.b as u32;
+        start[b.a] += 1;
+        cand[start[b.b] as usize] = b.a as u32;
+        start[b.b] += 1;
+    }
+    for i in (1..=n).rev() {
+        start[i] = start[i - 1];
+    }
+    start[0] = 0;
+    let list = |i: usize| &cand[start[i] as usize..start[i + 1] as usize];
+    let first_free = |i: usize, partner: &[usize]| {
+        list(i)
+            .iter()
+            .find(|&&j| partner[j as usize] == usize::MAX)
+            .map(|&j| j as usize)
+    };
     partner.clear();
     partner.resize(n, usize::MAX);
-    // free candidates left to each atom that needs a π bond
-    avail.clear();
-    avail.resize(n, 0);
     forced.clear();
     for i in (0..n).filter(|&i| need[i]) {
-        avail[i] = free_cands(i, partner) as u32;
         match avail[i] {
             0 => return None,
             1 => forced.push(i),
@@ -237,8 +271,9 @@ fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
         partner[i] = j;
         partner[j] = i;
         for x in [i, j] {
-            for &(y, k) in &m.adj[x] {
-                if m.bonds[k].order == BondOrder::Aromatic && need[y] && partner[y] == usize::MAX {
+            for &y in list(x) {
+                let y = y as usize;
+                if partner[y] == usize::MAX {
                     avail[y] -= 1;
                     match avail[y] {
                         0 => return None,
@@ -251,34 +286,58 @@ fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
     }
 }
 
-/// Fill in implicit hydrogens of organic-subset atoms from their Kekulé bond orders.
+/// Fill in implicit hydrogens of organic-subset atoms from their Kekulé bond orders, and
+/// each atom's heavy degree and total hydrogens (`m.tally`): sums over the bond list in
+/// one pass instead of over each atom's neighbours.
 pub(super) fn implicit_hydrogens(m: &mut Molecule) -> Result<(), (K, usize)> {
-    for i in 0..m.atoms.len() {
-        if m.atoms[i].bracket {
-            continue;
-        }
-        let valences = m.atoms[i].element.organic_valences();
-        if valences.is_empty() {
-            continue; // the wildcard atom
-        }
-        let sum: u32 = m.adj[i]
-            .iter()
-            .map(|&(_, k)| m.bonds[k].kekule_order as u32)
-            .sum();
-        match valences.iter().find(|&&v| v as u32 >= sum) {
-            Some(&v) => m.atoms[i].hydrogens = (v as u32 - sum) as u8,
-            None => {
-                return Err((
-                    K::Valence {
-                        element: m.atoms[i].element.name(),
-                        bonds: sum,
-                    },
-                    m.atoms[i].position,
-                ))
+    let n = m.atoms.len();
+    // per atom: Kekulé bond orders, heavy neighbours, hydrogen-atom neighbours
+    let mut sums = SUMS.take();
+    sums.clear();
+    sums.resize(n, (0, 0, 0));
+    for b in &m.bonds {
+        let order = b.kekule_order as u32;
+        let h = |x: usize| m.atoms[x].element == super::Element::H;
+        let (ha, hb) = (h(b.a), h(b.b));
+        for (x, other_h) in [(b.a, hb), (b.b, ha)] {
+            let s = &mut sums[x];
+            s.0 += order;
+            if other_h {
+                s.2 += 1;
+            } else {
+                s.1 += 1;
             }
         }
     }
-    Ok(())
+    m.tally.clear();
+    let mut done = Ok(());
+    for (a, &(sum, heavy, h_atoms)) in m.atoms.iter_mut().zip(&sums) {
+        let valences = a.element.organic_valences();
+        // bracket atoms keep their written count; the wildcard atom has no valence
+        if !a.bracket && !valences.is_empty() {
+            match valences.iter().find(|&&v| v as u32 >= sum) {
+                Some(&v) => a.hydrogens = (v as u32 - sum) as u8,
+                None => {
+                    done = Err((
+                        K::Valence {
+                            element: a.element.name(),
+                            bonds: sum,
+                        },
+                        a.position,
+                    ));
+                    break;
+                }
+            }
+        }
+        m.tally.push((heavy, h_atoms + a.hydrogens as u32));
+    }
+    SUMS.set(sums);
+    done
+}
+
+thread_local! {
+    /// The bond-order sums of [`implicit_hydrogens`] (storage kept between molecules).
+    static SUMS: std::cell::Cell<Vec<(u32, u32, u32)>> = const { std::cell::Cell::new(Vec::new()) };
 }
 
 #[cfg(test)]

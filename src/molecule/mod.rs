@@ -117,7 +117,7 @@ pub struct Molecule {
     adj: Adjacency,
     components: usize,
     smiles: String,
-    /// Per atom: heavy degree and total hydrogens (computed once the hydrogens are known).
+    /// Per atom: heavy degree and total hydrogens (computed with the implicit hydrogens).
     tally: Vec<(u32, u32)>,
     /// The spanning forest as written and the ring closures (for ring membership).
     tree: parse::Tree,
@@ -182,23 +182,13 @@ pub fn parse_smiles_into(s: &str, m: &mut Molecule) -> Result<(), SmilesError> {
         position: pos,
         input: s.to_string(),
     })?;
+    // the hydrogens and the tally; aromaticity perception changes neither
     kekule::implicit_hydrogens(m).map_err(|(kind, pos)| SmilesError {
         kind,
         position: pos,
         input: s.to_string(),
     })?;
     aromatic::perceive(m);
-    for i in 0..m.atoms.len() {
-        let (mut heavy, mut h) = (0u32, m.atoms[i].hydrogens as u32);
-        for &(j, _) in &m.adj[i] {
-            if m.atoms[j].element == Element::H {
-                h += 1;
-            } else {
-                heavy += 1;
-            }
-        }
-        m.tally.push((heavy, h));
-    }
     Ok(())
 }
 
