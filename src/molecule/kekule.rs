@@ -91,9 +91,12 @@ fn kekulize_with(m: &mut Molecule, w: &mut Work) -> Result<(), (K, usize)> {
         }
     }
     w.need.clear();
-    w.need.extend(m.atoms.iter().zip(&w.single).map(|(a, &(single, other))| {
-        a.aromatic && !other && needs_pi_with(a, single)
-    }));
+    w.need.extend(
+        m.atoms
+            .iter()
+            .zip(&w.single)
+            .map(|(a, &(single, other))| a.aromatic && !other && needs_pi_with(a, single)),
+    );
     let need = &w.need[..];
     // Candidate edges: aromatic bonds between two atoms that both need a π bond.
     let cand = |m: &Molecule, k: usize| {
