@@ -277,53 +277,60 @@ fn csv_rows(
         )
         .at_line(1, Locus::Line));
     }
-    let mut rdr = csv::ReaderBuilder::new()
-        .has_headers(false)
-        .flexible(true)
-        .delimiter(delim)
-        .from_reader(text.as_bytes());
+    records(path, text, opts, headers_only, is_plain(text, delim))
+}
+
+/// The records of a CSV text as [`csv_rows`] reads them: line by line when `plain` (see
+/// [`is_plain`]), else through the csv crate.
+fn records(
+    path: &Path,
+    text: &str,
+    opts: &ReadOptions,
+    headers_only: bool,
+    plain: bool,
+) -> Result<RawTable, ReadError> {
+    let delim = if opts.decimal_comma { b';' } else { b',' };
     let mut headers: Option<Vec<String>> = None;
     let mut rows = RawRows::default();
-    let mut rec = csv::StringRecord::new();
-    loop {
-        match rdr.read_record(&mut rec) {
-            Ok(true) => {}
-            Ok(false) => break,
-            Err(e) => {
-                let line = e.position().map(|p| p.line()).unwrap_or(0);
-                return Err(ReadError::file(
-                    path,
-                    ReadErrorKind::CsvSyntax,
-                    format!("broken CSV: {e}"),
-                )
-                .at_line(line.max(1), Locus::Line));
+    let mut table = (&mut headers, &mut rows);
+    if plain {
+        // No quotes and no carriage returns: a record is a line split at the delimiter
+        // (what the csv crate reads from such a text, blank lines skipped), without the
+        // per-record UTF-8 check of a text that is already a str.
+        for (i, l) in text.split('\n').enumerate() {
+            if l.is_empty() {
+                continue;
+            }
+            let n = memchr::memchr_iter(delim, l.as_bytes()).count() + 1;
+            let cells = l.split(delim as char);
+            if take_record(path, opts, headers_only, &mut table, i as u64 + 1, cells, n)? {
+                break;
             }
         }
-        let line = rec.position().map(|p| p.line()).unwrap_or(0);
-        // Skip blank lines and comment lines starting with '#'.
-        if rec.iter().all(|c| c.trim().is_empty())
-            || rec.get(0).is_some_and(|c| c.trim().starts_with('#'))
-        {
-            continue;
-        }
-        match &headers {
-            None => {
-                headers = Some(rec.iter().map(|c| c.trim().to_string()).collect());
-                if headers_only {
-                    break;
+    } else {
+        let mut rdr = csv::ReaderBuilder::new()
+            .has_headers(false)
+            .flexible(true)
+            .delimiter(delim)
+            .from_reader(text.as_bytes());
+        let mut rec = csv::StringRecord::new();
+        loop {
+            match rdr.read_record(&mut rec) {
+                Ok(true) => {}
+                Ok(false) => break,
+                Err(e) => {
+                    let line = e.position().map(|p| p.line()).unwrap_or(0);
+                    return Err(ReadError::file(
+                        path,
+                        ReadErrorKind::CsvSyntax,
+                        format!("broken CSV: {e}"),
+                    )
+                    .at_line(line.max(1), Locus::Line));
                 }
             }
-            Some(h) => {
-                if rec.len() != h.len() {
-                    return Err(ReadError::ragged(path, line, rec.len(), h.len()));
-                }
-                if opts.decimal_comma {
-                    let cells: Vec<String> =
-                        rec.iter().map(|c| c.trim().replace(',', ".")).collect();
-                    rows.push(line, cells.iter().map(String::as_str));
-                } else {
-                    rows.push(line, rec.iter());
-                }
+            let line = rec.position().map_or(0, |p| record_line(text, p));
+            if take_record(path, opts, headers_only, &mut table, line, rec.iter(), rec.len())? {
+                break;
             }
         }
     }
@@ -333,6 +340,64 @@ fn csv_rows(
         rows,
         locus: Locus::Line,
     })
+}
+
+/// A CSV text whose records are its lines split at the delimiter: no quote character (so no
+/// quoted field) and no carriage return (so every record ends at a '\n', the byte the csv
+/// crate counts lines by). Decimal-comma files take the general reader.
+fn is_plain(text: &str, delim: u8) -> bool {
+    delim == b',' && memchr::memchr2(b'"', b'\r', text.as_bytes()).is_none()
+}
+
+/// The line a record of the csv crate starts on: the crate gives the position where it began
+/// looking for it, before any blank lines it skipped, so those are counted here.
+fn record_line(text: &str, p: &csv::Position) -> u64 {
+    let at = usize::try_from(p.byte()).unwrap_or(usize::MAX).min(text.len());
+    let blank = text.as_bytes()[at..]
+        .iter()
+        .take_while(|&&b| b == b'\n' || b == b'\r')
+        .filter(|&&b| b == b'\n')
+        .count();
+    p.line() + blank as u64
+}
+
+/// One record of [`csv_rows`] (its `n` cells, untrimmed): skipped when blank or a comment,
+/// else the header or a data row. `Ok(true)` when reading should stop (only the header
+/// was wanted).
+fn take_record<'c>(
+    path: &Path,
+    opts: &ReadOptions,
+    headers_only: bool,
+    (headers, rows): &mut (&mut Option<Vec<String>>, &mut RawRows),
+    line: u64,
+    cells: impl Iterator<Item = &'c str> + Clone,
+    n: usize,
+) -> Result<bool, ReadError> {
+    // Skip blank lines and comment lines starting with '#'.
+    let mut first = cells.clone();
+    if first.next().is_some_and(|c| c.trim().starts_with('#'))
+        || cells.clone().all(|c| c.trim().is_empty())
+    {
+        return Ok(false);
+    }
+    match headers {
+        None => {
+            **headers = Some(cells.map(|c| c.trim().to_string()).collect());
+            Ok(headers_only)
+        }
+        Some(h) => {
+            if n != h.len() {
+                return Err(ReadError::ragged(path, line, n, h.len()));
+            }
+            if opts.decimal_comma {
+                let cells: Vec<String> = cells.map(|c| c.trim().replace(',', ".")).collect();
+                rows.push(line, cells.iter().map(String::as_str));
+            } else {
+                rows.push(line, cells);
+            }
+            Ok(false)
+        }
+    }
 }
 
 #[cfg(feature = "tables")]
@@ -768,6 +833,20 @@ mod tests {
         assert_eq!(e.line, Some(2));
     }
 
+    // After blank lines an error names the row's own line, in plain files and in files the
+    // csv crate reads (quotes, CRLF), whose position is where the blank lines began.
+    #[test]
+    fn errors_after_blank_lines_name_the_row_line() {
+        for text in [
+            "T/K,p/kPa\n300,1\n\n\n310,x\n",
+            "T/K,p/kPa\r\n300,1\r\n\r\n\r\n\"310\",x\r\n",
+            "\"T/K\",p/kPa\n300,1\n\n\n310,x\n",
+        ] {
+            let e = read(text, &ReadOptions::default()).unwrap_err();
+            assert_eq!(e.line, Some(5), "{text:?}: {e}");
+        }
+    }
+
     #[test]
     fn duplicate_rows_are_kept_and_warned() {
         let d = read("T/K,p/kPa\n300,1\n300,1\n310,2\n", &ReadOptions::default()).unwrap();
@@ -787,6 +866,33 @@ mod tests {
         fn arbitrary_csv_text_never_panics(s in "[Tp/Kka,;0-9.\\- \n\"e]{0,120}") {
             let _ = read(&s, &ReadOptions::default());
             let _ = read(&s, &ReadOptions { decimal_comma: true, ..Default::default() });
+        }
+
+        // The line-by-line reader of plain texts gives what the csv crate gives: the same
+        // headings, rows, cells, lines and errors (blank, comment, ragged and spaced lines).
+        #[test]
+        fn plain_texts_read_as_the_csv_crate_reads_them(
+            s in "[Tp/K#,; 0-9.a\n]{0,160}",
+            headers_only in any::<bool>(),
+        ) {
+            let path = Path::new("p.csv");
+            let opts = ReadOptions::default();
+            prop_assume!(is_plain(&s, b','));
+            let show = |r: Result<RawTable, ReadError>| match r {
+                Ok(t) => {
+                    let rows: Vec<(u64, Vec<String>)> = t
+                        .rows
+                        .into_iter()
+                        .map(|r| (r.line, r.cells().map(str::to_string).collect()))
+                        .collect();
+                    format!("{:?} {rows:?}", t.headers)
+                }
+                Err(e) => e.to_string(),
+            };
+            prop_assert_eq!(
+                show(records(path, &s, &opts, headers_only, true)),
+                show(records(path, &s, &opts, headers_only, false))
+            );
         }
 
         // Round trip: values written in a random unit read back in SI within
