@@ -64,18 +64,34 @@ pub fn tidy(x: f64) -> f64 {
     if !x.is_finite() || x == 0.0 {
         return x;
     }
+    if let Some((m, k)) = tidy_parts(x) {
+        return m / POW10[k];
+    }
     if let Some(e) = decimal_exponent(x.abs()) {
         // 10^|k| ≤ 10^21 is exact, as 10f64.powi(|k|) below is: the same arithmetic.
-        let k = TIDY_DIGITS - 1 - e;
-        return if k >= 0 {
-            let s = POW10[k as usize];
-            (x * s).round() / s
-        } else {
-            let s = POW10[(-k) as usize];
-            (x / s).round() * s
-        };
+        let s = POW10[(e + 1 - TIDY_DIGITS) as usize];
+        return (x / s).round() * s;
     }
     tidy_by_log(x)
+}
+
+/// [`tidy`]`(x)` as `m / 10^k` (`m` a whole number of at most 13 digits, `0 ≤ k ≤ 22`), the
+/// very division `tidy` ends with, for finite non-zero `x` below 10^12 in magnitude whose
+/// decimal exponent the table settles; `None` for the others. A writer can take the
+/// digits from `m` instead of searching for the shortest spelling of the result.
+///
+/// ```
+/// let (m, k) = ebullio::units::tidy_parts(80.05 + 273.15).unwrap();
+/// assert_eq!((m, k), (353_200_000_000.0, 9));
+/// assert_eq!(m / 10f64.powi(k as i32), ebullio::units::tidy(80.05 + 273.15));
+/// ```
+pub fn tidy_parts(x: f64) -> Option<(f64, usize)> {
+    if !x.is_finite() || x == 0.0 {
+        return None;
+    }
+    let k = TIDY_DIGITS - 1 - decimal_exponent(x.abs())?;
+    let k = usize::try_from(k).ok()?;
+    Some(((x * POW10[k]).round(), k))
 }
 
 /// 10^0 … 10^22, each exact in a double.

@@ -73,8 +73,59 @@ pub fn cell(v: Option<f64>) -> String {
 /// [`cell`] appended to `out`: no allocation of its own (the batch writers' form).
 pub fn push_cell(out: &mut String, v: Option<f64>) {
     if let Some(v) = v.filter(|v| v.is_finite()) {
-        push_plain(out, crate::units::tidy(v));
+        if !push_tidy_digits(out, v) {
+            push_plain(out, crate::units::tidy(v));
+        }
     }
+}
+
+/// `tidy(x)` as [`push_plain`] writes it, from the whole number `tidy` rounds to
+/// ([`crate::units::tidy_parts`]): its digits are the shortest spelling of the result, as no
+/// other decimal of 13 digits or fewer lies within a rounding of it. `false` (nothing
+/// written) where `tidy` takes another route.
+fn push_tidy_digits(out: &mut String, x: f64) -> bool {
+    let Some((m, k)) = crate::units::tidy_parts(x) else {
+        return false;
+    };
+    if m == 0.0 || m.abs() >= 1e13 {
+        return false;
+    }
+    let mut n = m.abs() as u64;
+    let mut k = k as i64;
+    while n % 10 == 0 && n > 0 {
+        n /= 10;
+        k -= 1;
+    }
+    let mut buf = [0u8; 20];
+    let mut len = 0;
+    while n > 0 {
+        buf[len] = b'0' + (n % 10) as u8;
+        n /= 10;
+        len += 1;
+    }
+    let digits = &mut buf[..len];
+    digits.reverse();
+    // the value is digits × 10^(−k): `point` digits stand before the decimal point
+    let point = len as i64 - k;
+    if m < 0.0 {
+        out.push('-');
+    }
+    // ASCII digits, so always UTF-8
+    let text = |d| std::str::from_utf8(d).unwrap_or_default();
+    if point <= 0 {
+        out.push_str("0.");
+        out.extend(std::iter::repeat_n('0', (-point) as usize));
+        out.push_str(text(digits));
+    } else if point >= len as i64 {
+        out.push_str(text(digits));
+        out.extend(std::iter::repeat_n('0', (point - len as i64) as usize));
+    } else {
+        let (int, frac) = digits.split_at(point as usize);
+        out.push_str(text(int));
+        out.push('.');
+        out.push_str(text(frac));
+    }
+    true
 }
 
 /// `x` (finite) as the standard library's `{}` writes it: the shortest digits that read
@@ -243,6 +294,21 @@ mod plain_tests {
             let x = f64::from_bits(bits);
             prop_assume!(x.is_finite());
             prop_assert_eq!(plain(x), format!("{}", x));
+        }
+
+        // A cell's digits from tidy's whole number are what `{}` writes of tidy's result.
+        #[test]
+        fn cell_digits_match_display_of_the_tidy_value(
+            m in -1e13f64..1e13,
+            e in -25i32..25,
+            bits in any::<u64>(),
+        ) {
+            for x in [m * 10f64.powi(e), f64::from_bits(bits)] {
+                prop_assume!(x.is_finite());
+                let mut s = String::new();
+                crate::report::text::push_cell(&mut s, Some(x));
+                prop_assert_eq!(s, format!("{}", crate::units::tidy(x)));
+            }
         }
 
         #[test]
