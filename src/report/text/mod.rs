@@ -96,35 +96,40 @@ fn push_tidy_digits(out: &mut String, x: f64) -> bool {
         n /= 10;
         k -= 1;
     }
-    let mut buf = [0u8; 20];
+    // Digits from the right into a buffer with room for "-0." and 22 leading zeros.
+    let mut buf = [b'0'; 48];
     let mut len = 0;
     while n > 0 {
-        buf[len] = b'0' + (n % 10) as u8;
+        buf[47 - len] = b'0' + (n % 10) as u8;
         n /= 10;
         len += 1;
     }
-    let digits = &mut buf[..len];
-    digits.reverse();
     // the value is digits × 10^(−k): `point` digits stand before the decimal point
     let point = len as i64 - k;
-    if m < 0.0 {
-        out.push('-');
-    }
-    // ASCII digits, so always UTF-8
-    let text = |d| std::str::from_utf8(d).unwrap_or_default();
+    let mut at = 48 - len;
     if point <= 0 {
-        out.push_str("0.");
-        out.extend(std::iter::repeat_n('0', (-point) as usize));
-        out.push_str(text(digits));
+        // "0." and −point zeros before the digits (the buffer's zeros)
+        at -= (-point) as usize;
+        buf[at - 1] = b'.';
+        at -= 2; // buf[at] stays '0'
     } else if point >= len as i64 {
-        out.push_str(text(digits));
-        out.extend(std::iter::repeat_n('0', (point - len as i64) as usize));
+        // a whole number: the digits moved left, zeros after them
+        let zeros = (point - len as i64) as usize;
+        buf.copy_within(at..48, at - zeros);
+        at -= zeros;
+        buf[48 - zeros..].fill(b'0');
     } else {
-        let (int, frac) = digits.split_at(point as usize);
-        out.push_str(text(int));
-        out.push('.');
-        out.push_str(text(frac));
+        let p = at + point as usize;
+        buf.copy_within(at..p, at - 1);
+        at -= 1;
+        buf[p - 1] = b'.';
     }
+    if m < 0.0 {
+        at -= 1;
+        buf[at] = b'-';
+    }
+    // ASCII, so always UTF-8
+    out.push_str(std::str::from_utf8(&buf[at..]).unwrap_or_default());
     true
 }
 
