@@ -172,7 +172,11 @@ impl<'a> RawRow<'a> {
         if self.n == 0 {
             return "";
         }
-        let start = if self.first == 0 { 0 } else { self.rows.ends[self.first - 1] };
+        let start = if self.first == 0 {
+            0
+        } else {
+            self.rows.ends[self.first - 1]
+        };
         &self.rows.text[start..self.rows.ends[self.first + self.n - 1]]
     }
     fn cells(&self) -> impl Iterator<Item = &'a str> + '_ {
@@ -315,7 +319,10 @@ fn records(
                 continue;
             }
             let n = l.bytes().filter(|&b| b == delim).count() + 1;
-            let cells = Cells { rest: Some(l), delim };
+            let cells = Cells {
+                rest: Some(l),
+                delim,
+            };
             if take_record(path, opts, headers_only, &mut table, i as u64 + 1, cells, n)? {
                 break;
             }
@@ -342,7 +349,15 @@ fn records(
                 }
             }
             let line = rec.position().map_or(0, |p| record_line(text, p));
-            if take_record(path, opts, headers_only, &mut table, line, rec.iter(), rec.len())? {
+            if take_record(
+                path,
+                opts,
+                headers_only,
+                &mut table,
+                line,
+                rec.iter(),
+                rec.len(),
+            )? {
                 break;
             }
         }
@@ -365,7 +380,9 @@ fn is_plain(text: &str, delim: u8) -> bool {
 /// The line a record of the csv crate starts on: the crate gives the position where it began
 /// looking for it, before any blank lines it skipped, so those are counted here.
 fn record_line(text: &str, p: &csv::Position) -> u64 {
-    let at = usize::try_from(p.byte()).unwrap_or(usize::MAX).min(text.len());
+    let at = usize::try_from(p.byte())
+        .unwrap_or(usize::MAX)
+        .min(text.len());
     let blank = text.as_bytes()[at..]
         .iter()
         .take_while(|&&b| b == b'\n' || b == b'\r')
@@ -584,7 +601,7 @@ pub(crate) fn number(
             "empty cell; expected a number".to_string(),
         ));
     }
-    let v: f64 = cell.parse().map_err(|_| {
+    let v: f64 = super::plain_number::parse_number(cell).ok_or_else(|| {
         let hint = if cell.contains(',') {
             " (a decimal comma? use --decimal-comma with semicolon-separated files)"
         } else {
@@ -906,7 +923,10 @@ mod tests {
         assert_eq!(d.warnings[0].line, 3);
         // the same characters split differently are different rows
         let text = "compound,T/K,p/kPa\nx1,300,1\nx,1300,1\nx1,30,01\n";
-        assert!(read(text, &ReadOptions::default()).unwrap().warnings.is_empty());
+        assert!(read(text, &ReadOptions::default())
+            .unwrap()
+            .warnings
+            .is_empty());
     }
 
     proptest! {

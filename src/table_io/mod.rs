@@ -23,6 +23,7 @@ pub mod measured;
 pub mod non_finite;
 #[cfg(feature = "tables")]
 pub mod parquet;
+mod plain_number;
 #[cfg(feature = "tables")]
 pub mod property_table;
 pub mod source;
