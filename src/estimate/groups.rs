@@ -208,6 +208,8 @@ fn first_two(it: impl Iterator<Item = usize>) -> (usize, [usize; 2]) {
 struct Work {
     used: Vec<bool>,
     s_oxo: Vec<usize>,
+    /// Per atom: double, triple (a quadruple counting two) and aromatic bonds to heavy atoms.
+    orders: Vec<[i32; 3]>,
 }
 
 thread_local! {
@@ -239,11 +241,32 @@ fn assign_with(
     used.resize(n, false);
     let mut add = |id: usize| out.add(id);
     let el = |i: usize| atoms[i].element;
+    // every atom's bond orders to heavy atoms, from one pass over the bonds (the atom
+    // passes below look at an atom's neighbours only when its orders allow a match)
+    let orders = &mut w.orders;
+    orders.clear();
+    orders.resize(n, [0; 3]);
+    for b in m.bonds() {
+        let (slot, by) = match b.order {
+            BondOrder::Single => continue,
+            BondOrder::Double => (0, 1),
+            BondOrder::Triple => (1, 1),
+            BondOrder::Quadruple => (1, 2),
+            BondOrder::Aromatic => (2, 1),
+        };
+        if el(b.b) != Element::H {
+            orders[b.a][slot] += by;
+        }
+        if el(b.a) != Element::H {
+            orders[b.b][slot] += by;
+        }
+    }
+    let orders = &w.orders[..];
     // Charged atoms other than the nitro pattern are refused below.
     // 1. Nitro: N with two terminal O (N+ with =O and O-, or N(=O)=O).
     for i in 0..n {
         // a nitro N has three heavy neighbours (checked first: no other N is one)
-        if el(i) != Element::N || used[i] || m.heavy_degree(i) != 3 {
+        if el(i) != Element::N || used[i] || m.heavy_degree(i) != 3 || orders[i][0] == 0 {
             continue;
         }
         let (n_dbl, dbl) = first_two(terminal_o(m, i, BondOrder::Double));
@@ -266,7 +289,7 @@ fn assign_with(
     // 2. Nitrile: C#N with a terminal N.
     for i in 0..n {
         // a nitrile C has two heavy neighbours (checked once per atom, not per neighbour)
-        if el(i) != Element::C || used[i] || m.heavy_degree(i) != 2 {
+        if el(i) != Element::C || used[i] || m.heavy_degree(i) != 2 || orders[i][1] == 0 {
             continue;
         }
         for &(j, k) in m.neighbours(i) {
@@ -285,7 +308,7 @@ fn assign_with(
     }
     // 3. Carbonyl groups: acid, ester, aldehyde, ketone.
     for i in 0..n {
-        if el(i) != Element::C || used[i] || atoms[i].charge != 0 {
+        if el(i) != Element::C || used[i] || atoms[i].charge != 0 || orders[i][0] == 0 {
             continue;
         }
         let Some(o) = terminal_o(m, i, BondOrder::Double).find(|&o| !used[o]) else {
@@ -344,7 +367,7 @@ fn assign_with(
     s_oxo.resize(n, 0);
     if extended {
         for i in 0..n {
-            if el(i) != Element::S || atoms[i].charge != 0 {
+            if el(i) != Element::S || atoms[i].charge != 0 || orders[i][0] == 0 {
                 continue;
             }
             for o in terminal_o(m, i, BondOrder::Double) {
@@ -376,20 +399,7 @@ fn assign_with(
         let h = m.total_hydrogens(i);
         let deg = m.heavy_degree(i);
         let ring = a.in_ring;
-        let (mut double, mut triple) = (0, 0);
-        let mut aromatic_bonds = 0;
-        for &(j, k) in m.neighbours(i) {
-            if el(j) == Element::H {
-                continue;
-            }
-            match m.bonds()[k].order {
-                BondOrder::Single => {}
-                BondOrder::Double => double += 1,
-                BondOrder::Triple => triple += 1,
-                BondOrder::Quadruple => triple += 2,
-                BondOrder::Aromatic => aromatic_bonds += 1,
-            }
-        }
+        let [mut double, triple, aromatic_bonds] = orders[i];
         // An aromatic atom counts as carrying one ring double bond.
         if a.aromatic && aromatic_bonds > 0 && double == 0 && el(i) == Element::C {
             double = 1;

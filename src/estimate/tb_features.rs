@@ -273,46 +273,47 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
         let nb = m.neighbours(i);
         match a.element {
             e if e == Element::C => {
-                let hal = nb
-                    .iter()
-                    .filter(|&&(j, _)| matches!(el(j).number(), 9 | 17 | 35 | 53))
-                    .count();
+                // one walk over the neighbours: halogens, a terminal =O, single-bonded
+                // neutral N (how many, the first), single-bonded O, one of them in a ring
+                let (mut hal, mut oxo, mut o_single, mut ring_ester) = (0, false, 0, false);
+                let (mut n_count, mut first_n) = (0, (0, 0));
+                for &(j, k) in nb {
+                    let b = &m.bonds()[k];
+                    match el(j).number() {
+                        9 | 17 | 35 | 53 => hal += 1,
+                        8 => match b.order {
+                            BondOrder::Double => oxo |= is_terminal_o(j, k),
+                            BondOrder::Single => {
+                                o_single += 1;
+                                ring_ester |= b.in_ring;
+                            }
+                            _ => {}
+                        },
+                        7 if atoms[j].charge == 0 && b.order == BondOrder::Single => {
+                            if n_count == 0 {
+                                first_n = (j, k);
+                            }
+                            n_count += 1;
+                        }
+                        _ => {}
+                    }
+                }
                 if hal >= 2 && m.total_hydrogens(i) == 0 {
                     terms.add(t!("perhalo_c"));
                 }
                 if hal >= 1 && m.total_hydrogens(i) > 0 {
                     terms.add(t!("halo_ch"));
                 }
-                if !nb.iter().any(|&(j, k)| is_terminal_o(j, k)) {
+                if !oxo {
                     continue;
                 }
-                let ns: Vec<(usize, usize)> = nb
-                    .iter()
-                    .filter(|&&(j, k)| {
-                        el(j) == Element::N
-                            && atoms[j].charge == 0
-                            && m.bonds()[k].order == BondOrder::Single
-                    })
-                    .copied()
-                    .collect();
-                let o_single = nb
-                    .iter()
-                    .filter(|&&(j, k)| {
-                        el(j) == Element::O && m.bonds()[k].order == BondOrder::Single
-                    })
-                    .count();
-                let ring_ester = nb.iter().any(|&(j, k)| {
-                    el(j) == Element::O
-                        && m.bonds()[k].order == BondOrder::Single
-                        && m.bonds()[k].in_ring
-                });
-                if ns.is_empty() && ring_ester {
+                if n_count == 0 && ring_ester {
                     terms.add(t!("ester_ring"));
                 }
-                let id = match (ns.len(), o_single) {
+                let id = match (n_count, o_single) {
                     (0, _) => None,
                     (1, 0) => {
-                        let (nn, k) = ns[0];
+                        let (nn, k) = first_n;
                         Some(if m.bonds()[k].in_ring {
                             t!("amide_ring")
                         } else {
@@ -329,8 +330,13 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
                 if let Some(id) = id {
                     terms.add(id);
                     polar += 1;
-                    for (nn, _) in ns {
-                        amide_n[nn] = true;
+                    for &(j, k) in nb {
+                        if el(j) == Element::N
+                            && atoms[j].charge == 0
+                            && m.bonds()[k].order == BondOrder::Single
+                        {
+                            amide_n[j] = true;
+                        }
                     }
                 }
             }
@@ -352,8 +358,19 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
             _ => {}
         }
     }
+    // which of the family's elements occur (what `m.has_element` tells), in the same pass:
+    // fluorine, another halogen, O, N, S
+    let mut has = [false; 5];
     for i in 0..atoms.len() {
         let a = &atoms[i];
+        match a.element.number() {
+            9 => has[0] = true,
+            17 | 35 | 53 => has[1] = true,
+            8 => has[2] = true,
+            7 => has[3] = true,
+            16 => has[4] = true,
+            _ => {}
+        }
         if a.aromatic && (a.element == Element::O || a.element == Element::S) {
             terms.add(t!("arom_o_s"));
         }
@@ -384,19 +401,6 @@ pub(crate) fn feature_counts(m: &Molecule) -> Result<FeatureCounts, EstimateErro
         polar += terms.get(id);
     }
     AMIDE_N.set(amide_n);
-    // which of the family's elements occur, in one pass (what `m.has_element` tells):
-    // fluorine, another halogen, O, N, S
-    let mut has = [false; 5];
-    for a in atoms {
-        match a.element.number() {
-            9 => has[0] = true,
-            17 | 35 | 53 => has[1] = true,
-            8 => has[2] = true,
-            7 => has[3] = true,
-            16 => has[4] = true,
-            _ => {}
-        }
-    }
     let family = Family::from_classes(has[0] || has[1], has[2], has[3], has[4]);
     let fluorinated = has[0];
     Ok(FeatureCounts {
