@@ -229,25 +229,26 @@ fn read_graph(
                 }
             }
             _ => {
-                let atom = if c == b'[' {
-                    r.bracket().map_err(|(k, at)| err(k, at))?
-                } else {
-                    r.organic().map_err(|(k, at)| err(k, at))?
+                let atom = match organic_symbol(r.b, r.i) {
+                    // the organic subset read from a table (what `organic` reads)
+                    Some((element, aromatic, len)) => {
+                        r.i += len;
+                        Reader::new_atom(element, aromatic)
+                    }
+                    None if c == b'[' => r.bracket().map_err(|(k, at)| err(k, at))?,
+                    None => r.organic().map_err(|(k, at)| err(k, at))?,
                 };
                 if r.atoms.len() >= MAX_ATOMS {
                     return Err(err(K::TooLarge(MAX_ATOMS), start));
                 }
                 let idx = r.atoms.len();
-                r.atoms.push(Atom {
-                    position: 0,
-                    ..atom
-                });
                 // characters before the atom: bytes when the input is ASCII (the usual case)
-                r.atoms[idx].position = if ascii {
+                let position = if ascii {
                     start + offset + 1
                 } else {
                     input[..start + offset].chars().count() + 1
                 };
+                r.atoms.push(Atom { position, ..atom });
                 match prev {
                     Some(p) => {
                         let order = pending.take().map(|x| x.0.order());
@@ -275,6 +276,44 @@ fn read_graph(
         return Err(err(K::UnclosedRing(ring.n as u32), ring.byte));
     }
     Ok(components)
+}
+
+/// Organic-subset symbols by their first byte: element number, aromatic, and whether the
+/// symbol may be the first of `Cl` or `Br`; `*` is the wildcard (number 0).
+const ORGANIC: [Option<(u8, bool, bool)>; 256] = {
+    let mut t = [None; 256];
+    t[b'B' as usize] = Some((5, false, true));
+    t[b'C' as usize] = Some((6, false, true));
+    t[b'N' as usize] = Some((7, false, false));
+    t[b'O' as usize] = Some((8, false, false));
+    t[b'P' as usize] = Some((15, false, false));
+    t[b'S' as usize] = Some((16, false, false));
+    t[b'F' as usize] = Some((9, false, false));
+    t[b'I' as usize] = Some((53, false, false));
+    t[b'b' as usize] = Some((5, true, false));
+    t[b'c' as usize] = Some((6, true, false));
+    t[b'n' as usize] = Some((7, true, false));
+    t[b'o' as usize] = Some((8, true, false));
+    t[b'p' as usize] = Some((15, true, false));
+    t[b's' as usize] = Some((16, true, false));
+    t[b'*' as usize] = Some((0, false, false));
+    t
+};
+
+/// The organic-subset atom at byte `i` of `b` (element, aromatic, bytes), as
+/// [`Reader::organic`] reads it; `None` where that gives an error (or for a bracket).
+#[inline]
+fn organic_symbol(b: &[u8], i: usize) -> Option<(Element, bool, usize)> {
+    let (z, aromatic, two) = ORGANIC[*b.get(i)? as usize]?;
+    let element = Element::from_number(z)?;
+    if two {
+        match (z, b.get(i + 1)) {
+            (6, Some(b'l')) => return Some((Element::CL, false, 2)),
+            (5, Some(b'r')) => return Some((Element::BR, false, 2)),
+            _ => {}
+        }
+    }
+    Some((element, aromatic, 1))
 }
 
 impl Reader<'_> {
@@ -490,5 +529,33 @@ impl Reader<'_> {
             in_ring: false,
             position: 0,
         })
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::{organic_symbol, Reader, Tree};
+
+    /// The table reads every ASCII byte, and the byte after it, as `Reader::organic` does
+    /// (where the match gives an error, the table gives nothing and the match reads it).
+    #[test]
+    fn organic_table_reads_as_the_match() {
+        let (mut atoms, mut bonds, mut tree) = (Vec::new(), Vec::new(), Tree::default());
+        for c in 0u8..128 {
+            for d in [b'l', b'r', b'C', b'c', b'1', b'(', b' ', b'L', b'R'] {
+                let text = String::from_utf8(vec![c, d]).unwrap();
+                let mut r = Reader {
+                    s: &text,
+                    b: text.as_bytes(),
+                    i: 0,
+                    atoms: &mut atoms,
+                    bonds: &mut bonds,
+                    tree: &mut tree,
+                    rings: Vec::new(),
+                };
+                let by_match = r.organic().ok().map(|a| (a.element, a.aromatic, r.i));
+                assert_eq!(organic_symbol(text.as_bytes(), 0), by_match, "{text:?}");
+            }
+        }
     }
 }

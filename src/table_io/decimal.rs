@@ -39,27 +39,55 @@ pub fn push_fixed(out: &mut Vec<u8>, x: f64, digits: usize) {
 }
 
 /// `n / 10^digits` as text with `digits` decimals, a leading `-` when `negative`.
-fn push_scaled(out: &mut Vec<u8>, negative: bool, mut n: u64, digits: usize) {
+fn push_scaled(out: &mut Vec<u8>, negative: bool, n: u64, digits: usize) {
     // at most 20 digits of n, a point and leading zeros up to digits + 1 figures
     let mut buf = [b'0'; 32];
     let mut i = buf.len();
-    // the decimals (zeros where n has fewer figures), then the whole part (one figure at least)
+    // the decimals (zeros where n has fewer figures), then the whole part (one figure at
+    // least); in 32-bit steps where n fits, two figures at a time
+    let mut whole = n;
     if digits > 0 {
-        for _ in 0..digits {
+        // constant divisors for the usual decimals (a multiplication, not a division)
+        let frac;
+        (whole, frac) = match digits {
+            1 => (n / 10, n % 10),
+            2 => (n / 100, n % 100),
+            3 => (n / 1_000, n % 1_000),
+            4 => (n / 10_000, n % 10_000),
+            _ => {
+                let p = POW10_INT[digits.min(9)];
+                (n / p, n % p)
+            }
+        };
+        let mut left = digits;
+        let mut f = frac as u32; // below 10^9
+        while left >= 2 {
+            i -= 2;
+            let d = (f % 100) as usize * 2;
+            buf[i..i + 2].copy_from_slice(&PAIRS[d..d + 2]);
+            f /= 100;
+            left -= 2;
+        }
+        if left == 1 {
             i -= 1;
-            buf[i] = b'0' + (n % 10) as u8;
-            n /= 10;
+            buf[i] = b'0' + (f % 10) as u8;
         }
         i -= 1;
         buf[i] = b'.';
     }
-    loop {
+    while whole >= 100 {
+        i -= 2;
+        let d = (whole % 100) as usize * 2;
+        buf[i..i + 2].copy_from_slice(&PAIRS[d..d + 2]);
+        whole /= 100;
+    }
+    if whole >= 10 {
+        i -= 2;
+        let d = whole as usize * 2;
+        buf[i..i + 2].copy_from_slice(&PAIRS[d..d + 2]);
+    } else {
         i -= 1;
-        buf[i] = b'0' + (n % 10) as u8;
-        n /= 10;
-        if n == 0 {
-            break;
-        }
+        buf[i] = b'0' + whole as u8;
     }
     if negative {
         i -= 1;
@@ -67,6 +95,31 @@ fn push_scaled(out: &mut Vec<u8>, negative: bool, mut n: u64, digits: usize) {
     }
     out.extend_from_slice(&buf[i..]);
 }
+
+const POW10_INT: [u64; 10] = [
+    1,
+    10,
+    100,
+    1_000,
+    10_000,
+    100_000,
+    1_000_000,
+    10_000_000,
+    100_000_000,
+    1_000_000_000,
+];
+
+/// "00" to "99" end to end.
+const PAIRS: [u8; 200] = {
+    let mut p = [0u8; 200];
+    let mut k = 0;
+    while k < 100 {
+        p[2 * k] = b'0' + (k / 10) as u8;
+        p[2 * k + 1] = b'0' + (k % 10) as u8;
+        k += 1;
+    }
+    p
+};
 
 #[cfg(test)]
 mod tests {

@@ -37,6 +37,21 @@ pub(crate) fn push_csv_text(line: &mut Vec<u8>, s: &[u8]) {
     }
 }
 
+/// Whether `s` goes into a cell as it is, in one scan: nothing to quote, and no `n`
+/// followed by `a` or `f` (any case), which every `nan`, `inf` or `infinity` word holds
+/// (what [`without_non_finite`] looks for before it looks at words).
+fn plain_cell(s: &[u8]) -> bool {
+    let mut after_n = false;
+    for &b in s {
+        let lower = b | 0x20;
+        if matches!(b, b',' | b'"' | b'\r' | b'\n') || (after_n && matches!(lower, b'a' | b'f')) {
+            return false;
+        }
+        after_n = lower == b'n';
+    }
+    true
+}
+
 impl Fields<'_> {
     fn sep(&mut self) {
         if !self.first {
@@ -47,7 +62,11 @@ impl Fields<'_> {
 
     fn text(&mut self, s: &str) {
         self.sep();
-        push_csv_text(self.line, without_non_finite(s, "").as_bytes());
+        if plain_cell(s.as_bytes()) {
+            self.line.extend_from_slice(s.as_bytes());
+        } else {
+            push_csv_text(self.line, without_non_finite(s, "").as_bytes());
+        }
     }
 
     fn num(&mut self, v: Option<f64>, digits: usize) {
@@ -396,6 +415,44 @@ mod tests {
                 "{id}"
             );
         }
+    }
+
+    /// A cell written as it is by the one-scan check is what the non-finite pass and the
+    /// quoting write.
+    #[test]
+    fn plain_cells_are_what_the_full_pass_writes() {
+        for s in [
+            "",
+            "CCO",
+            "c1ccncc1",
+            "NaN",
+            "x nan",
+            "Inf",
+            "-inf",
+            "info",
+            "Cn1cnc2",
+            "N#N",
+            "a,b",
+            "say \"hi\"",
+            "line\nbreak",
+            "cr\r",
+            "[Na+].[Cl-]",
+            "nf",
+            "NF",
+            "n",
+            "ná",
+            "joback",
+            "extended-groups-log",
+            "CCN(CC)C(=O)c1ccccc1",
+            "infinity",
+        ] {
+            let mut full = Vec::new();
+            push_csv_text(&mut full, super::without_non_finite(s, "").as_bytes());
+            if super::plain_cell(s.as_bytes()) {
+                assert_eq!(full, s.as_bytes(), "{s}");
+            }
+        }
+        assert!(super::plain_cell(b"CCOC(C)=O") && !super::plain_cell(b"CNaN"));
     }
 
     #[test]
