@@ -14,13 +14,14 @@
 use super::error::ReadError;
 use super::property_table::{ColumnScan, PropertyReadOptions, PropertyTable};
 use super::table_batches::TableBatches;
-use crate::screen::sources::with_name_key;
+use crate::screen::sources::{fast_hash, with_name_key, FastMap};
 use crate::screen::stream::{
     batch_facts, screen_batch, EstimateCache, Groups, SortedLinker, TableVerdicts,
 };
 use crate::screen::{ScreenContext, ScreenReport, Summary, SummaryBuilder};
 use rayon::prelude::*;
 use std::cmp::Reverse;
+use std::collections::hash_map::Entry;
 use std::collections::BinaryHeap;
 use std::io::{BufReader, BufWriter, Read, Write};
 use std::path::{Path, PathBuf};
@@ -67,14 +68,28 @@ pub enum StreamError {
 
 /// Identity keys of one kind, sorted in runs of bounded size; each run keeps
 /// only the first row of each key (the others are linked at once).
+///
+/// A key already held in the run is linked to its first row as it arrives
+/// (found by hash in `seen`), so a table that repeats a few thousand
+/// structures a million times sorts a few thousand keys, not a million.
+/// Kinds whose keys seldom repeat (names of lots) stop looking after
+/// [`SEEN_TRIAL`] keys. Either way the groups are the same: a group's root is
+/// its first row whatever order the rows are linked in.
 struct KeySorter {
     kind: u8,
     arena: Vec<u8>,
     index: Vec<(u32, u32, u32)>,
+    /// Hash of a key → its place in `index` (the first key with that hash).
+    seen: Option<FastMap<u64, u32>>,
+    added: usize,
+    repeats: usize,
     budget: usize,
     runs: Vec<PathBuf>,
     dir: PathBuf,
 }
+
+/// Keys after which a sorter whose keys are mostly new stops looking for repeats.
+const SEEN_TRIAL: usize = 65_536;
 
 impl KeySorter {
     fn new(kind: u8, budget: usize, dir: &Path) -> Self {
@@ -82,6 +97,9 @@ impl KeySorter {
             kind,
             arena: Vec::new(),
             index: Vec::new(),
+            seen: Some(FastMap::default()),
+            added: 0,
+            repeats: 0,
             budget,
             runs: Vec::new(),
             dir: dir.to_path_buf(),
@@ -89,10 +107,33 @@ impl KeySorter {
     }
 
     fn add(&mut self, key: &[u8], row: u32, groups: &mut Groups) -> std::io::Result<()> {
+        self.added += 1;
+        if self.added == SEEN_TRIAL && self.repeats * 4 < self.added {
+            self.seen = None;
+        }
+        if let Some(seen) = &mut self.seen {
+            let at = self.index.len() as u32;
+            match seen.entry(fast_hash(key)) {
+                Entry::Occupied(e) => {
+                    let first = self.index[*e.get() as usize];
+                    if key_of(&self.arena, &first) == key {
+                        self.repeats += 1;
+                        groups.union(first.2, row);
+                        return Ok(());
+                    }
+                }
+                Entry::Vacant(e) => {
+                    e.insert(at);
+                }
+            }
+        }
         let start = self.arena.len();
         self.arena.extend_from_slice(key);
         self.index.push((start as u32, key.len() as u32, row));
-        if self.arena.len() + 12 * self.index.len() >= self.budget || self.arena.len() > 1 << 31 {
+        let seen_bytes = self.seen.as_ref().map_or(0, |m| 16 * m.len());
+        if self.arena.len() + 12 * self.index.len() + seen_bytes >= self.budget
+            || self.arena.len() > 1 << 31
+        {
             self.spill(groups)?;
         }
         Ok(())
@@ -131,6 +172,9 @@ impl KeySorter {
         self.runs.push(path);
         self.arena.clear();
         self.index.clear();
+        if let Some(seen) = &mut self.seen {
+            seen.clear();
+        }
         Ok(())
     }
 
@@ -323,4 +367,71 @@ pub fn screen_file(
         emit(&table, &report, start).map_err(StreamError::Output)?;
     }
     Ok(summary.finish())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Every row's group when rows with equal keys are linked directly.
+    fn naive(keys: &[Vec<u8>]) -> Vec<u32> {
+        let mut g = Groups::new();
+        g.grow(keys.len());
+        for i in 0..keys.len() {
+            if let Some(j) = keys[..i].iter().position(|k| *k == keys[i]) {
+                g.union(j as u32, i as u32);
+            }
+        }
+        g.roots()
+    }
+
+    // Repeated keys linked as they arrive, unique keys (which stop the
+    // lookup after the trial), and runs spilled to disk by a small budget:
+    // each gives the groups of linking equal keys directly.
+    #[test]
+    fn key_sorter_groups_equal_keys_however_they_arrive() {
+        let dir = std::env::temp_dir().join(format!("ebullio-keysorter-{}", std::process::id()));
+        std::fs::create_dir_all(&dir).unwrap();
+        let mut s: u64 = 0x2545_F491_4F6C_DD1D;
+        let mut next = || {
+            s ^= s << 13;
+            s ^= s >> 7;
+            s ^= s << 17;
+            s
+        };
+        let repeated: Vec<Vec<u8>> = (0..3000)
+            .map(|_| format!("key{}", next() % 37).into_bytes())
+            .collect();
+        let unique: Vec<Vec<u8>> = (0..70_000u32)
+            .map(|i| format!("lot {}", (i * 7919) % 70_001).into_bytes())
+            .chain([b"lot 5".to_vec(), b"lot 5".to_vec()])
+            .collect();
+        for (keys, budgets) in [
+            (&repeated, [64, 4096, 1 << 30]),
+            (&unique, [100_000, 400_000, 1 << 30]),
+        ] {
+            let want = if keys.len() < 5000 {
+                naive(keys)
+            } else {
+                // unique but for the two trailing copies of "lot 5"
+                let first = keys.iter().position(|k| k == b"lot 5").unwrap() as u32;
+                let mut r: Vec<u32> = (0..keys.len() as u32).collect();
+                let n = r.len();
+                r[n - 2] = first;
+                r[n - 1] = first;
+                r
+            };
+            for budget in budgets {
+                let mut groups = Groups::new();
+                groups.grow(keys.len());
+                let mut sorter = KeySorter::new(b'k', budget, &dir);
+                for (i, k) in keys.iter().enumerate() {
+                    sorter.add(k, i as u32, &mut groups).unwrap();
+                }
+                sorter.finish(&mut groups).unwrap();
+                assert_eq!(groups.roots(), want, "budget {budget}");
+            }
+        }
+        std::fs::remove_dir_all(&dir).unwrap();
+    }
 }
