@@ -201,12 +201,12 @@ fn check_row<'r, E: Estimates + ?Sized>(
     implied_tb_k: Option<&[f64]>,
     estimates: &'r E,
     ctx: &ScreenContext<'_>,
-) -> (Vec<Finding>, Facts<'r>) {
+    out: &mut Vec<Finding>,
+) -> Facts<'r> {
     let tol = ctx.options.tolerance_k;
     let row = rows.row(i);
-    let mut out = Vec::new();
-    identity::check_unreadable(&row.unreadable, row.line, &mut out);
-    let cas = row.cas.and_then(|c| identity::check_cas(c, &mut out));
+    identity::check_unreadable(&row.unreadable, row.line, out);
+    let cas = row.cas.and_then(|c| identity::check_cas(c, out));
 
     let mut implied = None;
     match &row.antoine {
@@ -221,15 +221,15 @@ fn check_row<'r, E: Estimates + ?Sized>(
                 Some(v) => v.get(i).copied().filter(|t| t.is_finite()),
                 None => k.t_at(ATM_PA),
             };
-            constants::check_constants(k, implied, row.tb_k, &mut out);
+            constants::check_constants(k, implied, row.tb_k, out);
             match (implied, row.tb_k) {
                 (Some(t), Some(listed)) => {
                     antoine_tb::check_implied_vs_listed(
-                        k, t, listed, row.tb_unit, tol, &mut out,
+                        k, t, listed, row.tb_unit, tol, out,
                     );
-                    constants::check_range(k, listed, true, &mut out);
+                    constants::check_range(k, listed, true, out);
                 }
-                (Some(t), None) => constants::check_range(k, t, false, &mut out),
+                (Some(t), None) => constants::check_range(k, t, false, out),
                 _ => {}
             }
         }
@@ -239,14 +239,14 @@ fn check_row<'r, E: Estimates + ?Sized>(
         (None, Some(t)) => (Some(t), false),
         _ => (None, false),
     };
-    critical::check_critical(tb, listed, row.tc_k, row.pc_pa, &mut out);
+    critical::check_critical(tb, listed, row.tc_k, row.pc_pa, out);
 
     let mut residual = f64::NAN;
     let mut structure_key = None;
     if let Some(s) = row.smiles.map(trimmed).filter(|s| !s.is_empty()) {
         if let Some(o) = estimates.outcome(s) {
             structure_key = o.structure_key();
-            if let Some(r) = structure::check_structure(s, o, tb, listed, &mut out) {
+            if let Some(r) = structure::check_structure(s, o, tb, listed, out) {
                 residual = r;
             }
         }
@@ -261,20 +261,17 @@ fn check_row<'r, E: Estimates + ?Sized>(
         name_hash: row.compound.map(|_| name_hash),
     };
     if let Some(t) = tb {
-        reference::check_reference(ctx.reference, &id, t, listed, tol, &mut out);
+        reference::check_reference(ctx.reference, &id, t, listed, tol, out);
     }
-    (
-        out,
-        Facts {
-            line: row.line,
-            tb_k: tb.unwrap_or(f64::NAN),
-            residual,
-            cas,
-            structure: structure_key,
-            name: row.compound,
-            name_hash,
-        },
-    )
+    Facts {
+        line: row.line,
+        tb_k: tb.unwrap_or(f64::NAN),
+        residual,
+        cas,
+        structure: structure_key,
+        name: row.compound,
+        name_hash,
+    }
 }
 
 /// Run every check on every row. `implied_tb_k`, when given, holds the
@@ -304,7 +301,8 @@ pub fn screen(
                 progress: ctx.progress,
             },
             |tally, i| {
-                let (f, facts) = check_row(rows, i, implied_tb_k, &estimates, ctx);
+                let mut f = Vec::new();
+                let facts = check_row(rows, i, implied_tb_k, &estimates, ctx, &mut f);
                 tally.step();
                 let key = duplicates::DupKey {
                     cas: facts.cas,

@@ -8,36 +8,204 @@ use std::cmp::Reverse;
 use std::fmt;
 
 /// Findings for every row of a screened table, in row order.
-#[derive(Debug, Clone, PartialEq)]
+///
+/// Kept compact: every message in one text per part of the table, each row's
+/// messages back to back and joined by a space (so a row's diagnosis is one
+/// slice of it), and per finding its code and where its message ends. A large
+/// table's findings are then a few allocations, not three per flagged row.
+/// Rows checked in parallel are kept in the parts their workers made (each
+/// `chunk` rows), so nothing is copied to join them.
+#[derive(Debug, Clone)]
 pub struct ScreenReport {
-    findings: Vec<Vec<Finding>>,
+    /// Rows per part (all parts but the last are full).
+    chunk: usize,
+    parts: Vec<Part>,
+    n: usize,
+}
+
+/// Rows of a [`ScreenReport`] in one text.
+#[derive(Debug, Clone, Default)]
+struct Part {
+    /// Per row: the end of its findings in `items`.
+    ends: Vec<usize>,
+    items: Vec<Item>,
+    text: String,
     lines: Vec<usize>,
 }
 
+/// One finding of a [`ScreenReport`]: its message is `text[start..end]`.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct Item {
+    code: crate::finding::Code,
+    severity: Severity,
+    start: usize,
+    end: usize,
+}
+
+impl Part {
+    fn push_row(&mut self, findings: &mut Vec<Finding>, line: usize) {
+        for (k, f) in findings.drain(..).enumerate() {
+            if k > 0 {
+                self.text.push(' ');
+            }
+            let start = self.text.len();
+            self.text.push_str(&f.message);
+            self.items.push(Item {
+                code: f.code,
+                severity: f.severity,
+                start,
+                end: self.text.len(),
+            });
+        }
+        self.ends.push(self.items.len());
+        self.lines.push(line);
+    }
+
+    fn items(&self, i: usize) -> &[Item] {
+        let Some(&end) = self.ends.get(i) else {
+            return &[];
+        };
+        let start = if i == 0 { 0 } else { self.ends[i - 1] };
+        &self.items[start..end]
+    }
+
+    fn diagnosis(&self, i: usize) -> &str {
+        match self.items(i) {
+            [] => "",
+            [one] => &self.text[one.start..one.end],
+            [first, .., last] => &self.text[first.start..last.end],
+        }
+    }
+}
+
+impl Default for ScreenReport {
+    fn default() -> Self {
+        ScreenReport {
+            chunk: usize::MAX,
+            parts: Vec::new(),
+            n: 0,
+        }
+    }
+}
+
+/// Equal when every row has the same line and findings (however the rows are kept).
+impl PartialEq for ScreenReport {
+    fn eq(&self, other: &Self) -> bool {
+        self.n == other.n
+            && (0..self.n).all(|i| {
+                let (a, b) = (self.items(i), other.items(i));
+                self.line(i) == other.line(i)
+                    && self.diagnosis_str(i) == other.diagnosis_str(i)
+                    && a.len() == b.len()
+                    && a.iter().zip(b).all(|(x, y)| {
+                        x.code == y.code
+                            && x.severity == y.severity
+                            && x.end - x.start == y.end - y.start
+                    })
+            })
+    }
+}
+
 impl ScreenReport {
-    /// Build from findings per row and the rows' line numbers.
+    /// Build from findings per row and the rows' line numbers (the findings'
+    /// subjects are not kept: each is about its row).
     pub fn new(findings: Vec<Vec<Finding>>, lines: Vec<usize>) -> Self {
-        ScreenReport { findings, lines }
+        let mut r = ScreenReport::default();
+        for (i, mut f) in findings.into_iter().enumerate() {
+            r.push_row(&mut f, lines.get(i).copied().unwrap_or(0));
+        }
+        r
+    }
+
+    /// An empty report with room for `rows` rows and `text` bytes of messages.
+    pub(crate) fn with_capacity(rows: usize, text: usize) -> Self {
+        ScreenReport {
+            chunk: usize::MAX,
+            parts: vec![Part {
+                ends: Vec::with_capacity(rows),
+                items: Vec::with_capacity(rows),
+                text: String::with_capacity(text),
+                lines: Vec::with_capacity(rows),
+            }],
+            n: 0,
+        }
+    }
+
+    /// Add one row after the others (its findings are taken out of
+    /// `findings`, which is left empty for the next row). Only for a report
+    /// built row by row, not one joined from parts.
+    pub fn push_row(&mut self, findings: &mut Vec<Finding>, line: usize) {
+        if self.parts.is_empty() {
+            self.parts.push(Part::default());
+        }
+        if let Some(p) = self.parts.last_mut() {
+            p.push_row(findings, line);
+        }
+        self.n += 1;
+    }
+
+    /// One report of `parts` in order, each of `chunk` rows but the last.
+    pub(crate) fn joined(parts: Vec<ScreenReport>, chunk: usize) -> Self {
+        let mut r = ScreenReport {
+            chunk: chunk.max(1),
+            parts: Vec::with_capacity(parts.len()),
+            n: 0,
+        };
+        for p in parts {
+            debug_assert!(p.parts.len() <= 1 && (r.n % r.chunk == 0));
+            r.n += p.n;
+            r.parts.extend(p.parts);
+        }
+        r
+    }
+
+    fn at(&self, i: usize) -> Option<(&Part, usize)> {
+        if i >= self.n {
+            return None;
+        }
+        Some((self.parts.get(i / self.chunk)?, i % self.chunk))
+    }
+
+    fn items(&self, i: usize) -> &[Item] {
+        self.at(i).map_or(&[], |(p, k)| p.items(k))
     }
 
     /// Number of rows.
     pub fn len(&self) -> usize {
-        self.findings.len()
+        self.n
     }
 
     /// Whether the table had no rows.
     pub fn is_empty(&self) -> bool {
-        self.findings.is_empty()
+        self.n == 0
     }
 
     /// Line in the input of row `i` (0 when unknown).
     pub fn line(&self, i: usize) -> usize {
-        self.lines.get(i).copied().unwrap_or(0)
+        self.at(i)
+            .and_then(|(p, k)| p.lines.get(k).copied())
+            .unwrap_or(0)
     }
 
     /// Findings of row `i`.
-    pub fn findings(&self, i: usize) -> &[Finding] {
-        self.findings.get(i).map(Vec::as_slice).unwrap_or(&[])
+    pub fn findings(&self, i: usize) -> Vec<Finding> {
+        let Some((p, k)) = self.at(i) else {
+            return Vec::new();
+        };
+        p.items(k)
+            .iter()
+            .map(|x| Finding {
+                code: x.code,
+                severity: x.severity,
+                message: p.text[x.start..x.end].to_string(),
+                subject: crate::finding::Subject::Whole,
+            })
+            .collect()
+    }
+
+    /// Number of findings of row `i`.
+    pub fn n_findings(&self, i: usize) -> usize {
+        self.items(i).len()
     }
 
     /// The `flags` column: codes of row `i`, `;`-separated (empty when clean).
@@ -49,7 +217,7 @@ impl ScreenReport {
 
     /// [`ScreenReport::flags`] of row `i` appended to `s` (no allocation of its own).
     pub fn write_flags(&self, i: usize, s: &mut String) {
-        for (k, x) in self.findings(i).iter().enumerate() {
+        for (k, x) in self.items(i).iter().enumerate() {
             if k > 0 {
                 s.push(';');
             }
@@ -57,26 +225,24 @@ impl ScreenReport {
         }
     }
 
+    /// [`ScreenReport::diagnosis`] of row `i`, borrowed.
+    pub fn diagnosis_str(&self, i: usize) -> &str {
+        self.at(i).map_or("", |(p, k)| p.diagnosis(k))
+    }
+
     /// [`ScreenReport::diagnosis`] of row `i` appended to `s`.
     pub fn write_diagnosis(&self, i: usize, s: &mut String) {
-        for (k, x) in self.findings(i).iter().enumerate() {
-            if k > 0 {
-                s.push(' ');
-            }
-            s.push_str(&x.message);
-        }
+        s.push_str(self.diagnosis_str(i));
     }
 
     /// The worst severity of row `i`, if it has findings.
     pub fn severity(&self, i: usize) -> Option<Severity> {
-        self.findings(i).iter().map(|f| f.severity).max()
+        self.items(i).iter().map(|f| f.severity).max()
     }
 
     /// The `diagnosis` column: the messages of row `i`, space-separated.
     pub fn diagnosis(&self, i: usize) -> String {
-        let mut s = String::new();
-        self.write_diagnosis(i, &mut s);
-        s
+        self.diagnosis_str(i).to_string()
     }
 
     /// The three added columns, `flags`, `severity` and `diagnosis`, one
@@ -105,11 +271,9 @@ impl ScreenReport {
     /// How many rows carry each code, in code order, only codes that occur.
     pub fn counts(&self) -> Vec<(CheckCode, usize)> {
         let mut n = vec![0usize; CheckCode::ALL.len()];
-        for f in &self.findings {
-            for x in f {
-                if let Some(k) = check_index(x.code) {
-                    n[k] += 1;
-                }
+        for x in self.parts.iter().flat_map(|p| &p.items) {
+            if let Some(k) = check_index(x.code) {
+                n[k] += 1;
             }
         }
         CheckCode::ALL
@@ -164,7 +328,8 @@ impl SummaryBuilder {
     /// Add one batch: `report` of `rows`, whose first row is row `first_row` of the table.
     pub fn add(&mut self, report: &ScreenReport, rows: &dyn Rows, first_row: usize) {
         self.rows += report.len();
-        for (i, f) in report.findings.iter().enumerate() {
+        for i in 0..report.len() {
+            let f = report.items(i);
             let Some(sev) = f.iter().map(|x| x.severity).max() else {
                 continue;
             };
@@ -184,7 +349,10 @@ impl SummaryBuilder {
             }
             let at = self.worst.partition_point(|w| rank(w.0, w.1, w.2) < me);
             let row = WorstRow {
-                line: report.lines.get(i).copied().unwrap_or(first_row + i + 2),
+                line: report
+                    .at(i)
+                    .and_then(|(p, k)| p.lines.get(k).copied())
+                    .unwrap_or(first_row + i + 2),
                 label: row_label(&rows.row(i)),
                 severity: sev,
                 flags: report.flags(i),

@@ -287,6 +287,9 @@ impl TableVerdicts {
 
 /// Every check on one batch of rows whose first row is row `first_row` of
 /// the table (second pass): the row checks, then the table-wide findings.
+/// Rows are checked in parallel in chunks, each chunk's findings moved into
+/// one compact report as they are made, so a finding's message is freed
+/// (and its memory reused by the next) at once.
 pub fn screen_batch(
     rows: &dyn Rows,
     first_row: usize,
@@ -294,23 +297,27 @@ pub fn screen_batch(
     estimates: &EstimateCache,
     ctx: &ScreenContext<'_>,
 ) -> ScreenReport {
-    let (findings, lines): (Vec<Vec<Finding>>, Vec<usize>) = (0..rows.n_rows())
+    const CHUNK: usize = super::PROGRESS_ROWS;
+    let n = rows.n_rows();
+    let parts: Vec<ScreenReport> = (0..n.div_ceil(CHUNK))
         .into_par_iter()
-        .with_min_len(1024)
-        .map_init(
-            || super::Tally {
-                pending: 0,
-                progress: ctx.progress,
-            },
-            |tally, i| {
-                let (mut f, facts) = super::check_row(rows, i, None, estimates, ctx);
+        .map(|c| {
+            let end = ((c + 1) * CHUNK).min(n);
+            // room for a flagged table's usual message text (grows if more)
+            let mut part = ScreenReport::with_capacity(end - c * CHUNK, 256 * (end - c * CHUNK));
+            let mut f = Vec::new();
+            for i in c * CHUNK..end {
+                let facts = super::check_row(rows, i, None, estimates, ctx, &mut f);
                 verdicts.findings(first_row + i, facts.tb_k, facts.residual, &mut f);
-                tally.step();
-                (f, facts.line)
-            },
-        )
-        .unzip();
-    ScreenReport::new(findings, lines)
+                part.push_row(&mut f, facts.line);
+            }
+            if let Some(p) = ctx.progress {
+                p(end - c * CHUNK);
+            }
+            part
+        })
+        .collect();
+    ScreenReport::joined(parts, CHUNK)
 }
 
 #[cfg(test)]
@@ -361,7 +368,7 @@ mod tests {
             let batch: Vec<RowInput<'_>> = rows[start..(start + size).min(rows.len())].to_vec();
             let r = screen_batch(&batch, start, &verdicts, &cache, ctx);
             for i in 0..r.len() {
-                findings.push(r.findings(i).to_vec());
+                findings.push(r.findings(i));
                 lines.push(r.line(i));
             }
         }

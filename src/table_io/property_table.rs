@@ -1249,9 +1249,7 @@ impl<'w> BatchWriter<'w> {
                 report.severity(i).map_or("", |s| s.as_str()).as_bytes(),
             );
             buf.push(b',');
-            text.clear();
-            report.write_diagnosis(i, &mut text);
-            csv_field(&mut buf, text.as_bytes());
+            csv_field(&mut buf, report.diagnosis_str(i).as_bytes());
             buf.push(b'\n');
             if buf.len() >= 1 << 20 {
                 w.write_all(&buf).map_err(|e| io(e, &self.path))?;
