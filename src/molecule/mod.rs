@@ -194,6 +194,11 @@ pub fn parse_smiles_into(s: &str, m: &mut Molecule) -> Result<(), SmilesError> {
 
 /// Appends `n` in decimal (what `write!(out, "{n}")` gives, without the formatter).
 pub fn push_count(out: &mut String, mut n: u32) {
+    if n < 10 {
+        // one figure, the usual count
+        out.push(char::from(b'0' + n as u8));
+        return;
+    }
     let mut buf = [0u8; 10];
     let mut i = buf.len();
     loop {

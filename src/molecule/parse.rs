@@ -318,6 +318,7 @@ fn organic_symbol(b: &[u8], i: usize) -> Option<(Element, bool, usize)> {
 
 impl Reader<'_> {
     /// Add a bond; with no symbol it is aromatic between two aromatic atoms, else single.
+    #[inline]
     fn bond(&mut self, a: usize, b: usize, order: Option<BondOrder>) {
         let order = order.unwrap_or(if self.atoms[a].aromatic && self.atoms[b].aromatic {
             BondOrder::Aromatic
