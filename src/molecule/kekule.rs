@@ -194,60 +194,41 @@ fn greedy_matching(m: &Molecule, need: &[bool], w: &mut Greedy) -> bool {
     greedy_partners(m, need, w).is_some()
 }
 
-/// The quick matching's partners, free-candidate counts and forced atoms, and each atom's
-/// candidate partners (aromatic bonds to another atom that needs a π bond).
+/// The quick matching's partners, free-candidate counts and forced atoms.
 #[derive(Default)]
 struct Greedy {
     partner: Vec<usize>,
     avail: Vec<u32>,
     forced: Vec<usize>,
-    /// Atom `i`'s candidates are `cand[start[i]..start[i + 1]]`, in bond order (the
-    /// order of its neighbours).
-    start: Vec<u32>,
-    cand: Vec<u32>,
 }
 
 fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
     let n = m.atoms.len();
-    let (partner, avail, forced) = (&mut w.partner, &mut w.avail, &mut w.forced);
-    let (start, cand) = (&mut w.start, &mut w.cand);
-    // the candidate lists, as `Adjacency::fill` lists neighbours
-    start.clear();
-    start.resize(n + 1, 0);
-    let is_cand = |b: &super::Bond| b.order == BondOrder::Aromatic && need[b.a] && need[b.b];
-    for b in m.bonds.iter().filter(|b| is_cand(b)) {
-        start[b.a + 1] += 1;
-        start[b.b + 1] += 1;
-    }
-    // free candidates left to each atom that needs a π bond (all free at first)
-    avail.clear();
-    avail.extend(start[1..].iter().copied());
-    for i in 0..n {
-        start[i + 1] += start[i];
-    }
-    cand.clear();
-    cand.resize(start[n] as usize, 0);
-    for b in m.bonds.iter().filter(|b| is_cand(b)) {
-        cand[start[b.a] as usize] = b.b as u32;
-        start[b.a] += 1;
-        cand[start[b.b] as usize] = b.a as u32;
-        start[b.b] += 1;
-    }
-    for i in (1..=n).rev() {
-        start[i] = start[i - 1];
-    }
-    start[0] = 0;
-    let list = |i: usize| &cand[start[i] as usize..start[i + 1] as usize];
-    let first_free = |i: usize, partner: &[usize]| {
-        list(i)
+    let free_cands = |i: usize, partner: &[usize]| {
+        m.adj[i]
             .iter()
-            .find(|&&j| partner[j as usize] == usize::MAX)
-            .map(|&j| j as usize)
+            .filter(|&&(j, k)| {
+                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
+            })
+            .count()
     };
+    let first_free = |i: usize, partner: &[usize]| {
+        m.adj[i]
+            .iter()
+            .find(|&&(j, k)| {
+                m.bonds[k].order == BondOrder::Aromatic && need[j] && partner[j] == usize::MAX
+            })
+            .map(|&(j, _)| j)
+    };
+    let (partner, avail, forced) = (&mut w.partner, &mut w.avail, &mut w.forced);
     partner.clear();
     partner.resize(n, usize::MAX);
+    // free candidates left to each atom that needs a π bond
+    avail.clear();
+    avail.resize(n, 0);
     forced.clear();
     for i in (0..n).filter(|&i| need[i]) {
+        avail[i] = free_cands(i, partner) as u32;
         match avail[i] {
             0 => return None,
             1 => forced.push(i),
@@ -274,9 +255,8 @@ fn greedy_partners(m: &Molecule, need: &[bool], w: &mut Greedy) -> Option<()> {
         partner[i] = j;
         partner[j] = i;
         for x in [i, j] {
-            for &y in list(x) {
-                let y = y as usize;
-                if partner[y] == usize::MAX {
+            for &(y, k) in &m.adj[x] {
+                if m.bonds[k].order == BondOrder::Aromatic && need[y] && partner[y] == usize::MAX {
                     avail[y] -= 1;
                     match avail[y] {
                         0 => return None,
