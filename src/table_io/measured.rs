@@ -307,13 +307,14 @@ fn records(
     let mut rows = RawRows::default();
     let mut table = (&mut headers, &mut rows);
     if plain {
-        // No quotes and no carriage returns: a record is a line split at the delimiter
-        // (what the csv crate reads from such a text, blank lines skipped), without the
-        // per-record UTF-8 check of a text that is already a str.
+        // No quotes, and carriage returns only in line ends: a record is a line split at the
+        // delimiter (what the csv crate reads from such a text, blank lines skipped), without
+        // the per-record UTF-8 check of a text that is already a str.
         let mut start = 0;
         let ends = memchr::memchr_iter(b'\n', text.as_bytes()).chain([text.len()]);
         for (i, end) in ends.enumerate() {
             let l = &text[start..end];
+            let l = l.strip_suffix('\r').unwrap_or(l);
             start = end + 1;
             if l.is_empty() {
                 continue;
@@ -371,10 +372,14 @@ fn records(
 }
 
 /// A CSV text whose records are its lines split at the delimiter: no quote character (so no
-/// quoted field) and no carriage return (so every record ends at a '\n', the byte the csv
-/// crate counts lines by). Decimal-comma files take the general reader.
+/// quoted field) and carriage returns only just before a '\n' (so every record ends at a
+/// '\n', the byte the csv crate counts lines by, as Windows files do). Decimal-comma files
+/// take the general reader.
 fn is_plain(text: &str, delim: u8) -> bool {
-    delim == b',' && memchr::memchr2(b'"', b'\r', text.as_bytes()).is_none()
+    let b = text.as_bytes();
+    delim == b','
+        && memchr::memchr(b'"', b).is_none()
+        && memchr::memchr_iter(b'\r', b).all(|i| b.get(i + 1) == Some(&b'\n'))
 }
 
 /// The line a record of the csv crate starts on: the crate gives the position where it began
@@ -903,6 +908,15 @@ mod tests {
     // After blank lines an error names the row's own line, in plain files and in files the
     // csv crate reads (quotes, CRLF), whose position is where the blank lines began.
     #[test]
+    fn plain_means_no_quotes_and_no_lone_carriage_return() {
+        assert!(is_plain("T/K,p/kPa\r\n300,1\r\n", b','));
+        assert!(!is_plain("T/K,p/kPa\r300,1\r\n", b','));
+        assert!(!is_plain("T/K,p/kPa\n300,1\r", b','));
+        assert!(!is_plain("\"T/K\",p/kPa\n300,1\n", b','));
+        assert!(!is_plain("T/K;p/kPa\n300;1\n", b';'));
+    }
+
+    #[test]
     fn errors_after_blank_lines_name_the_row_line() {
         for text in [
             "T/K,p/kPa\n300,1\n\n\n310,x\n",
@@ -945,7 +959,7 @@ mod tests {
         // headings, rows, cells, lines and errors (blank, comment, ragged and spaced lines).
         #[test]
         fn plain_texts_read_as_the_csv_crate_reads_them(
-            s in "[Tp/K#,; 0-9.a\n\u{a0}\t]{0,160}",
+            s in "(\r\n|[Tp/K#,; 0-9.a\n\u{a0}\t]){0,120}",
             headers_only in any::<bool>(),
         ) {
             let path = Path::new("p.csv");
