@@ -14,11 +14,7 @@ use std::borrow::Cow;
 /// ```
 pub fn without_non_finite<'a>(text: &'a str, blank: &str) -> Cow<'a, str> {
     // every such word holds an `n` followed by `a` or `f` (any case): most text has none
-    let maybe = text
-        .as_bytes()
-        .windows(2)
-        .any(|w| w[0] | 0x20 == b'n' && matches!(w[1] | 0x20, b'a' | b'f'));
-    if !maybe || !words(text).any(|(_, w)| is_non_finite(w)) {
+    if !may_hold_one(text.as_bytes()) || !words(text).any(|(_, w)| is_non_finite(w)) {
         return Cow::Borrowed(text);
     }
     let bytes = text.as_bytes();
@@ -35,6 +31,13 @@ pub fn without_non_finite<'a>(text: &'a str, blank: &str) -> Cow<'a, str> {
     }
     out.push_str(&text[copied..]);
     Cow::Owned(out)
+}
+
+/// Whether `b` holds an `n` followed by `a` or `f` (any case), as every such word does;
+/// found by memchr, since most text has none.
+fn may_hold_one(b: &[u8]) -> bool {
+    memchr::memchr2_iter(b'n', b'N', b)
+        .any(|i| b.get(i + 1).is_some_and(|c| matches!(c | 0x20, b'a' | b'f')))
 }
 
 fn is_non_finite(w: &str) -> bool {
@@ -64,7 +67,20 @@ fn words(text: &str) -> impl Iterator<Item = (usize, &str)> {
 
 #[cfg(test)]
 mod tests {
-    use super::without_non_finite;
+    use super::{may_hold_one, without_non_finite};
+    use proptest::prelude::*;
+
+    proptest! {
+        // The memchr search finds what a scan of every pair of bytes finds.
+        #[test]
+        fn the_quick_search_is_the_pair_scan(s in "[nNaAfFiItyY ,x0é-]{0,40}") {
+            let pairs = s
+                .as_bytes()
+                .windows(2)
+                .any(|w| w[0] | 0x20 == b'n' && matches!(w[1] | 0x20, b'a' | b'f'));
+            prop_assert_eq!(may_hold_one(s.as_bytes()), pairs);
+        }
+    }
 
     #[test]
     fn non_finite_words_are_blanked_and_info_is_kept() {
