@@ -109,7 +109,14 @@ fn decimal_exponent(a: f64) -> Option<i32> {
     }
     // Scale into [1, 1e21) without rounding the comparison: a·10^10 only for a < 1.
     let (b, shift) = if a < 1.0 { (a * 1e10, -10) } else { (a, 0) };
-    let i = POW10.partition_point(|&p| p <= b); // POW10[i-1] ≤ b < POW10[i]
+    // b ∈ [2^e2, 2^(e2+1)), so ⌊log10 b⌋ is ⌊e2·log10 2⌋ (78913/2^18 in exact integers
+    // for these e2) or one more: one comparison instead of a search of the table.
+    let e2 = ((b.to_bits() >> 52) & 0x7ff) as usize - 1023;
+    let mut d = (e2 * 78913) >> 18;
+    if POW10.get(d + 1).is_some_and(|&p| p <= b) {
+        d += 1;
+    }
+    let i = d + 1; // POW10[i-1] ≤ b < POW10[i]
     let (lo, hi) = (POW10[i.checked_sub(1)?], *POW10.get(i)?);
     let margin = 1e-12;
     if b < lo * (1.0 + margin) || b > hi * (1.0 - margin) {
@@ -244,6 +251,21 @@ mod tests {
                     p * 1.5,
                 ] {
                     assert_eq!(tidy(v).to_bits(), tidy_by_log(v).to_bits(), "{v:e}");
+                }
+            }
+        }
+    }
+
+    // The integer estimate of ⌊e2·log10 2⌋ in decimal_exponent, for every binary exponent
+    // of 1 ≤ b < 1e21, and the exponent it gives next to every power of two there.
+    #[test]
+    fn decimal_exponent_from_the_binary_exponent() {
+        for e2 in 0..70usize {
+            assert_eq!((e2 * 78913) >> 18, (e2 as f64 * 2f64.log10()).floor() as usize);
+            let p = 2f64.powi(e2 as i32);
+            for b in [p, f64::from_bits(p.to_bits() - 1), f64::from_bits(p.to_bits() + 1)] {
+                if let Some(d) = decimal_exponent(b) {
+                    assert_eq!(d, b.log10().floor() as i32, "{b:e}");
                 }
             }
         }
