@@ -36,8 +36,10 @@ pub fn without_non_finite<'a>(text: &'a str, blank: &str) -> Cow<'a, str> {
 /// Whether `b` holds an `n` followed by `a` or `f` (any case), as every such word does;
 /// found by memchr, since most text has none.
 fn may_hold_one(b: &[u8]) -> bool {
-    memchr::memchr2_iter(b'n', b'N', b)
-        .any(|i| b.get(i + 1).is_some_and(|c| matches!(c | 0x20, b'a' | b'f')))
+    memchr::memchr2_iter(b'n', b'N', b).any(|i| {
+        b.get(i + 1)
+            .is_some_and(|c| matches!(c | 0x20, b'a' | b'f'))
+    })
 }
 
 fn is_non_finite(w: &str) -> bool {

@@ -261,9 +261,16 @@ mod tests {
     #[test]
     fn decimal_exponent_from_the_binary_exponent() {
         for e2 in 0..70usize {
-            assert_eq!((e2 * 78913) >> 18, (e2 as f64 * 2f64.log10()).floor() as usize);
+            assert_eq!(
+                (e2 * 78913) >> 18,
+                (e2 as f64 * 2f64.log10()).floor() as usize
+            );
             let p = 2f64.powi(e2 as i32);
-            for b in [p, f64::from_bits(p.to_bits() - 1), f64::from_bits(p.to_bits() + 1)] {
+            for b in [
+                p,
+                f64::from_bits(p.to_bits() - 1),
+                f64::from_bits(p.to_bits() + 1),
+            ] {
                 if let Some(d) = decimal_exponent(b) {
                     assert_eq!(d, b.log10().floor() as i32, "{b:e}");
                 }
