@@ -164,11 +164,12 @@ impl Drop for Tally<'_> {
 
 /// Structure outcomes by SMILES (trimmed), as the row checks look them up.
 trait Estimates: Sync {
-    fn outcome(&self, smiles: &str) -> Option<&StructureOutcome>;
+    /// The outcome for row `i`, whose SMILES is `smiles`.
+    fn outcome(&self, i: usize, smiles: &str) -> Option<&StructureOutcome>;
 }
 
 impl Estimates for FastMap<&str, StructureOutcome> {
-    fn outcome(&self, smiles: &str) -> Option<&StructureOutcome> {
+    fn outcome(&self, _i: usize, smiles: &str) -> Option<&StructureOutcome> {
         self.get(smiles)
     }
 }
@@ -244,7 +245,7 @@ fn check_row<'r, E: Estimates + ?Sized>(
     let mut residual = f64::NAN;
     let mut structure_key = None;
     if let Some(s) = row.smiles.map(trimmed).filter(|s| !s.is_empty()) {
-        if let Some(o) = estimates.outcome(s) {
+        if let Some(o) = estimates.outcome(i, s) {
             structure_key = o.structure_key();
             if let Some(r) = structure::check_structure(s, o, tb, listed, out) {
                 residual = r;

@@ -100,8 +100,8 @@ pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
         i -= 1;
         buf[i] = b'+';
     }
-    // only ASCII digits, '.', '-' and '+' were written
-    out.push_str(std::str::from_utf8(&buf[i..]).unwrap_or_default());
+    // only ASCII digits, '.', '-' and '+' were written: each byte is its char
+    out.extend(buf[i..].iter().map(|&c| char::from(c)));
 }
 
 /// A message built piece by piece into one string of the right size, without
@@ -109,10 +109,35 @@ pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
 #[derive(Debug, Default)]
 pub struct Message(String);
 
+thread_local! {
+    /// Emptied message strings handed back by [`recycle`], for the next messages.
+    static SPARE: std::cell::RefCell<Vec<String>> = const { std::cell::RefCell::new(Vec::new()) };
+}
+
+/// Hand back a message's string once its text has been copied elsewhere:
+/// the next [`Message`] on this thread reuses it instead of allocating
+/// (a large table's findings are copied into one text as they are made).
+pub fn recycle(mut s: String) {
+    if s.capacity() == 0 || s.capacity() > 4096 {
+        return;
+    }
+    s.clear();
+    SPARE.with(|p| {
+        if let Ok(mut p) = p.try_borrow_mut() {
+            if p.len() < 8 {
+                p.push(s);
+            }
+        }
+    });
+}
+
 impl Message {
     /// An empty message with room for `capacity` bytes.
     pub fn with_capacity(capacity: usize) -> Self {
-        Message(String::with_capacity(capacity))
+        let spare = SPARE.with(|p| p.try_borrow_mut().ok().and_then(|mut p| p.pop()));
+        let mut s = spare.unwrap_or_default();
+        s.reserve(capacity);
+        Message(s)
     }
     /// Text as it is.
     pub fn text(mut self, s: &str) -> Self {

@@ -17,8 +17,9 @@ use std::fmt;
 /// `chunk` rows), so nothing is copied to join them.
 #[derive(Debug, Clone)]
 pub struct ScreenReport {
-    /// Rows per part (all parts but the last are full).
-    chunk: usize,
+    /// Rows per part, a power of two (all parts but the last are full):
+    /// row `i` is in part `i >> shift`.
+    shift: u32,
     parts: Vec<Part>,
     n: usize,
 }
@@ -56,6 +57,7 @@ impl Part {
                 start,
                 end: self.text.len(),
             });
+            super::number_text::recycle(f.message);
         }
         self.ends.push(self.items.len());
         self.lines.push(line);
@@ -81,7 +83,7 @@ impl Part {
 impl Default for ScreenReport {
     fn default() -> Self {
         ScreenReport {
-            chunk: usize::MAX,
+            shift: usize::BITS - 1,
             parts: Vec::new(),
             n: 0,
         }
@@ -120,7 +122,7 @@ impl ScreenReport {
     /// An empty report with room for `rows` rows and `text` bytes of messages.
     pub(crate) fn with_capacity(rows: usize, text: usize) -> Self {
         ScreenReport {
-            chunk: usize::MAX,
+            shift: usize::BITS - 1,
             parts: vec![Part {
                 ends: Vec::with_capacity(rows),
                 items: Vec::with_capacity(rows),
@@ -144,15 +146,17 @@ impl ScreenReport {
         self.n += 1;
     }
 
-    /// One report of `parts` in order, each of `chunk` rows but the last.
+    /// One report of `parts` in order, each of `chunk` rows (a power of
+    /// two) but the last, each built row by row.
     pub(crate) fn joined(parts: Vec<ScreenReport>, chunk: usize) -> Self {
+        debug_assert!(chunk.is_power_of_two());
         let mut r = ScreenReport {
-            chunk: chunk.max(1),
+            shift: chunk.trailing_zeros(),
             parts: Vec::with_capacity(parts.len()),
             n: 0,
         };
         for p in parts {
-            debug_assert!(p.parts.len() <= 1 && (r.n % r.chunk == 0));
+            debug_assert!(p.parts.len() <= 1 && r.n % chunk == 0);
             r.n += p.n;
             r.parts.extend(p.parts);
         }
@@ -163,7 +167,8 @@ impl ScreenReport {
         if i >= self.n {
             return None;
         }
-        Some((self.parts.get(i / self.chunk)?, i % self.chunk))
+        let part = self.parts.get(i >> self.shift)?;
+        Some((part, i & ((1 << self.shift) - 1)))
     }
 
     fn items(&self, i: usize) -> &[Item] {

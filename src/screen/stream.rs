@@ -14,7 +14,7 @@
 //! the findings [`super::screen`] gives it on the whole table.
 
 use super::finding::Finding;
-use super::sources::{FastMap, StructureEstimator, StructureOutcome};
+use super::sources::{fast_hash, FastMap, StructureEstimator, StructureOutcome};
 use super::{duplicates, outliers, AntoineCell, Rows, ScreenContext, ScreenReport};
 use crate::units::ATM_PA;
 use crate::vapor::Curve;
@@ -22,39 +22,96 @@ use rayon::prelude::*;
 
 /// Structure estimates by SMILES, kept from batch to batch (tables repeat
 /// structures) up to a limit of distinct SMILES, then started afresh.
+///
+/// [`EstimateCache::fill`] also notes which estimate each row of the batch
+/// has ([`BatchEstimates`]), so the checks of that batch find a row's
+/// estimate by its place, not by hashing its SMILES again.
 #[derive(Debug, Default)]
 pub struct EstimateCache {
-    map: FastMap<Box<str>, Option<StructureOutcome>>,
+    map: FastMap<Box<str>, u32>,
+    entries: Vec<Cached>,
     limit: usize,
 }
+
+/// One SMILES's estimate and the hash of its structure key.
+#[derive(Debug)]
+struct Cached {
+    outcome: Option<StructureOutcome>,
+    key_hash: u64,
+}
+
+/// The rows of one batch with each row's structure estimate, from
+/// [`EstimateCache::fill`]: what [`batch_facts`] and [`screen_batch`] check.
+pub struct BatchEstimates<'a> {
+    rows: &'a dyn Rows,
+    cache: &'a EstimateCache,
+    /// Per row: its entry in the cache, or [`NO_ENTRY`].
+    slots: Vec<u32>,
+}
+
+impl<'a> BatchEstimates<'a> {
+    /// The estimate of row `i` and the hash of its structure key.
+    fn at(&self, i: usize) -> Option<&'a Cached> {
+        let cache: &'a EstimateCache = self.cache;
+        cache.entries.get(*self.slots.get(i)? as usize)
+    }
+}
+
+impl super::Estimates for BatchEstimates<'_> {
+    fn outcome(&self, i: usize, _smiles: &str) -> Option<&StructureOutcome> {
+        self.at(i).and_then(|c| c.outcome.as_ref())
+    }
+}
+
+const NO_ENTRY: u32 = u32::MAX;
 
 impl EstimateCache {
     /// A cache of at most about `limit` distinct SMILES (at least one batch's).
     pub fn new(limit: usize) -> Self {
         EstimateCache {
-            map: FastMap::default(),
             limit,
+            ..EstimateCache::default()
         }
     }
 
-    /// Estimate, in parallel, every distinct SMILES of `rows` not yet known.
-    pub fn fill(&mut self, rows: &dyn Rows, estimator: &dyn StructureEstimator) {
-        let mut distinct: FastMap<&str, ()> = FastMap::default();
-        for i in 0..rows.n_rows() {
+    /// Estimate, in parallel, every distinct SMILES of `rows` not yet known;
+    /// the rows with each row's estimate, for the checks of this batch.
+    pub fn fill<'a>(
+        &'a mut self,
+        rows: &'a dyn Rows,
+        estimator: &dyn StructureEstimator,
+    ) -> BatchEstimates<'a> {
+        let n = rows.n_rows();
+        let mut slots = vec![NO_ENTRY; n];
+        let mut missing: Vec<(usize, &str)> = Vec::new();
+        for (i, slot) in slots.iter_mut().enumerate() {
             if let Some(s) = rows.smiles(i).map(super::trimmed).filter(|s| !s.is_empty()) {
-                if !self.map.contains_key(s) {
-                    distinct.insert(s, ());
+                match self.map.get(s) {
+                    Some(&e) => *slot = e,
+                    None => missing.push((i, s)),
                 }
             }
         }
-        if distinct.is_empty() {
-            return;
+        if missing.is_empty() {
+            return BatchEstimates {
+                rows,
+                cache: self,
+                slots,
+            };
+        }
+        let mut distinct: FastMap<&str, ()> = FastMap::default();
+        for &(_, s) in &missing {
+            distinct.insert(s, ());
         }
         if self.map.len() + distinct.len() > self.limit {
             self.map.clear();
-            for i in 0..rows.n_rows() {
+            self.entries.clear();
+            slots.iter_mut().for_each(|e| *e = NO_ENTRY);
+            missing.clear();
+            for i in 0..n {
                 if let Some(s) = rows.smiles(i).map(super::trimmed).filter(|s| !s.is_empty()) {
                     distinct.insert(s, ());
+                    missing.push((i, s));
                 }
             }
         }
@@ -64,15 +121,22 @@ impl EstimateCache {
             .into_par_iter()
             .map(|s| (s, estimator.estimate(s)))
             .collect();
-        for (s, o) in new {
-            self.map.insert(s.into(), o);
+        for (s, outcome) in new {
+            let key_hash = outcome
+                .as_ref()
+                .and_then(StructureOutcome::structure_key)
+                .map_or(0, |k| fast_hash(k.as_bytes()));
+            self.map.insert(s.into(), self.entries.len() as u32);
+            self.entries.push(Cached { outcome, key_hash });
         }
-    }
-}
-
-impl super::Estimates for EstimateCache {
-    fn outcome(&self, smiles: &str) -> Option<&StructureOutcome> {
-        self.map.get(smiles).and_then(Option::as_ref)
+        for (i, s) in missing {
+            slots[i] = self.map.get(s).copied().unwrap_or(NO_ENTRY);
+        }
+        BatchEstimates {
+            rows,
+            cache: self,
+            slots,
+        }
     }
 }
 
@@ -89,14 +153,15 @@ pub struct RowFacts<'a> {
     pub cas: Option<&'a str>,
     /// Structure key of the SMILES.
     pub structure: Option<&'a str>,
+    /// [`fast_hash`] of the structure key (0 when none).
+    pub structure_hash: u64,
     /// Compound name.
     pub name: Option<&'a str>,
 }
 
-/// The facts of every row of a batch (first pass), in parallel. The SMILES
-/// must be in `estimates` ([`EstimateCache::fill`]).
-pub fn batch_facts<'r>(rows: &'r dyn Rows, estimates: &'r EstimateCache) -> Vec<RowFacts<'r>> {
-    use super::Estimates;
+/// The facts of every row of a batch (first pass), in parallel.
+pub fn batch_facts<'r>(batch: &BatchEstimates<'r>) -> Vec<RowFacts<'r>> {
+    let rows = batch.rows;
     (0..rows.n_rows())
         .into_par_iter()
         .with_min_len(1024)
@@ -107,11 +172,12 @@ pub fn batch_facts<'r>(rows: &'r dyn Rows, estimates: &'r EstimateCache) -> Vec<
                 _ => None,
             };
             let tb = row.tb_k.or(implied);
-            let outcome = row
+            let cached = row
                 .smiles
                 .map(super::trimmed)
                 .filter(|s| !s.is_empty())
-                .and_then(|s| estimates.outcome(s));
+                .and_then(|_| batch.at(i));
+            let outcome = cached.and_then(|c| c.outcome.as_ref());
             let residual = match (outcome, tb) {
                 (Some(StructureOutcome::Estimate { tb_k: est, .. }), Some(t)) => t - est,
                 _ => f64::NAN,
@@ -126,6 +192,7 @@ pub fn batch_facts<'r>(rows: &'r dyn Rows, estimates: &'r EstimateCache) -> Vec<
                 residual,
                 cas,
                 structure: outcome.and_then(StructureOutcome::structure_key),
+                structure_hash: cached.map_or(0, |c| c.key_hash),
                 name: row.compound,
             }
         })
@@ -291,12 +358,12 @@ impl TableVerdicts {
 /// one compact report as they are made, so a finding's message is freed
 /// (and its memory reused by the next) at once.
 pub fn screen_batch(
-    rows: &dyn Rows,
+    batch: &BatchEstimates<'_>,
     first_row: usize,
     verdicts: &TableVerdicts,
-    estimates: &EstimateCache,
     ctx: &ScreenContext<'_>,
 ) -> ScreenReport {
+    let rows = batch.rows;
     const CHUNK: usize = super::PROGRESS_ROWS;
     let n = rows.n_rows();
     let parts: Vec<ScreenReport> = (0..n.div_ceil(CHUNK))
@@ -307,7 +374,7 @@ pub fn screen_batch(
             let mut part = ScreenReport::with_capacity(end - c * CHUNK, 256 * (end - c * CHUNK));
             let mut f = Vec::new();
             for i in c * CHUNK..end {
-                let facts = super::check_row(rows, i, None, estimates, ctx, &mut f);
+                let facts = super::check_row(rows, i, None, batch, ctx, &mut f);
                 verdicts.findings(first_row + i, facts.tb_k, facts.residual, &mut f);
                 part.push_row(&mut f, facts.line);
             }
@@ -334,9 +401,9 @@ mod tests {
         let mut residuals = vec![];
         for start in (0..rows.len()).step_by(size) {
             let batch: Vec<RowInput<'_>> = rows[start..(start + size).min(rows.len())].to_vec();
-            cache.fill(&batch, ctx.estimator);
+            let filled = cache.fill(&batch, ctx.estimator);
             groups.grow(start + batch.len());
-            for (k, f) in batch_facts(&batch, &cache).iter().enumerate() {
+            for (k, f) in batch_facts(&filled).iter().enumerate() {
                 let row = (start + k) as u32;
                 facts.push((f.tb_k, f.line));
                 residuals.extend(Some(f.residual).filter(|r| r.is_finite()));
@@ -366,7 +433,8 @@ mod tests {
         let mut lines = vec![];
         for start in (0..rows.len()).step_by(size) {
             let batch: Vec<RowInput<'_>> = rows[start..(start + size).min(rows.len())].to_vec();
-            let r = screen_batch(&batch, start, &verdicts, &cache, ctx);
+            let filled = cache.fill(&batch, ctx.estimator);
+            let r = screen_batch(&filled, start, &verdicts, ctx);
             for i in 0..r.len() {
                 findings.push(r.findings(i));
                 lines.push(r.line(i));
@@ -438,6 +506,43 @@ mod tests {
         assert!(whole.flags(39).contains("structure-outlier"));
         for size in [1, 2, 7, 39, 40, 100] {
             assert_eq!(in_batches(&rows, size, &ctx), whole, "batch size {size}");
+        }
+    }
+
+    // Batches of more rows than a worker's chunk: the report joined from
+    // the chunks reads back every row as the whole-table report does.
+    // Benzene, Smith, Van Ness & Abbott App. B Table B.2 (ln/kPa/°C), tn 353.15 K.
+    #[test]
+    fn chunked_batches_read_back_every_row() {
+        let conv = "ln,kPa,degC".parse().unwrap();
+        let names: Vec<String> = (0..9000).map(|i| format!("lot {}", i % 700)).collect();
+        let smiles = ["CCO", "CCCC", "c1ccccc1", "C(", ""];
+        let rows: Vec<RowInput<'_>> = names
+            .iter()
+            .enumerate()
+            .map(|(i, n)| {
+                let mut r = RowInput::at_line(i + 2)
+                    .with_compound(n)
+                    .with_tb_k(340.0 + (i % 29) as f64 * 0.7)
+                    .with_antoine(13.7819, 2726.81, 217.572, conv);
+                r.smiles = Some(smiles[i % smiles.len()]);
+                r
+            })
+            .collect();
+        let est = Fixed;
+        let ctx = ScreenContext {
+            estimator: &est,
+            ..ScreenContext::default()
+        };
+        let whole = screen(&rows, None, &ctx);
+        assert!(whole.n_findings(8999) > 0);
+        for size in [9000, 5000] {
+            let b = in_batches(&rows, size, &ctx);
+            assert_eq!(b, whole, "batch size {size}");
+            for i in [0, 4095, 4096, 4097, 8191, 8192, 8999] {
+                assert_eq!(b.diagnosis(i), whole.diagnosis(i), "row {i}");
+                assert_eq!(b.line(i), i + 2);
+            }
         }
     }
 

@@ -106,14 +106,21 @@ impl KeySorter {
         }
     }
 
-    fn add(&mut self, key: &[u8], row: u32, groups: &mut Groups) -> std::io::Result<()> {
+    /// Add `key` of `row`; `hash` is its [`fast_hash`] when the caller has it.
+    fn add(
+        &mut self,
+        key: &[u8],
+        hash: Option<u64>,
+        row: u32,
+        groups: &mut Groups,
+    ) -> std::io::Result<()> {
         self.added += 1;
         if self.added == SEEN_TRIAL && self.repeats * 4 < self.added {
             self.seen = None;
         }
         if let Some(seen) = &mut self.seen {
             let at = self.index.len() as u32;
-            match seen.entry(fast_hash(key)) {
+            match seen.entry(hash.unwrap_or_else(|| fast_hash(key))) {
                 Entry::Occupied(e) => {
                     let first = self.index[*e.get() as usize];
                     if key_of(&self.arena, &first) == key {
@@ -312,8 +319,7 @@ pub fn screen_file(
                 )
                 .into());
             }
-            cache.fill(&table, ctx.estimator);
-            let facts = batch_facts(&table, &cache);
+            let facts = batch_facts(&cache.fill(&table, ctx.estimator));
             groups.grow(start + facts.len());
             for (k, f) in facts.iter().enumerate() {
                 let row = (start + k) as u32;
@@ -323,15 +329,16 @@ pub fn screen_file(
                 }
                 let [cas, structure, name] = &mut sorters;
                 if let Some(c) = f.cas {
-                    cas.add(c.as_bytes(), row, &mut groups).map_err(scratch)?;
+                    cas.add(c.as_bytes(), None, row, &mut groups)
+                        .map_err(scratch)?;
                 }
                 if let Some(s) = f.structure {
                     structure
-                        .add(s.as_bytes(), row, &mut groups)
+                        .add(s.as_bytes(), Some(f.structure_hash), row, &mut groups)
                         .map_err(scratch)?;
                 }
                 if let Some(n) = f.name {
-                    with_name_key(n, |k| name.add(k.as_bytes(), row, &mut groups))
+                    with_name_key(n, |k| name.add(k.as_bytes(), None, row, &mut groups))
                         .map_err(scratch)?;
                 }
             }
@@ -361,8 +368,7 @@ pub fn screen_file(
         let (frame, start) = b?;
         let table =
             PropertyTable::from_batch(frame, path, batches.line0() + start, &opts.read, &mut scan)?;
-        cache.fill(&table, ctx.estimator);
-        let report = screen_batch(&table, start, &verdicts, &cache, ctx);
+        let report = screen_batch(&cache.fill(&table, ctx.estimator), start, &verdicts, ctx);
         summary.add(&report, &table, start);
         emit(&table, &report, start).map_err(StreamError::Output)?;
     }
@@ -426,7 +432,8 @@ mod tests {
                 groups.grow(keys.len());
                 let mut sorter = KeySorter::new(b'k', budget, &dir);
                 for (i, k) in keys.iter().enumerate() {
-                    sorter.add(k, i as u32, &mut groups).unwrap();
+                    let hash = (i % 2 == 0).then(|| fast_hash(k));
+                    sorter.add(k, hash, i as u32, &mut groups).unwrap();
                 }
                 sorter.finish(&mut groups).unwrap();
                 assert_eq!(groups.roots(), want, "budget {budget}");
