@@ -67,6 +67,14 @@ pub fn push_uint(out: &mut String, n: u64) {
     }
 }
 
+/// "00" to "99", two bytes each.
+const PAIRS: &[u8; 200] = b"\
+0001020304050607080910111213141516171819\
+2021222324252627282930313233343536373839\
+4041424344454647484950515253545556575859\
+6061626364656667686970717273747576777879\
+8081828384858687888990919293949596979899";
+
 /// Appends `x` as `{x:.1}` writes it (`{x:+.1}` when `plus`).
 pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
     let Some(t) = tenths(x) else {
@@ -84,14 +92,21 @@ pub fn push_one_decimal(out: &mut String, x: f64, plus: bool) {
     buf[last] = b'0' + (t % 10) as u8;
     buf[last - 1] = b'.';
     let mut i = last - 1;
+    // the whole part two digits at a time (most values have three or four)
     let mut n = t / 10;
-    loop {
+    while n >= 100 {
+        let r = 2 * (n % 100) as usize;
+        n /= 100;
+        i -= 2;
+        buf[i..i + 2].copy_from_slice(&PAIRS[r..r + 2]);
+    }
+    if n >= 10 {
+        let r = 2 * n as usize;
+        i -= 2;
+        buf[i..i + 2].copy_from_slice(&PAIRS[r..r + 2]);
+    } else {
         i -= 1;
-        buf[i] = b'0' + (n % 10) as u8;
-        n /= 10;
-        if n == 0 {
-            break;
-        }
+        buf[i] = b'0' + n as u8;
     }
     if x.is_sign_negative() {
         i -= 1;
