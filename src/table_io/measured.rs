@@ -265,7 +265,7 @@ pub(crate) fn raw_headers(
 }
 
 /// Read CSV cells, trimmed, skipping blank and comment lines; with `headers_only`, stop after
-/// the header. One record buffer is reused, and a cell is copied once (trimmed) into its row.
+/// the header. A cell is copied once (trimmed) into its row ([`records`]).
 fn csv_rows(
     path: &Path,
     bytes: &[u8],

@@ -96,40 +96,14 @@ fn push_tidy_digits(out: &mut String, x: f64) -> bool {
         n /= 10;
         k -= 1;
     }
-    // Digits from the right into a buffer with room for "-0." and 22 leading zeros.
-    let mut buf = [b'0'; 48];
+    let mut buf = [0u8; 20];
     let mut len = 0;
     while n > 0 {
-        buf[47 - len] = b'0' + (n % 10) as u8;
+        buf[19 - len] = b'0' + (n % 10) as u8;
         n /= 10;
         len += 1;
     }
-    // the value is digits × 10^(−k): `point` digits stand before the decimal point
-    let point = len as i64 - k;
-    let mut at = 48 - len;
-    if point <= 0 {
-        // "0." and −point zeros before the digits (the buffer's zeros)
-        at -= (-point) as usize;
-        buf[at - 1] = b'.';
-        at -= 2; // buf[at] stays '0'
-    } else if point >= len as i64 {
-        // a whole number: the digits moved left, zeros after them
-        let zeros = (point - len as i64) as usize;
-        buf.copy_within(at..48, at - zeros);
-        at -= zeros;
-        buf[48 - zeros..].fill(b'0');
-    } else {
-        let p = at + point as usize;
-        buf.copy_within(at..p, at - 1);
-        at -= 1;
-        buf[p - 1] = b'.';
-    }
-    if m < 0.0 {
-        at -= 1;
-        buf[at] = b'-';
-    }
-    // ASCII, so always UTF-8
-    out.push_str(std::str::from_utf8(&buf[at..]).unwrap_or_default());
+    push_placed(out, m < 0.0, &buf[20 - len..], len as i64 - k);
     true
 }
 
@@ -165,26 +139,36 @@ pub fn push_plain(out: &mut String, x: f64) {
     };
     let (int, frac) = mant.split_once('.').unwrap_or((mant, ""));
     let frac = frac.trim_end_matches('0');
-    let n = (int.len() + frac.len()) as i64;
-    let point = int.len() as i64 + exp; // digits before the decimal point
-    let digits = int.bytes().chain(frac.bytes());
+    // at most 15 digits here (16 and more went to `{}` above)
+    let mut digits = [0u8; 17];
+    let n = int.len() + frac.len();
+    digits[..int.len()].copy_from_slice(int.as_bytes());
+    digits[int.len()..n].copy_from_slice(frac.as_bytes());
+    push_placed(out, neg, &digits[..n], int.len() as i64 + exp);
+}
+
+/// The number `digits × 10^(point − digits.len())` in plain decimal notation, as `{}` writes
+/// it (`digits` ASCII, no leading or trailing zero; `point` digits stand before the decimal
+/// point), with a minus sign when `neg`.
+fn push_placed(out: &mut String, neg: bool, digits: &[u8], point: i64) {
+    // ASCII digits, so always UTF-8
+    let text = |d| std::str::from_utf8(d).unwrap_or_default();
+    let len = digits.len() as i64;
     if neg {
         out.push('-');
     }
     if point <= 0 {
         out.push_str("0.");
         out.extend(std::iter::repeat_n('0', (-point) as usize));
-        out.extend(digits.map(char::from));
-    } else if point >= n {
-        out.extend(digits.map(char::from));
-        out.extend(std::iter::repeat_n('0', (point - n) as usize));
+        out.push_str(text(digits));
+    } else if point >= len {
+        out.push_str(text(digits));
+        out.extend(std::iter::repeat_n('0', (point - len) as usize));
     } else {
-        for (i, d) in digits.enumerate() {
-            if i as i64 == point {
-                out.push('.');
-            }
-            out.push(char::from(d));
-        }
+        let (int, frac) = digits.split_at(point as usize);
+        out.push_str(text(int));
+        out.push('.');
+        out.push_str(text(frac));
     }
 }
 
